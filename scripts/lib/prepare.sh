@@ -1,0 +1,94 @@
+# Shared preparation for `npm start`, `npm test` and `npm run dev`: install what is
+# missing (npm packages, Debian's MariaDB, Chromium for browser tests) and run a
+# private MariaDB server on loopback. Sourced by the scripts beside it.
+
+log() { printf '\033[1;34m[tarnish]\033[0m %s\n' "$*"; }
+
+apt_updated=0
+apt_install() {
+  if [ "$(id -u)" != 0 ]; then
+    log "Need root to install Debian packages: $*"; return 1
+  fi
+  if [ "$apt_updated" = 0 ]; then
+    DEBIAN_FRONTEND=noninteractive apt-get update -qq >/dev/null
+    apt_updated=1
+  fi
+  DEBIAN_FRONTEND=noninteractive apt-get install -y -qq "$@" >/dev/null
+}
+
+# npm ci when node_modules is missing or older than the lock file.
+ensure_node_modules() {
+  if [ ! -d node_modules ] || [ package-lock.json -nt node_modules/.package-lock.json ]; then
+    log "Installing npm packages (npm ci)"
+    npm ci --no-audit --no-fund --loglevel=error
+  fi
+}
+
+ensure_mariadb_installed() {
+  if ! command -v mariadbd >/dev/null 2>&1 && [ ! -x /usr/sbin/mariadbd ]; then
+    log "Installing Debian's mariadb-server"
+    apt_install mariadb-server
+  fi
+  export PATH="$PATH:/usr/sbin"
+}
+
+ensure_chromium_installed() {
+  if [ ! -x /usr/bin/chromium ]; then
+    log "Installing Debian's chromium for browser tests"
+    apt_install chromium
+  fi
+}
+
+# mariadb_start DIR PORT DATABASE USER PASSWORD [fresh]
+# Starts mariadbd on 127.0.0.1:PORT with its data in DIR (grant tables on), waits
+# until it answers, creates DATABASE and the application USER. With "fresh" the
+# database is dropped and created again (tests migrate from empty).
+mariadb_start() {
+  local dir port db user pass fresh
+  dir=$(realpath -m "$1"); port=$2; db=$3; user=$4; pass=$5; fresh=${6:-}
+  mkdir -p "$dir"
+  MARIADB_DIR=$dir
+  if [ -f "$dir/mariadbd.pid" ] && kill -0 "$(cat "$dir/mariadbd.pid")" 2>/dev/null; then
+    log "MariaDB already running from $dir (pid $(cat "$dir/mariadbd.pid"))"
+    MARIADB_OWNED=0
+  else
+    if [ ! -d "$dir/data/mysql" ]; then
+      mariadb-install-db --no-defaults --datadir="$dir/data" --user=root \
+        --auth-root-authentication-method=socket --skip-test-db --skip-name-resolve >"$dir/install.log" 2>&1
+    fi
+    mariadbd --no-defaults --datadir="$dir/data" --socket="$dir/mysqld.sock" --port="$port" \
+      --bind-address=127.0.0.1 --skip-name-resolve --user=root \
+      --pid-file="$dir/mariadbd.pid" --log-error="$dir/mariadbd.err" \
+      --character-set-server=utf8mb4 --collation-server=utf8mb4_unicode_ci \
+      --innodb-buffer-pool-size=256M --innodb-flush-log-at-trx-commit=2 --max-connections=300 2>>"$dir/mariadbd.err" &
+    MARIADB_OWNED=1
+    local tries=0
+    until mariadb-admin --no-defaults --socket="$dir/mysqld.sock" -uroot ping >/dev/null 2>&1; do
+      tries=$((tries + 1))
+      if [ $tries -gt 300 ]; then log "MariaDB did not answer; see $dir/mariadbd.err"; tail -20 "$dir/mariadbd.err"; return 1; fi
+      sleep 0.1
+    done
+    log "MariaDB listening on 127.0.0.1:$port (pid $(cat "$dir/mariadbd.pid"))"
+  fi
+  local drop=""
+  [ "$fresh" = fresh ] && drop="DROP DATABASE IF EXISTS \`$db\`;"
+  mariadb --no-defaults --socket="$dir/mysqld.sock" -uroot <<SQL
+$drop
+CREATE DATABASE IF NOT EXISTS \`$db\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;
+CREATE USER IF NOT EXISTS '$user'@'127.0.0.1' IDENTIFIED BY '$pass';
+CREATE USER IF NOT EXISTS '$user'@'localhost' IDENTIFIED BY '$pass';
+GRANT ALL PRIVILEGES ON \`$db\`.* TO '$user'@'127.0.0.1';
+GRANT ALL PRIVILEGES ON \`$db\`.* TO '$user'@'localhost';
+SQL
+}
+
+# Stops the server we started, by its pid, and waits for it to exit.
+mariadb_stop() {
+  [ "${MARIADB_OWNED:-0}" = 1 ] || return 0
+  local pidfile="$MARIADB_DIR/mariadbd.pid"
+  [ -f "$pidfile" ] || return 0
+  local pid; pid=$(cat "$pidfile")
+  kill -TERM "$pid" 2>/dev/null || return 0
+  for _ in $(seq 1 100); do kill -0 "$pid" 2>/dev/null || break; sleep 0.1; done
+  log "MariaDB stopped"
+}

@@ -1,0 +1,28 @@
+#!/usr/bin/env bash
+# npm test: the same preparation as npm start (plus Chromium), on a separate MariaDB
+# server and an empty test database, then every test. Exits non-zero on any failure.
+set -euo pipefail
+cd "$(dirname "$0")/.."
+source scripts/lib/prepare.sh
+
+export DB_PORT=${TEST_DB_PORT:-3308}
+export DB_NAME=tarnish_test
+export DB_USER=tarnish
+export DB_PASSWORD=tarnish-test-only
+export NODE_ENV=test
+
+ensure_node_modules
+ensure_mariadb_installed
+ensure_chromium_installed
+trap mariadb_stop EXIT
+mariadb_start .local/mariadb-test "$DB_PORT" "$DB_NAME" "$DB_USER" "$DB_PASSWORD" fresh
+
+log "Migrating the empty test database"
+npm run --silent migrate
+log "Type checks and lint"
+npm run --silent typecheck
+npm run --silent lint
+log "Building the client for browser tests"
+npx vite build --logLevel warn
+log "Running every test"
+npx vitest run "$@"

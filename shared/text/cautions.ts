@@ -1,0 +1,13 @@
+/**
+ * The cautions shown with every run result, in every briefing and every export
+ * (DESIGN.md, "Cautions the product shows"). One place, so all copies agree.
+ */
+export const CAUTIONS: readonly string[] = [
+  'These results are scenario estimates, not forecasts.',
+  'They depend on sparse station data and on model parameters whose published ranges are wide.',
+  'They are no substitute for site measurements, hydrological design standards, or the judgement of licensed engineers and local authorities; follow local codes and licensed practice.',
+  'Glacier hazards (outburst floods, surges, avalanches) are outside the model.',
+  'Extra melt from darkening draws down stored snow and ice; in the long run it is not new water.',
+];
+
+export const CAUTIONS_HEADING = 'Cautions';

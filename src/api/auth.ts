@@ -1,0 +1,9 @@
+import { meResponseSchema, type SignInRequest, type SignUpRequest } from '@shared/schemas/auth';
+import { api } from './http';
+
+export const authApi = {
+  me: () => api.get('/api/me', meResponseSchema, { quiet: true }),
+  signIn: (body: SignInRequest) => api.post('/api/auth/sign-in', body, { schema: meResponseSchema, quiet: true }),
+  signUp: (body: SignUpRequest) => api.post('/api/auth/sign-up', body, { schema: meResponseSchema, quiet: true }),
+  signOut: () => api.post('/api/auth/sign-out'),
+};

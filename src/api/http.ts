@@ -1,0 +1,105 @@
+import { Notify } from 'quasar';
+import type { z } from 'zod';
+import { apiErrorSchema } from '@shared/schemas/api-error';
+
+/** An error answered by the API, in its `{ error: { code, message, field? } }` shape. */
+export class ApiError extends Error {
+  constructor(
+    readonly status: number,
+    readonly code: string,
+    message: string,
+    readonly field?: string,
+    readonly details?: unknown,
+  ) {
+    super(message);
+    this.name = 'ApiError';
+  }
+}
+
+export interface RequestOptions<S extends z.ZodType | undefined> {
+  body?: unknown;
+  /** Multipart upload instead of JSON. */
+  form?: FormData;
+  /** Parses the reply; a reply that does not match is an error, never trusted data. */
+  schema?: S;
+  signal?: AbortSignal;
+  /** Do not show a notification for errors (the caller shows them in place). */
+  quiet?: boolean;
+}
+
+type Reply<S> = S extends z.ZodType ? z.infer<S> : void;
+
+let onUnauthorized: (() => void) | undefined;
+/** Called when a request answers 401 (the session ended): the auth boot sends the user to sign in. */
+export function setUnauthorizedHandler(handler: () => void): void {
+  onUnauthorized = handler;
+}
+
+export async function apiRequest<S extends z.ZodType | undefined = undefined>(
+  method: 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE',
+  url: string,
+  options: RequestOptions<S> = {},
+): Promise<Reply<S>> {
+  const headers: Record<string, string> = { Accept: 'application/json' };
+  let body: BodyInit | undefined;
+  if (options.form) body = options.form;
+  else if (options.body !== undefined) {
+    headers['Content-Type'] = 'application/json';
+    body = JSON.stringify(options.body);
+  }
+  let response: Response;
+  try {
+    response = await fetch(url, { method, headers, body, credentials: 'same-origin', signal: options.signal });
+  } catch (cause) {
+    if ((cause as Error).name === 'AbortError') throw cause;
+    const err = new ApiError(0, 'network', 'The server could not be reached. Check your connection and try again.');
+    if (!options.quiet) notifyApiError(err);
+    throw err;
+  }
+  if (!response.ok) {
+    const err = await toApiError(response);
+    if (err.status === 401 && onUnauthorized && !url.endsWith('/api/auth/sign-in')) onUnauthorized();
+    if (!options.quiet && !err.field) notifyApiError(err);
+    throw err;
+  }
+  if (response.status === 204 || !options.schema) return undefined as Reply<S>;
+  const parsed = options.schema.safeParse(await response.json());
+  if (!parsed.success) {
+    const err = new ApiError(response.status, 'bad_reply', 'The server sent a reply this page does not understand. Reload the page.');
+    if (!options.quiet) notifyApiError(err);
+    throw err;
+  }
+  return parsed.data as Reply<S>;
+}
+
+async function toApiError(response: Response): Promise<ApiError> {
+  const text = await response.text();
+  try {
+    const parsed = apiErrorSchema.safeParse(JSON.parse(text));
+    if (parsed.success) {
+      const e = parsed.data.error;
+      return new ApiError(response.status, e.code, e.message, e.field, e.details);
+    }
+  } catch {
+    // Not JSON: fall through to a plain message.
+  }
+  return new ApiError(response.status, 'http_' + response.status, `The server answered ${response.status} ${response.statusText}.`);
+}
+
+export function notifyApiError(err: unknown): void {
+  const message = err instanceof Error ? err.message : 'Something went wrong.';
+  Notify.create({ type: 'negative', message, position: 'top', timeout: 6000 });
+}
+
+export const api = {
+  get: <S extends z.ZodType>(url: string, schema: S, options: Omit<RequestOptions<S>, 'schema'> = {}) =>
+    apiRequest('GET', url, { ...options, schema }),
+  post: <S extends z.ZodType | undefined = undefined>(url: string, body?: unknown, options: RequestOptions<S> = {}) =>
+    apiRequest('POST', url, { ...options, body }),
+  put: <S extends z.ZodType | undefined = undefined>(url: string, body?: unknown, options: RequestOptions<S> = {}) =>
+    apiRequest('PUT', url, { ...options, body }),
+  patch: <S extends z.ZodType | undefined = undefined>(url: string, body?: unknown, options: RequestOptions<S> = {}) =>
+    apiRequest('PATCH', url, { ...options, body }),
+  delete: <S extends z.ZodType | undefined = undefined>(url: string, options: RequestOptions<S> = {}) =>
+    apiRequest('DELETE', url, options),
+};

@@ -1,0 +1,72 @@
+import type { RouteRecordRaw } from 'vue-router';
+import type { Role } from '@shared/schemas/auth';
+
+declare module 'vue-router' {
+  interface RouteMeta {
+    /** Who may enter; absent on public pages. */
+    roles?: readonly Role[];
+    /** Shown in the left navigation (to the roles above) when set. */
+    nav?: { label: string; icon: string; caption?: string };
+    /** Pages for signed-out visitors only. */
+    guestOnly?: boolean;
+    title?: string;
+  }
+}
+
+const WORKSHOP: readonly Role[] = ['admin', 'consultant', 'scientist'];
+const EVERYONE: readonly Role[] = ['admin', 'consultant', 'scientist', 'client'];
+
+export const routes: RouteRecordRaw[] = [
+  {
+    path: '/',
+    component: () => import('src/layouts/MainLayout.vue'),
+    children: [
+      {
+        path: '',
+        name: 'overview',
+        component: () => import('src/pages/OverviewPage.vue'),
+        meta: { roles: EVERYONE, nav: { label: 'Overview', icon: 'dashboard' }, title: 'Overview' },
+      },
+      {
+        path: 'catchments',
+        name: 'catchments',
+        component: () => import('src/pages/CatchmentsPage.vue'),
+        meta: { roles: WORKSHOP, nav: { label: 'Catchments', icon: 'terrain', caption: 'Bands, climate, scenarios' }, title: 'Catchments' },
+      },
+      {
+        path: 'lab',
+        name: 'lab',
+        component: () => import('src/pages/LabPage.vue'),
+        meta: { roles: WORKSHOP, nav: { label: 'Lab', icon: 'science', caption: 'Surface response, calibration' }, title: 'Lab' },
+      },
+      {
+        path: 'briefings',
+        name: 'briefings',
+        component: () => import('src/pages/BriefingsPage.vue'),
+        meta: { roles: ['admin', 'consultant', 'client'], nav: { label: 'Briefings', icon: 'article', caption: 'Published results' }, title: 'Briefings' },
+      },
+      {
+        path: 'team',
+        name: 'team',
+        component: () => import('src/pages/TeamPage.vue'),
+        meta: { roles: ['admin'], nav: { label: 'Team', icon: 'group', caption: 'Members and invitations' }, title: 'Team' },
+      },
+      {
+        path: 'billing',
+        name: 'billing',
+        component: () => import('src/pages/BillingPage.vue'),
+        meta: { roles: ['admin'], nav: { label: 'Seats & billing', icon: 'credit_card' }, title: 'Seats & billing' },
+      },
+    ],
+  },
+  {
+    path: '/',
+    component: () => import('src/layouts/SignInLayout.vue'),
+    children: [
+      { path: 'sign-in', name: 'sign-in', component: () => import('src/pages/SignInPage.vue'), meta: { guestOnly: true, title: 'Sign in' } },
+      { path: 'sign-up', name: 'sign-up', component: () => import('src/pages/SignUpPage.vue'), meta: { guestOnly: true, title: 'Create an account' } },
+    ],
+  },
+  // Always last.
+  { path: '/:catchAll(.*)*', name: 'not-found', component: () => import('src/pages/NotFoundPage.vue'), meta: { title: 'Not found' } },
+];

@@ -1,0 +1,39 @@
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createTestApp, type TestApp } from '../support/test-app';
+
+let t: TestApp;
+beforeAll(() => {
+  t = createTestApp();
+});
+afterAll(() => t.close());
+
+describe('GET /api/health', () => {
+  it('reports the database up', async () => {
+    const res = await request(t.app).get('/api/health');
+    expect(res.status).toBe(200);
+    expect(res.body).toEqual({ status: 'ok', db: 'up' });
+  });
+
+  it('reports the database down with 503 when the pool cannot connect, and keeps serving', async () => {
+    // Port 1 on loopback: nothing listens there, so every connection is refused.
+    const down = createTestApp({ DB_PORT: '1' });
+    try {
+      const res = await request(down.app).get('/api/health');
+      expect(res.status).toBe(503);
+      expect(res.body).toEqual({ status: 'degraded', db: 'down' });
+      const again = await request(down.app).get('/api/health');
+      expect(again.status).toBe(503);
+    } finally {
+      await down.close();
+    }
+  });
+
+  it('sends a Content-Security-Policy without inline scripts', async () => {
+    const res = await request(t.app).get('/api/health');
+    const csp = res.headers['content-security-policy'];
+    expect(csp).toMatch(/script-src 'self'/);
+    expect(csp).not.toMatch(/script-src[^;]*unsafe-inline/);
+    expect(res.headers['x-powered-by']).toBeUndefined();
+  });
+});

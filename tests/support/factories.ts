@@ -1,0 +1,48 @@
+import bcrypt from 'bcryptjs';
+import type { Express } from 'express';
+import type { Knex } from 'knex';
+import request from 'supertest';
+import type { Role } from '../../shared/schemas/auth';
+
+let counter = 0;
+/** A unique suffix so test data never collides between files or runs. */
+export function unique(prefix = 't'): string {
+  counter += 1;
+  return `${prefix}${Date.now().toString(36)}${process.pid.toString(36)}${counter}`;
+}
+
+export const TEST_PASSWORD = 'correct horse battery staple';
+const TEST_HASH = bcrypt.hashSync(TEST_PASSWORD, 4);
+
+export interface TestOrg {
+  organisationId: number;
+  users: Record<Role, { id: number; email: string }>;
+}
+
+/** An organisation with one active user per role, all with TEST_PASSWORD. */
+export async function createOrganisation(db: Knex, name = unique('Org ')): Promise<TestOrg> {
+  const [organisationId] = await db('organisations').insert({ name });
+  const tag = unique('u');
+  const users = {} as TestOrg['users'];
+  for (const role of ['admin', 'consultant', 'scientist', 'client'] as const) {
+    const email = `${role}.${tag}@test.example`;
+    const [id] = await db('users').insert({
+      organisation_id: organisationId,
+      email,
+      name: `${role} ${tag}`,
+      role,
+      status: 'active',
+      password_hash: TEST_HASH,
+    });
+    users[role] = { id, email };
+  }
+  return { organisationId, users };
+}
+
+/** A supertest agent holding the session cookie of this user. */
+export async function signedInAgent(app: Express, email: string, password = TEST_PASSWORD) {
+  const agent = request.agent(app);
+  const res = await agent.post('/api/auth/sign-in').send({ email, password });
+  if (res.status !== 200) throw new Error(`sign-in as ${email} failed: ${res.status} ${JSON.stringify(res.body)}`);
+  return agent;
+}
