@@ -1,0 +1,59 @@
+import { prepareRun, type PreparedRun } from './prepare';
+import { buildSunTrack } from './sun-track';
+import { runHours, type ProgressCallback } from './engine-loop';
+import { allocateResult, summarise, type MeltModel, type SimulationResult } from './result';
+import { ENGINE_VERSION } from './version';
+
+export interface SimulateOptions {
+  /** Called after each simulated calendar month and at the end. */
+  onProgress?: ProgressCallback;
+}
+
+function bandInfo(run: PreparedRun) {
+  const g = run.geometry;
+  return {
+    elevationM: g.elevationM,
+    areaM2: g.areaM2,
+    cleanIceAreaM2: g.areaM2.map((a, b) => a * g.cleanIceShare[b]),
+    debrisAreaM2: g.areaM2.map((a, b) => a * g.debrisShare[b]),
+    debrisThicknessM: g.debrisThicknessM,
+  };
+}
+
+function runModel(raw: unknown, model: MeltModel, options: SimulateOptions): SimulationResult {
+  const run = prepareRun(raw);
+  const { catchment } = run.input;
+  const sun = buildSunTrack(run.timeline, catchment.latitudeDeg, catchment.longitudeDeg, run.params.transmissivity);
+  const result = allocateResult(model, ENGINE_VERSION, run.timeline.startDate, run.timeline.dayCount, bandInfo(run));
+  runHours(run, sun, model, result, options.onProgress);
+  summarise(result, run.initialSweMm);
+  return result;
+}
+
+/**
+ * Simulates every band hour by hour with the energy balance (see README.md).
+ * Throws SimulationInputError naming each invalid field; the result never contains NaN.
+ *
+ * @param input a simulation input (see simulationInputSchema); validated here
+ */
+export function simulate(input: unknown, options: SimulateOptions = {}): SimulationResult {
+  return runModel(input, 'energy-balance', options);
+}
+
+/**
+ * Reference model: hourly degree-day melt, M = DDF/24 · max(T, 0) per hour, with snow and ice
+ * factors (Hock 2003) and the hyperbolic debris reduction H* / (H* + h) (Anderson & Anderson 2016).
+ * Same inputs, snowpack and outputs as simulate; energy fluxes in the result are 0 apart from shortwave.
+ */
+export function simulateDegreeDay(input: unknown, options: SimulateOptions = {}): SimulationResult {
+  return runModel(input, 'degree-day', options);
+}
+
+/**
+ * Reference model: enhanced temperature-index melt (Pellicciotti et al. 2005),
+ * M = TF·T + SRF·(1 − α)·G per hour when T > TT, with the engine's albedo and slope shortwave G;
+ * debris-covered ice uses the clean-ice value times H* / (H* + h). Energy fluxes are 0 apart from shortwave.
+ */
+export function simulateEnhancedTemperatureIndex(input: unknown, options: SimulateOptions = {}): SimulationResult {
+  return runModel(input, 'enhanced-temperature-index', options);
+}
