@@ -131,7 +131,6 @@ export interface Subscription {
   latest_invoice: string | null;
   livemode: false;
   metadata: Metadata;
-  quantity: number;
   start_date: number;
   status: SubscriptionStatus;
 }

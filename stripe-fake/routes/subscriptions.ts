@@ -16,6 +16,7 @@ const listSubscriptionParams = z.strictObject({
 const updateParams = z.strictObject({
   items: z.array(z.strictObject({ id: z.string().optional(), quantity: formInteger.min(0).optional() })).optional(),
   proration_behavior: z.enum(['create_prorations', 'always_invoice', 'none']).optional(),
+  payment_behavior: z.enum(['allow_incomplete', 'error_if_incomplete']).optional(),
   cancel_at_period_end: formBoolean.optional(),
   metadata: metadataParam.optional(),
   expand: expandParam,

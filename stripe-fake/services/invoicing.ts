@@ -52,7 +52,7 @@ export function createInvoice(
   const id = newId('in');
   const total = drafts.reduce((sum, line) => sum + line.amount, 0);
   const startingBalance = customer.balance;
-  const amountDue = Math.max(0, total + startingBalance);
+  const amountDue = amountDueAfterCredit(ctx, customer.id, total);
   const endingBalance = Math.min(0, total + startingBalance);
   customer.balance = endingBalance;
   const sequence = customer.next_invoice_sequence;
@@ -103,24 +103,29 @@ export function createInvoice(
   return ctx.state.invoices.add(invoice);
 }
 
-/** Whether the saved card of this customer is set to fail its next charge; consumes the flag. */
-function takeFailure(ctx: FakeContext, customerId: string): boolean {
+/** Whether charging this customer's saved card fails now; uses up a fail-next flag. */
+export function savedCardChargeFails(ctx: FakeContext, customerId: string): boolean {
   for (const key of [customerId, '*']) {
     if (ctx.state.failNextCharge.delete(key)) return true;
   }
-  return false;
+  return !ctx.state.savedCards.has(customerId);
+}
+
+/** What the customer would owe for lines totalling `total`, after their credit balance. */
+export function amountDueAfterCredit(ctx: FakeContext, customerId: string, total: number): number {
+  return Math.max(0, total + ctx.state.customers.find(customerId).balance);
 }
 
 /**
  * Charges the invoice to the customer's saved card and announces the outcome:
  * `invoice.paid`, or `invoice.payment_failed` with the subscription going `past_due`.
- * `cardJustAccepted` is set when the card was charged a moment ago at checkout.
+ * `alreadyCharged`: the card was charged a moment ago (at checkout, or checking an error_if_incomplete change).
  */
-export function collectInvoice(ctx: FakeContext, invoice: Invoice, cardJustAccepted = false): Invoice {
+export function collectInvoice(ctx: FakeContext, invoice: Invoice, alreadyCharged = false): Invoice {
   const subscription = ctx.state.subscriptions.get(invoice.subscription)!;
   const before = structuredClone(subscription);
   const needsCharge = invoice.amount_due > 0;
-  const fails = needsCharge && !cardJustAccepted && (takeFailure(ctx, invoice.customer) || !ctx.state.savedCards.has(invoice.customer));
+  const fails = needsCharge && !alreadyCharged && savedCardChargeFails(ctx, invoice.customer);
   if (needsCharge) {
     invoice.attempted = true;
     invoice.attempt_count += 1;

@@ -1,10 +1,10 @@
 import { addInterval } from '../clock';
 import type { FakeContext } from '../context';
-import { invalidParam, invalidState, noSuch } from '../errors';
+import { FakeStripeError, invalidParam, invalidState, noSuch } from '../errors';
 import { newId } from '../ids';
 import type { Metadata, Price, Subscription } from '../types';
 import { emitEvent, previousAttributes } from './events';
-import { collectInvoice, createInvoice, seatLine } from './invoicing';
+import { amountDueAfterCredit, collectInvoice, createInvoice, savedCardChargeFails, seatLine } from './invoicing';
 import { quantityProrationLines } from './prorations';
 
 export interface NewSubscription {
@@ -55,7 +55,6 @@ export function startSubscription(ctx: FakeContext, input: NewSubscription): Sub
     latest_invoice: null,
     livemode: false,
     metadata: input.metadata,
-    quantity: input.quantity,
     start_date: now,
     status: 'active',
   };
@@ -72,6 +71,8 @@ export function startSubscription(ctx: FakeContext, input: NewSubscription): Sub
 export interface SubscriptionChange {
   items?: { id?: string; quantity?: number }[];
   proration_behavior?: 'create_prorations' | 'always_invoice' | 'none';
+  /** `error_if_incomplete`: a failed charge for the change answers 402 and changes nothing. */
+  payment_behavior?: 'allow_incomplete' | 'error_if_incomplete';
   cancel_at_period_end?: boolean;
   metadata?: Metadata;
 }
@@ -84,12 +85,20 @@ function applyMetadata(target: Metadata, changes: Metadata): void {
   }
 }
 
+function declined(): FakeStripeError {
+  return new FakeStripeError(402, {
+    type: 'card_error',
+    code: 'card_declined',
+    decline_code: 'generic_decline',
+    message: 'Your card was declined.',
+  });
+}
+
 /** Seat-count change (prorated), cancel at period end or its undo, and metadata. */
 export function changeSubscription(ctx: FakeContext, subscription: Subscription, change: SubscriptionChange): void {
   if (subscription.status === 'canceled') {
     throw invalidState('A canceled subscription can only update its cancellation_details and metadata.');
   }
-  const before = structuredClone(subscription);
   const item = subscription.items.data[0];
   const itemChange = change.items?.[0];
   if (change.items && change.items.length > 1) {
@@ -98,10 +107,19 @@ export function changeSubscription(ctx: FakeContext, subscription: Subscription,
   if (itemChange?.id && itemChange.id !== item.id) throw noSuch('subscription item', itemChange.id, 'items[0][id]');
   const now = ctx.clock.now();
   const oldQuantity = item.quantity;
-  if (itemChange?.quantity !== undefined) {
-    item.quantity = itemChange.quantity;
-    subscription.quantity = itemChange.quantity;
+  const newQuantity = itemChange?.quantity ?? oldQuantity;
+  const behavior = change.proration_behavior ?? 'create_prorations';
+  const prorations =
+    newQuantity === oldQuantity || behavior === 'none' ? [] : quantityProrationLines(subscription, oldQuantity, newQuantity, now);
+  const invoiceNow = behavior === 'always_invoice' && prorations.length > 0;
+  if (invoiceNow && change.payment_behavior === 'error_if_incomplete') {
+    const total = prorations.reduce((sum, line) => sum + line.amount, 0);
+    const due = amountDueAfterCredit(ctx, subscription.customer, total);
+    if (due > 0 && savedCardChargeFails(ctx, subscription.customer)) throw declined();
   }
+
+  const before = structuredClone(subscription);
+  item.quantity = newQuantity;
   if (change.cancel_at_period_end !== undefined) {
     const cancelling = change.cancel_at_period_end;
     subscription.cancel_at_period_end = cancelling;
@@ -113,19 +131,18 @@ export function changeSubscription(ctx: FakeContext, subscription: Subscription,
   const previous = previousAttributes(before, subscription);
   if (Object.keys(previous).length > 0) emitEvent(ctx, 'customer.subscription.updated', subscription, previous);
 
-  const behavior = change.proration_behavior ?? 'create_prorations';
-  if (item.quantity === oldQuantity || behavior === 'none') return;
-  const lines = quantityProrationLines(subscription, oldQuantity, item.quantity, now);
-  if (behavior === 'create_prorations') {
+  if (prorations.length === 0) return;
+  if (!invoiceNow) {
     const pending = ctx.state.pendingProrations.get(subscription.id) ?? [];
-    ctx.state.pendingProrations.set(subscription.id, [...pending, ...lines]);
+    ctx.state.pendingProrations.set(subscription.id, [...pending, ...prorations]);
     return;
   }
-  const invoice = createInvoice(ctx, subscription, 'subscription_update', lines, {
+  const invoice = createInvoice(ctx, subscription, 'subscription_update', prorations, {
     start: now,
     end: subscription.current_period_end,
   });
-  collectInvoice(ctx, invoice);
+  // The card was already charged above when the caller asked for error_if_incomplete.
+  collectInvoice(ctx, invoice, change.payment_behavior === 'error_if_incomplete');
 }
 
 /** Ends the subscription at `at` (now, or the end of the period for a scheduled cancellation). */

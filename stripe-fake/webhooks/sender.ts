@@ -35,6 +35,11 @@ export interface WebhookSender {
   reset(): void;
 }
 
+/** Exponential back-off: the base delay after the first failed attempt, doubling after each further one. */
+export function retryDelayMs(baseMs: number, failedAttempt: number): number {
+  return baseMs * 2 ** (failedAttempt - 1);
+}
+
 export function createWebhookSender(options: WebhookSenderOptions): WebhookSender {
   let targetUrl = options.url;
   let log: DeliveryAttempt[] = [];
@@ -85,8 +90,7 @@ export function createWebhookSender(options: WebhookSenderOptions): WebhookSende
       return settle();
     }
     if (number >= options.maxAttempts) return settle();
-    const delay = options.retryBaseMs * 2 ** (number - 1);
-    setTimeout(() => void attempt(event, number + 1, runGeneration), delay).unref();
+    setTimeout(() => void attempt(event, number + 1, runGeneration), retryDelayMs(options.retryBaseMs, number)).unref();
   }
 
   return {
