@@ -190,4 +190,15 @@ describe('hosted checkout page', () => {
     expect(await response.text()).toContain('Enter the card expiry as MM / YY, in the future.');
     expect((await harness.stripe.checkout.sessions.retrieve(session.id)).status).toBe('open');
   });
+
+  it('closes a session 24 hours after it opened', async () => {
+    const { fake, stripe } = harness;
+    const session = await openSession('buyer@glacier-lab.example');
+    fake.controls.advanceClock(24 * 3600);
+    expect(await stripe.checkout.sessions.retrieve(session.id)).toMatchObject({ status: 'expired', url: null });
+    expect((await fetch(session.url!)).status).toBe(410);
+    expect(() => fake.controls.completeCheckout(session.id, { cardNumber: SUCCESS_CARD })).toThrow(
+      'This checkout session is expired and can no longer be paid.',
+    );
+  });
 });

@@ -4,7 +4,7 @@ import type { FakeContext } from '../context';
 import { present } from '../expand';
 import { listParams, toList } from '../listing';
 import { expandParam, formInteger, metadataParam, parseParams } from '../params';
-import { createSession } from '../services/checkout';
+import { createSession, currentSession } from '../services/checkout';
 import type { CheckoutSession } from '../types';
 
 const createParams = z.strictObject({
@@ -70,7 +70,7 @@ export function checkoutSessionRoutes(ctx: FakeContext): Router {
 
   router.get('/checkout/sessions/:id', (req, res) => {
     const { expand } = parseParams(retrieveParams, req.query);
-    const session = ctx.state.sessions.find(req.params.id);
+    const session = currentSession(ctx, req.params.id);
     res.json(present(ctx.state, withLineItems(session, expand), withoutLineItems(expand)));
   });
 

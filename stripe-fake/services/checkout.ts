@@ -66,10 +66,18 @@ export function createSession(ctx: FakeContext, request: SessionRequest): Checko
   });
 }
 
-/** The session, if it can still be paid; marks it expired once its time is up. */
-export function openSession(ctx: FakeContext, sessionId: string): CheckoutSession {
+/** The session, marked expired once its time on the billing clock is up. */
+export function currentSession(ctx: FakeContext, sessionId: string): CheckoutSession {
   const session = ctx.state.sessions.find(sessionId);
-  if (session.status === 'open' && session.expires_at <= ctx.clock.now()) session.status = 'expired';
+  if (session.status === 'open' && session.expires_at <= ctx.clock.now()) {
+    Object.assign(session, { status: 'expired', url: null } satisfies Partial<CheckoutSession>);
+  }
+  return session;
+}
+
+/** The session, if it can still be paid. */
+export function openSession(ctx: FakeContext, sessionId: string): CheckoutSession {
+  const session = currentSession(ctx, sessionId);
   if (session.status !== 'open') {
     throw invalidState(`This checkout session is ${session.status} and can no longer be paid.`);
   }
