@@ -99,7 +99,13 @@ export function createWebhookSender(options: WebhookSenderOptions): WebhookSende
       inFlight += 1;
       event.pending_webhooks = 1;
       const runGeneration = generation;
-      firstAttempts = firstAttempts.then(() => attempt(event, 1, runGeneration));
+      firstAttempts = firstAttempts
+        .then(() => attempt(event, 1, runGeneration))
+        .catch((error: unknown) => {
+          // Keep the queue moving for later events; this one is given up.
+          console.error('[stripe-fake] webhook delivery failed', error);
+          settle();
+        });
     },
     attempts: () => [...log],
     url: () => targetUrl,
