@@ -50,6 +50,8 @@ describe('customers', () => {
     expect(updated.metadata).toEqual({ tier: 'x' });
     const fetched = await stripe.customers.retrieve(created.id);
     expect(fetched).toMatchObject({ id: created.id, email: 'a@b.example', name: 'New name' });
+    const cleared = await stripe.customers.update(created.id, { metadata: '' });
+    expect(cleared.metadata).toEqual({});
   });
 });
 

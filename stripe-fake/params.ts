@@ -4,7 +4,8 @@ import { invalidParam, missingParam, unknownParam } from './errors';
 /** Form bodies carry every value as text; these accept both text and JSON-typed values. */
 export const formBoolean = z.union([z.boolean(), z.enum(['true', 'false']).transform((v) => v === 'true')]);
 export const formInteger = z.coerce.number().int();
-export const metadataParam = z.record(z.string(), z.string()).or(z.literal('').transform(() => ({})));
+/** `metadata[key]=value` pairs; a bare `metadata=` (null) means remove every key. */
+export const metadataParam = z.record(z.string(), z.string()).or(z.literal('').transform(() => null));
 export const expandParam = z.array(z.string()).optional();
 
 /** `line_items[0][price]` — the bracketed name the SDK sent, used in error messages. */

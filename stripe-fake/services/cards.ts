@@ -29,7 +29,7 @@ function passesLuhn(digits: string): boolean {
   return sum % 10 === 0;
 }
 
-function cardError(code: string, message: string, declineCode?: string): FakeStripeError {
+export function cardError(code: string, message: string, declineCode?: string): FakeStripeError {
   return new FakeStripeError(402, {
     type: 'card_error',
     code,

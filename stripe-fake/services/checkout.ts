@@ -18,8 +18,8 @@ export interface SessionRequest {
   success_url: string;
   cancel_url?: string;
   client_reference_id?: string;
-  metadata?: Metadata;
-  subscription_data?: { metadata?: Metadata };
+  metadata?: Metadata | null;
+  subscription_data?: { metadata?: Metadata | null };
 }
 
 export function createSession(ctx: FakeContext, request: SessionRequest): CheckoutSession {

@@ -1,5 +1,6 @@
 import type { FakeContext } from '../context';
 import { newId, newInvoicePrefix } from '../ids';
+import { applyMetadataChanges } from '../metadata';
 import type { Customer, Metadata } from '../types';
 
 export interface CustomerFields {
@@ -7,7 +8,7 @@ export interface CustomerFields {
   name?: string;
   description?: string;
   phone?: string;
-  metadata?: Metadata;
+  metadata?: Metadata | null;
 }
 
 export function createCustomer(ctx: FakeContext, fields: CustomerFields): Customer {
@@ -29,15 +30,12 @@ export function createCustomer(ctx: FakeContext, fields: CustomerFields): Custom
   });
 }
 
-/** Changes the given fields; in `metadata` an empty value removes the key, as in the service. */
+/** Changes the given fields; an empty text clears a field, as in the service. */
 export function updateCustomer(customer: Customer, fields: CustomerFields): Customer {
   const { metadata, ...scalars } = fields;
   for (const [key, value] of Object.entries(scalars)) {
     (customer as unknown as Record<string, unknown>)[key] = value === '' ? null : value;
   }
-  for (const [key, value] of Object.entries(metadata ?? {})) {
-    if (value === '') delete customer.metadata[key];
-    else customer.metadata[key] = value;
-  }
+  if (metadata !== undefined) applyMetadataChanges(customer.metadata, metadata);
   return customer;
 }

@@ -1,8 +1,10 @@
 import { addInterval } from '../clock';
 import type { FakeContext } from '../context';
-import { FakeStripeError, invalidParam, invalidState, noSuch } from '../errors';
+import { invalidParam, invalidState, noSuch } from '../errors';
 import { newId } from '../ids';
+import { applyMetadataChanges } from '../metadata';
 import type { Metadata, Price, Subscription } from '../types';
+import { cardError } from './cards';
 import { emitEvent, previousAttributes } from './events';
 import { amountDueAfterCredit, collectInvoice, createInvoice, savedCardChargeFails, seatLine } from './invoicing';
 import { quantityProrationLines } from './prorations';
@@ -74,24 +76,7 @@ export interface SubscriptionChange {
   /** `error_if_incomplete`: a failed charge for the change answers 402 and changes nothing. */
   payment_behavior?: 'allow_incomplete' | 'error_if_incomplete';
   cancel_at_period_end?: boolean;
-  metadata?: Metadata;
-}
-
-function applyMetadata(target: Metadata, changes: Metadata): void {
-  // An empty value removes the key, as in the service.
-  for (const [key, value] of Object.entries(changes)) {
-    if (value === '') delete target[key];
-    else target[key] = value;
-  }
-}
-
-function declined(): FakeStripeError {
-  return new FakeStripeError(402, {
-    type: 'card_error',
-    code: 'card_declined',
-    decline_code: 'generic_decline',
-    message: 'Your card was declined.',
-  });
+  metadata?: Metadata | null;
 }
 
 /** Seat-count change (prorated), cancel at period end or its undo, and metadata. */
@@ -115,7 +100,7 @@ export function changeSubscription(ctx: FakeContext, subscription: Subscription,
   if (invoiceNow && change.payment_behavior === 'error_if_incomplete') {
     const total = prorations.reduce((sum, line) => sum + line.amount, 0);
     const due = amountDueAfterCredit(ctx, subscription.customer, total);
-    if (due > 0 && savedCardChargeFails(ctx, subscription.customer)) throw declined();
+    if (due > 0 && savedCardChargeFails(ctx, subscription.customer)) throw cardError('card_declined', 'Your card was declined.', 'generic_decline');
   }
 
   const before = structuredClone(subscription);
@@ -127,7 +112,7 @@ export function changeSubscription(ctx: FakeContext, subscription: Subscription,
     subscription.canceled_at = cancelling ? now : null;
     subscription.cancellation_details.reason = cancelling ? 'cancellation_requested' : null;
   }
-  if (change.metadata) applyMetadata(subscription.metadata, change.metadata);
+  if (change.metadata !== undefined) applyMetadataChanges(subscription.metadata, change.metadata);
   const previous = previousAttributes(before, subscription);
   if (Object.keys(previous).length > 0) emitEvent(ctx, 'customer.subscription.updated', subscription, previous);
 
