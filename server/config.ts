@@ -21,6 +21,22 @@ const envSchema = z.object({
   SIGNIN_MAX_FAILURES_PER_ACCOUNT: z.coerce.number().int().positive().default(5),
   SIGNIN_MAX_FAILURES_PER_IP: z.coerce.number().int().positive().default(30),
   SIGNIN_WINDOW_MINUTES: z.coerce.number().positive().default(15),
+  // The payment service, reached only through its SDK; locally the fake in stripe-fake/.
+  STRIPE_API_HOST: z.string().min(1).default('127.0.0.1'),
+  STRIPE_API_PORT: z.coerce.number().int().min(1).max(65535).default(12111),
+  STRIPE_API_PROTOCOL: z.enum(['http', 'https']).default('http'),
+  STRIPE_SECRET_KEY: z.string().startsWith('sk_').default('sk_test_local_tarnish'),
+  STRIPE_WEBHOOK_SECRET: z.string().startsWith('whsec_').default('whsec_local_tarnish'),
+  STRIPE_PRICE_MONTHLY: z.string().min(1).default('seat_monthly'),
+  STRIPE_PRICE_YEARLY: z.string().min(1).default('seat_yearly'),
+  // Outgoing mail; locally the catcher started by scripts/serve-local.ts.
+  SMTP_HOST: z.string().min(1).default('127.0.0.1'),
+  SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(2525),
+  SMTP_SECURE: z.enum(['true', 'false']).default('false').transform((v) => v === 'true'),
+  SMTP_USER: z.string().optional(),
+  SMTP_PASSWORD: z.string().optional(),
+  MAIL_FROM: z.string().min(3).default('Tarnish <no-reply@tarnish.localhost>'),
+  MAILS_PER_ADDRESS_PER_HOUR: z.coerce.number().int().positive().default(5),
 });
 
 export type Env = z.infer<typeof envSchema>;
@@ -37,6 +53,23 @@ export interface AppConfig {
     cookieSecure: boolean;
     signInLimits: { perAccount: number; perIp: number; windowMs: number };
   };
+  billing: {
+    host: string;
+    port: number;
+    protocol: 'http' | 'https';
+    secretKey: string;
+    webhookSecret: string;
+    /** Price lookup keys of the seat plans offered. */
+    prices: { monthly: string; yearly: string };
+  };
+  mail: {
+    host: string;
+    port: number;
+    secure: boolean;
+    auth?: { user: string; pass: string };
+    from: string;
+    perAddressPerHour: number;
+  };
 }
 
 /** Parses an environment map into the typed config; throws one readable message listing every bad variable. */
@@ -49,6 +82,9 @@ export function parseConfig(env: Record<string, string | undefined>): AppConfig 
   const e = parsed.data;
   if (e.NODE_ENV === 'production' && e.JWT_SECRET.startsWith('local-only')) {
     throw new Error('Invalid server configuration:\n  JWT_SECRET: must be set in production');
+  }
+  if (e.NODE_ENV === 'production' && (e.STRIPE_SECRET_KEY.includes('local') || e.STRIPE_WEBHOOK_SECRET.includes('local'))) {
+    throw new Error('Invalid server configuration:\n  STRIPE_SECRET_KEY, STRIPE_WEBHOOK_SECRET: must be set in production');
   }
   return {
     env: e.NODE_ENV,
@@ -65,6 +101,22 @@ export function parseConfig(env: Record<string, string | undefined>): AppConfig 
         perIp: e.SIGNIN_MAX_FAILURES_PER_IP,
         windowMs: e.SIGNIN_WINDOW_MINUTES * 60_000,
       },
+    },
+    billing: {
+      host: e.STRIPE_API_HOST,
+      port: e.STRIPE_API_PORT,
+      protocol: e.STRIPE_API_PROTOCOL,
+      secretKey: e.STRIPE_SECRET_KEY,
+      webhookSecret: e.STRIPE_WEBHOOK_SECRET,
+      prices: { monthly: e.STRIPE_PRICE_MONTHLY, yearly: e.STRIPE_PRICE_YEARLY },
+    },
+    mail: {
+      host: e.SMTP_HOST,
+      port: e.SMTP_PORT,
+      secure: e.SMTP_SECURE,
+      auth: e.SMTP_USER ? { user: e.SMTP_USER, pass: e.SMTP_PASSWORD ?? '' } : undefined,
+      from: e.MAIL_FROM,
+      perAddressPerHour: e.MAILS_PER_ADDRESS_PER_HOUR,
     },
   };
 }
