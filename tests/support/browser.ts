@@ -1,3 +1,4 @@
+/// <reference lib="dom" />
 import type { AddressInfo } from 'node:net';
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
