@@ -1,0 +1,27 @@
+import type { Scenario } from '../melt/schema';
+import type { ParameterOverrides, ScenarioChanges } from '../schemas/scenarios';
+
+/** The part of an engine input a scenario decides; the catchment and forcing come from stored data. */
+export interface ScenarioEngineInput {
+  scenario: Scenario;
+  parameters: ParameterOverrides;
+  period?: { from: string; to: string };
+}
+
+/** Maps stored scenario changes onto the engine's scenario, parameters and period. */
+export function engineInputOf(changes: ScenarioChanges, parameters: ParameterOverrides = changes.parameters): ScenarioEngineInput {
+  return {
+    scenario: {
+      temperatureDeltaC: changes.temperatureDeltaC,
+      precipitationFactor: changes.precipitationFactor,
+      blackCarbonSnowNgG: changes.blackCarbonSnowNgG,
+      blackCarbonIceNgG: changes.blackCarbonIceNgG,
+      dustSnowUgG: changes.dustSnowUgG,
+      dustIceUgG: changes.dustIceUgG,
+      debrisThicknessChangeM: changes.debrisThicknessChangeM,
+      debrisExtentChange: changes.debrisExtentChange,
+    },
+    parameters,
+    ...(changes.period ? { period: changes.period } : {}),
+  };
+}

@@ -1,0 +1,73 @@
+import { addDays } from '../melt/calendar';
+import { summariseByMonth } from '../melt/monthly';
+import { SOURCES, type SimulationResult, type Source } from '../melt/result';
+
+/** One band in one calendar month of one simulation: what a run stores (depths mm w.e. over the band). */
+export interface BandMonthRow {
+  bandIndex: number;
+  /** YYYY-MM */
+  month: string;
+  days: number;
+  snowMeltMm: number;
+  iceMeltMm: number;
+  debrisIceMeltMm: number;
+  rainMm: number;
+  snowfallMm: number;
+  /** Shortwave-weighted mean albedo of snow and ice; null without sunlit snow or ice. */
+  meanAlbedo: number | null;
+  /** Daily means, W m⁻² (see SimulationResult.bandDay). */
+  absorbedShortwaveWm2: number;
+  netShortwaveWm2: number;
+  netLongwaveWm2: number;
+  sensibleHeatWm2: number;
+}
+
+/** The stored form of one simulation: bands, band × month rows and catchment daily volumes (m³) by source. */
+export interface SimulationSummary {
+  startDate: string;
+  dayCount: number;
+  bands: { elevationM: number; areaM2: number }[];
+  months: BandMonthRow[];
+  dailyM3: Record<Source, number[]>;
+}
+
+const ENERGY_FIELDS = ['netShortwaveWm2', 'netLongwaveWm2', 'sensibleHeatWm2'] as const;
+
+/** Reduces an engine result to what a run stores. */
+export function summariseSimulation(result: SimulationResult): SimulationSummary {
+  const { dayCount: nd, bandDay, startDate } = result;
+  const monthOf = Array.from({ length: nd }, (_, d) => addDays(startDate, d).slice(0, 7));
+  const months = summariseByMonth(result).map((row): BandMonthRow => {
+    // Energy components are not in the monthly summary: mean them over the same days.
+    const energy = { netShortwaveWm2: 0, netLongwaveWm2: 0, sensibleHeatWm2: 0 };
+    for (let d = 0; d < nd; d++) {
+      if (monthOf[d] !== row.month) continue;
+      for (const field of ENERGY_FIELDS) energy[field] += bandDay[field][row.bandIndex * nd + d] / row.days;
+    }
+    return {
+      bandIndex: row.bandIndex, month: row.month, days: row.days,
+      snowMeltMm: row.snowMeltMm, iceMeltMm: row.iceMeltMm, debrisIceMeltMm: row.debrisIceMeltMm,
+      rainMm: row.rainMm, snowfallMm: row.snowfallMm, meanAlbedo: row.meanAlbedo,
+      absorbedShortwaveWm2: row.meanAbsorbedShortwaveWm2, ...energy,
+    };
+  });
+  return {
+    startDate,
+    dayCount: nd,
+    bands: Array.from(result.bands.areaM2, (areaM2, b) => ({ elevationM: result.bands.elevationM[b], areaM2 })),
+    months,
+    dailyM3: Object.fromEntries(SOURCES.map((s) => [s, Array.from(result.catchmentDaily.volumeM3[s])])) as Record<Source, number[]>,
+  };
+}
+
+/** Daily total runoff volume (m³): all melt plus rain. */
+export function dailyRunoffM3(summary: SimulationSummary): number[] {
+  const { snow, ice, debrisIce, rain } = summary.dailyM3;
+  return snow.map((v, d) => v + ice[d] + debrisIce[d] + rain[d]);
+}
+
+/** Daily melt volume (m³): snow, clean ice and debris-covered ice, without rain. */
+export function dailyMeltM3(summary: SimulationSummary): number[] {
+  const { snow, ice, debrisIce } = summary.dailyM3;
+  return snow.map((v, d) => v + ice[d] + debrisIce[d]);
+}

@@ -1,0 +1,92 @@
+import { z } from 'zod';
+import { PARAMETER_NAMES, PARAMETER_SPECS, type ParameterName } from '../melt/parameters';
+import { isIsoDate } from '../melt/calendar';
+
+/** Version of the stored scenario-changes JSON; bump it (and migrate old rows) when its shape changes. */
+export const SCENARIO_SCHEMA_VERSION = 1;
+
+const number = (what: string, min: number, max: number, unit: string) =>
+  z.number({ message: `must be a number (${what})` })
+    .min(min, `must be at least ${min} ${unit}`.trim())
+    .max(max, `must be at most ${max} ${unit}`.trim());
+
+/** One value for every month, or twelve monthly values starting with January. */
+const monthly = (what: string, min: number, max: number, unit: string) =>
+  z.union([
+    number(what, min, max, unit),
+    z.array(number(what, min, max, unit), { message: `must be one number or 12 monthly numbers (${what})` })
+      .length(12, 'must hold 12 monthly values, January first'),
+  ], { message: `must be one number or 12 monthly numbers (${what})` });
+export type MonthlyValue = number | number[];
+
+const isoDate = z.string().refine(isIsoDate, { message: 'must be a real date written YYYY-MM-DD' });
+
+export const periodSchema = z.object({ from: isoDate, to: isoDate })
+  .refine((p) => p.from <= p.to, { path: ['to'], message: 'must not be before the start of the period' });
+
+/** Model parameters a scenario overrides; each within the engine's published range. */
+export const parameterOverridesSchema = z.object(
+  Object.fromEntries(PARAMETER_NAMES.map((name) => {
+    const { min, max, unit } = PARAMETER_SPECS[name];
+    return [name, number(name, min, max, unit === '-' ? '' : unit).optional()];
+  })) as Record<ParameterName, z.ZodOptional<z.ZodNumber>>,
+).strict();
+export type ParameterOverrides = z.infer<typeof parameterOverridesSchema>;
+
+export const WARMING_LEVELS = ['1.5', '2', '3', '4'] as const;
+
+/**
+ * The changes a scenario applies to the station record, stored as JSON with its schema version.
+ * Maps onto the engine's scenario, parameters and period (see shared/analysis/engine-input.ts).
+ */
+export const scenarioChangesSchema = z.object({
+  schemaVersion: z.literal(SCENARIO_SCHEMA_VERSION).default(SCENARIO_SCHEMA_VERSION),
+  /** Simulated dates; null runs the whole climate record. */
+  period: periodSchema.nullable().default(null),
+  temperatureDeltaC: monthly('temperature change', -15, 15, '°C').default(0),
+  /** The global warming level preset the temperature change started from, if any. */
+  warmingLevel: z.enum(WARMING_LEVELS).nullable().default(null),
+  precipitationFactor: monthly('precipitation factor', 0, 5, '').default(1),
+  blackCarbonSnowNgG: monthly('black carbon in snow', 0, 50_000, 'ng/g').default(0),
+  blackCarbonIceNgG: monthly('black carbon on ice', 0, 50_000, 'ng/g').default(0),
+  dustSnowUgG: monthly('dust in snow', 0, 5_000, 'µg/g').default(0),
+  dustIceUgG: monthly('dust on ice', 0, 5_000, 'µg/g').default(0),
+  debrisThicknessChangeM: number('debris thickness change', -10, 10, 'm').default(0),
+  debrisExtentChange: number('debris extent change', 0, 1, '(fraction of clean glacier area)').default(0),
+  parameters: parameterOverridesSchema.default({}),
+}).strict();
+export type ScenarioChanges = z.output<typeof scenarioChangesSchema>;
+export type ScenarioChangesInput = z.input<typeof scenarioChangesSchema>;
+
+const name = z.string().trim().min(1, 'is required').max(120, 'must be at most 120 characters');
+
+export const scenarioCreateSchema = z.object({
+  name,
+  description: z.string().trim().max(2000, 'must be at most 2000 characters').default(''),
+  changes: scenarioChangesSchema,
+});
+export type ScenarioCreate = z.input<typeof scenarioCreateSchema>;
+
+export const scenarioUpdateSchema = z.object({
+  name: name.optional(),
+  description: z.string().trim().max(2000, 'must be at most 2000 characters').optional(),
+  changes: scenarioChangesSchema.optional(),
+  archived: z.boolean().optional(),
+}).strict();
+export type ScenarioUpdate = z.input<typeof scenarioUpdateSchema>;
+
+export const scenarioSchema = z.object({
+  id: z.number().int(),
+  catchmentId: z.number().int(),
+  name: z.string(),
+  description: z.string(),
+  isBaseline: z.boolean(),
+  archived: z.boolean(),
+  changes: scenarioChangesSchema,
+  createdAt: z.string(),
+  updatedAt: z.string(),
+});
+export type ScenarioRecord = z.infer<typeof scenarioSchema>;
+
+export const scenarioListSchema = z.object({ scenarios: z.array(scenarioSchema) });
+export const scenarioReplySchema = z.object({ scenario: scenarioSchema });
