@@ -19,7 +19,7 @@ export type ProgressCallback = (progress: Progress) => void;
 const MODEL_CODE: Record<MeltModel, number> = { 'energy-balance': 0, 'degree-day': 1, 'enhanced-temperature-index': 2 };
 
 /**
- * The hour loop: every simulated hour, every band. All arrays are allocated before the loop;
+ * The simulation loop: every simulated day, every band, every hour. All arrays are allocated before the loop;
  * inside it there is no allocation and the only transcendental call per band is the beam
  * transmission exp(ln ψ / cos Z · P/P0) in daylight (Hock 1999). Albedo and air emissivity come
  * from tables; the sun comes from the per-hour track.
@@ -42,108 +42,121 @@ export function runHours(run: PreparedRun, sun: SunTrack, model: MeltModel, resu
   const swe = Float64Array.from(run.initialSweMm);
   const grain = new Float64Array(nb).fill(p.freshGrainRadiusUm);
   const coldContent = new Float64Array(nb);
-  const acc = Array.from({ length: 11 }, () => new Float64Array(nb));
-  const [snowMelt, iceMelt, debrisMelt, rain, snowfall, coverHours, swIn, swAbs, lwNet, sensible, albedoSum] = acc;
   const debrisFactor = Float64Array.from(debrisThicknessM, (h) => p.debrisHalfThicknessM / (p.debrisHalfThicknessM + h));
 
   const diffuseRatio = p.diffuseFraction / (1 - p.diffuseFraction);
+  const terrainAlbedo = p.terrainAlbedo;
   const snowTop = p.rainSnowThresholdC + p.rainSnowTransitionK / 2;
   const snowWidth = p.rainSnowTransitionK;
+  const freshGrain = p.freshGrainRadiusUm;
+  const surfaceLayer = p.snowSurfaceLayerMm;
   const maxGrain = p.maxGrainRadiusUm;
   const grainScale = 1e9 / (4 * Math.PI) / 24; // µm per hour from mm³ per day: dr = dV/(4πr²)
   const wetGrowth = p.wetGrainGrowthMm3PerDay * grainScale;
   const dryGrowth = p.dryGrainGrowthMm3PerDay * grainScale;
-  const debrisEmission = p.debrisEmissivity * STEFAN_BOLTZMANN;
+  const iceLayer = p.iceSurfaceLayerMm;
+  const debrisAlbedo = p.debrisAlbedo;
+  const debrisEmissivity = p.debrisEmissivity;
+  const debrisEmission = debrisEmissivity * STEFAN_BOLTZMANN;
   const ddfSnowHour = p.degreeDaySnow / 24;
   const ddfIceHour = p.degreeDayIce / 24;
+  const etiThreshold = p.etiThresholdC;
+  const etiTemperature = p.etiTemperatureFactor;
+  const etiShortwave = p.etiShortwaveFactor;
 
   for (let d = 0; d < nd; d++) {
     const month = timeline.months[d];
-    const snowTable = tables.snow[month];
+    const snowClean = tables.snow[month].clean;
+    const snowImpurity = tables.snow[month].impurity;
     const iceAlbedo = tables.iceAlbedo[month];
     const topNormal = extraterrestrialNormal(timeline.daysOfYear[d]);
-    for (let a = 0; a < acc.length; a++) acc[a].fill(0);
+    const firstHour = d * 24;
 
-    for (let k = 0; k < 24; k++) {
-      const h = d * 24 + k;
-      const ta = temperatureC[h];
-      const precip = precipitationMm[h];
-      const cosZ = cosZenith[h];
-      const sx = sinZenithCosAzimuth[h];
-      const sy = sinZenithSinAzimuth[h];
-      const exponent = beamExponent[h];
-      const sunFactor = albedoSunFactor[h];
-      const cloud = cloudFactor[h];
-      const clearScale = clearSkyEmissivityScale[h];
-      const overcast = overcastEmissivity[h];
-      const windScale = sensibleScale[h];
+    // Bands do not exchange mass or energy, so each band runs through the day's 24 hours in turn;
+    // everything shared by the bands for an hour was computed once, before this loop, by hour.
+    for (let b = 0; b < nb; b++) {
+      const tOffset = temperatureOffsetC[b];
+      const pFactor = precipitationFactor[b];
+      const pressure = pressurePa[b];
+      const pRatio = pressureRatio[b];
+      const cb = cosSlope[b];
+      const sca = sinSlopeCosAspect[b];
+      const ssa = sinSlopeSinAspect[b];
+      const sky = skyView[b];
+      const ground = groundView[b];
+      const cleanShare = cleanIceShare[b];
+      const debrisPart = debrisShare[b];
+      const conductance = debrisConductance[b];
+      const debrisReduction = debrisFactor[b];
+      let bandSwe = swe[b];
+      let r = grain[b];
+      let snowMelt = 0, iceMelt = 0, debrisMelt = 0, rain = 0, snowfall = 0;
+      let cover = 0, swIn = 0, swAbs = 0, lwNet = 0, sensible = 0, albedoSum = 0;
 
-      for (let b = 0; b < nb; b++) {
-        const tb = ta + temperatureOffsetC[b];
-        const pb = precip * precipitationFactor[b];
+      for (let h = firstHour; h < firstHour + 24; h++) {
+        const tb = temperatureC[h] + tOffset;
+        const pb = precipitationMm[h] * pFactor;
         if (pb > 0) {
           const share = snowWidth > 0 ? (snowTop - tb) / snowWidth : tb < snowTop ? 1 : 0;
           const snow = pb * (share < 0 ? 0 : share > 1 ? 1 : share);
           if (snow > 0) {
-            grain[b] = swe[b] > 0 ? (grain[b] * p.snowSurfaceLayerMm + p.freshGrainRadiusUm * snow) / (p.snowSurfaceLayerMm + snow) : p.freshGrainRadiusUm;
-            swe[b] += snow;
-            snowfall[b] += snow;
+            r = bandSwe > 0 ? (r * surfaceLayer + freshGrain * snow) / (surfaceLayer + snow) : freshGrain;
+            bandSwe += snow;
+            snowfall += snow;
           }
-          rain[b] += pb - snow;
+          rain += pb - snow;
         }
 
+        const cosZ = cosZenith[h];
         let global = 0;
         if (cosZ > 0) {
-          const beam = topNormal * Math.exp(exponent * pressureRatio[b]);
+          const beam = topNormal * Math.exp(beamExponent[h] * pRatio);
           const beamHorizontal = beam * cosZ;
-          const cosI = cosSlope[b] * cosZ + sinSlopeCosAspect[b] * sx + sinSlopeSinAspect[b] * sy;
+          const cosI = cb * cosZ + sca * sinZenithCosAzimuth[h] + ssa * sinZenithSinAzimuth[h];
           const diffuse = beamHorizontal * diffuseRatio;
-          global = ((cosI > 0 ? beam * cosI : 0) + diffuse * skyView[b] + p.terrainAlbedo * (beamHorizontal + diffuse) * groundView[b]) * cloud;
+          global = ((cosI > 0 ? beam * cosI : 0) + diffuse * sky + terrainAlbedo * (beamHorizontal + diffuse) * ground) * cloudFactor[h];
         }
         const tk = tb + ZERO_CELSIUS_K;
         const tk2 = tk * tk;
-        const longIn = (readEmissivity(emissivity, tb) * clearScale + overcast) * STEFAN_BOLTZMANN * tk2 * tk2;
-        const sensibleCoef = (pressurePa[b] / tk) * windScale;
+        const longIn = (readEmissivity(emissivity, tb) * clearSkyEmissivityScale[h] + overcastEmissivity[h]) * STEFAN_BOLTZMANN * tk2 * tk2;
+        const sensibleCoef = (pressure / tk) * sensibleScale[h];
 
-        const sweStart = swe[b];
         let exposure = 1;
-        if (sweStart > 0) {
-          const pos = tablePosition(grain[b]);
-          const clean = readTable(snowTable.clean, pos);
-          const alb = clean + 0.53 * clean * (1 - clean) * sunFactor + readTable(snowTable.impurity, pos);
+        if (bandSwe > 0) {
+          const pos = tablePosition(r);
+          const clean = readTable(snowClean, pos);
+          const alb = clean + 0.53 * clean * (1 - clean) * albedoSunFactor[h] + readTable(snowImpurity, pos);
           const absorbed = global * (1 - alb);
           let melt: number;
           if (modelCode === 0) {
             const lw = longIn - MELTING_SURFACE_LONGWAVE_WM2;
             const qh = sensibleCoef * tb;
-            melt = spendSurplus(absorbed + lw + qh, coldContent, b, sweStart, tb) * MM_PER_JOULE;
-            lwNet[b] += lw;
-            sensible[b] += qh;
+            melt = spendSurplus(absorbed + lw + qh, coldContent, b, bandSwe, tb) * MM_PER_JOULE;
+            lwNet += lw;
+            sensible += qh;
           } else if (modelCode === 1) {
             melt = tb > 0 ? ddfSnowHour * tb : 0;
           } else {
-            melt = tb > p.etiThresholdC ? p.etiTemperatureFactor * tb + p.etiShortwaveFactor * absorbed : 0;
+            melt = tb > etiThreshold ? etiTemperature * tb + etiShortwave * absorbed : 0;
           }
-          if (melt >= sweStart) {
-            snowMelt[b] += sweStart;
-            exposure = (melt - sweStart) / melt;
-            swe[b] = 0;
+          if (melt >= bandSwe) {
+            snowMelt += bandSwe;
+            exposure = (melt - bandSwe) / melt;
+            bandSwe = 0;
           } else {
-            snowMelt[b] += melt;
-            swe[b] = sweStart - melt;
+            snowMelt += melt;
+            bandSwe -= melt;
             exposure = 0;
-            const r = grain[b];
             const grown = r + (tb > 0 || melt > 0 ? wetGrowth : dryGrowth) / (r * r);
-            grain[b] = grown < maxGrain ? grown : maxGrain;
+            r = grown < maxGrain ? grown : maxGrain;
           }
-          coverHours[b] += 1;
-          swIn[b] += global;
-          swAbs[b] += absorbed;
-          albedoSum[b] += alb * global;
+          cover += 1;
+          swIn += global;
+          swAbs += absorbed;
+          albedoSum += alb * global;
         }
         if (exposure <= 0) continue;
 
-        const cleanShare = cleanIceShare[b];
         if (cleanShare > 0) {
           const absorbed = global * (1 - iceAlbedo);
           let melt: number;
@@ -151,75 +164,66 @@ export function runHours(run: PreparedRun, sun: SunTrack, model: MeltModel, resu
             const lw = longIn - MELTING_SURFACE_LONGWAVE_WM2;
             const qh = sensibleCoef * tb;
             const q = absorbed + lw + qh;
-            melt = (exposure < 1 ? (q > 0 ? q * SECONDS_PER_HOUR * exposure : 0) : spendSurplus(q, coldContent, b, p.iceSurfaceLayerMm, tb)) * MM_PER_JOULE;
-            if (exposure === 1) { lwNet[b] += cleanShare * lw; sensible[b] += cleanShare * qh; }
+            melt = (exposure < 1 ? (q > 0 ? q * SECONDS_PER_HOUR * exposure : 0) : spendSurplus(q, coldContent, b, iceLayer, tb)) * MM_PER_JOULE;
+            if (exposure === 1) { lwNet += cleanShare * lw; sensible += cleanShare * qh; }
           } else if (modelCode === 1) {
             melt = tb > 0 ? ddfIceHour * tb * exposure : 0;
           } else {
-            melt = tb > p.etiThresholdC ? (p.etiTemperatureFactor * tb + p.etiShortwaveFactor * absorbed) * exposure : 0;
+            melt = tb > etiThreshold ? (etiTemperature * tb + etiShortwave * absorbed) * exposure : 0;
           }
-          iceMelt[b] += cleanShare * melt;
+          iceMelt += cleanShare * melt;
           if (exposure === 1) {
-            coverHours[b] += cleanShare;
-            swIn[b] += cleanShare * global;
-            swAbs[b] += cleanShare * absorbed;
-            albedoSum[b] += cleanShare * iceAlbedo * global;
+            cover += cleanShare;
+            swIn += cleanShare * global;
+            swAbs += cleanShare * absorbed;
+            albedoSum += cleanShare * iceAlbedo * global;
           }
         }
-        const debrisPart = debrisShare[b];
         if (debrisPart > 0) {
-          const absorbed = global * (1 - p.debrisAlbedo);
+          const absorbed = global * (1 - debrisAlbedo);
           let melt: number;
           if (modelCode === 0) {
-            const conductance = debrisConductance[b];
-            const ts = debrisSurfaceTemperature(absorbed, longIn, tb, sensibleCoef, conductance, p.debrisEmissivity);
+            const ts = debrisSurfaceTemperature(absorbed, longIn, tb, sensibleCoef, conductance, debrisEmissivity);
             melt = ts > 0 ? conductance * ts * SECONDS_PER_HOUR * MM_PER_JOULE * exposure : 0;
             if (exposure === 1) {
               const tsk = ts + ZERO_CELSIUS_K;
               const tsk2 = tsk * tsk;
-              lwNet[b] += debrisPart * (longIn - debrisEmission * tsk2 * tsk2);
-              sensible[b] += debrisPart * sensibleCoef * (tb - ts);
+              lwNet += debrisPart * (longIn - debrisEmission * tsk2 * tsk2);
+              sensible += debrisPart * sensibleCoef * (tb - ts);
             }
           } else if (modelCode === 1) {
-            melt = tb > 0 ? ddfIceHour * tb * debrisFactor[b] * exposure : 0;
+            melt = tb > 0 ? ddfIceHour * tb * debrisReduction * exposure : 0;
           } else {
-            melt = tb > p.etiThresholdC ? (p.etiTemperatureFactor * tb + p.etiShortwaveFactor * global * (1 - iceAlbedo)) * debrisFactor[b] * exposure : 0;
+            melt = tb > etiThreshold ? (etiTemperature * tb + etiShortwave * global * (1 - iceAlbedo)) * debrisReduction * exposure : 0;
           }
-          debrisMelt[b] += debrisPart * melt;
+          debrisMelt += debrisPart * melt;
           if (exposure === 1) {
-            coverHours[b] += debrisPart;
-            swIn[b] += debrisPart * global;
-            swAbs[b] += debrisPart * absorbed;
-            albedoSum[b] += debrisPart * p.debrisAlbedo * global;
+            cover += debrisPart;
+            swIn += debrisPart * global;
+            swAbs += debrisPart * absorbed;
+            albedoSum += debrisPart * debrisAlbedo * global;
           }
         }
       }
+
+      swe[b] = bandSwe;
+      grain[b] = r;
+      const i = b * nd + d;
+      out.snowMeltMm[i] = snowMelt;
+      out.iceMeltMm[i] = iceMelt;
+      out.debrisIceMeltMm[i] = debrisMelt;
+      out.rainMm[i] = rain;
+      out.snowfallMm[i] = snowfall;
+      out.sweMm[i] = bandSwe;
+      out.incomingShortwaveWm2[i] = cover > 0 ? swIn / cover : 0;
+      out.netShortwaveWm2[i] = cover > 0 ? swAbs / cover : 0;
+      out.absorbedShortwaveWm2[i] = swAbs / 24;
+      out.netLongwaveWm2[i] = cover > 0 ? lwNet / cover : 0;
+      out.sensibleHeatWm2[i] = cover > 0 ? sensible / cover : 0;
+      out.albedo[i] = swIn > 0 ? albedoSum / swIn : 0;
     }
-    writeDay(out, d, nd, nb, acc, swe);
     if (onProgress && (d === nd - 1 || (d + 1 < nd && timeline.months[d + 1] !== month))) {
       onProgress({ day: d + 1, dayCount: nd, fraction: (d + 1) / nd });
     }
-  }
-}
-
-/** Moves one day's accumulators into the band-major output arrays. */
-function writeDay(out: SimulationResult['bandDay'], d: number, nd: number, nb: number, acc: Float64Array[], swe: Float64Array): void {
-  const snowMelt = acc[0], iceMelt = acc[1], debrisMelt = acc[2], rain = acc[3], snowfall = acc[4], coverHours = acc[5];
-  const swIn = acc[6], swAbs = acc[7], lwNet = acc[8], sensible = acc[9], albedoSum = acc[10];
-  for (let b = 0; b < nb; b++) {
-    const i = b * nd + d;
-    const cover = coverHours[b];
-    out.snowMeltMm[i] = snowMelt[b];
-    out.iceMeltMm[i] = iceMelt[b];
-    out.debrisIceMeltMm[i] = debrisMelt[b];
-    out.rainMm[i] = rain[b];
-    out.snowfallMm[i] = snowfall[b];
-    out.sweMm[i] = swe[b];
-    out.incomingShortwaveWm2[i] = cover > 0 ? swIn[b] / cover : 0;
-    out.netShortwaveWm2[i] = cover > 0 ? swAbs[b] / cover : 0;
-    out.absorbedShortwaveWm2[i] = swAbs[b] / 24;
-    out.netLongwaveWm2[i] = cover > 0 ? lwNet[b] / cover : 0;
-    out.sensibleHeatWm2[i] = cover > 0 ? sensible[b] / cover : 0;
-    out.albedo[i] = swIn[b] > 0 ? albedoSum[b] / swIn[b] : 0;
   }
 }

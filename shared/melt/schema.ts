@@ -5,9 +5,26 @@ import { checkForcing } from './forcing-checks';
 
 const isoDate = z.string().refine(isIsoDate, { message: 'must be a real date written YYYY-MM-DD' });
 
-/** A forcing series; null marks a missing value, which is refused before simulating. */
+/**
+ * A forcing series of numbers; null marks a missing value, which is refused before simulating.
+ * Checked in one pass that reports the first bad value with its index and how many there are,
+ * instead of one issue per value (a year of hourly data can hold thousands).
+ */
 const series = (min: number, max: number, what: string) =>
-  z.array(z.number().min(min, `${what} below ${min}`).max(max, `${what} above ${max}`).nullable()).min(1);
+  z.custom<(number | null)[]>((v) => Array.isArray(v) && v.length > 0, { message: 'must be a non-empty array of numbers (null for a missing value)' })
+    .superRefine((values, ctx) => {
+      let first = -1;
+      let count = 0;
+      for (let i = 0; i < values.length; i++) {
+        const v = values[i];
+        if (v === null || (typeof v === 'number' && v >= min && v <= max)) continue;
+        if (first < 0) first = i;
+        count++;
+      }
+      if (first >= 0) {
+        ctx.addIssue({ code: 'custom', path: [first], message: `${String(values[first])} is not a ${what} between ${min} and ${max} (${count} such value(s) in this series)` });
+      }
+    });
 
 /** A scenario value: one number for every month or twelve monthly values (January first). */
 const monthly = (min: number, max: number) =>

@@ -69,7 +69,7 @@ export interface SlopeIrradianceInput {
 export function slopeIrradiance(p: SlopeIrradianceInput): number {
   if (p.cosZenith <= 0) return 0;
   const beamHorizontal = p.beamNormalWm2 * p.cosZenith;
-  const diffuseHorizontal = (beamHorizontal * p.diffuseFraction) / (1 - p.diffuseFraction);
+  const diffuseHorizontal = beamHorizontal * (p.diffuseFraction / (1 - p.diffuseFraction));
   const direct = p.cosIncidence > 0 ? p.beamNormalWm2 * p.cosIncidence : 0;
   const reflected = p.terrainAlbedo * (beamHorizontal + diffuseHorizontal) * p.groundView;
   return (direct + diffuseHorizontal * p.skyView + reflected) * p.cloudFactor;
