@@ -1,0 +1,65 @@
+import { z } from 'zod';
+import { bandSchema } from '../melt/schema';
+
+/** The band fields in table order, with the unit each is stored in (the engine's own names and units). */
+export const BAND_COLUMNS = [
+  { field: 'lowerM', label: 'Lower elevation', unit: 'm' },
+  { field: 'upperM', label: 'Upper elevation', unit: 'm' },
+  { field: 'areaKm2', label: 'Area', unit: 'km²' },
+  { field: 'slopeDeg', label: 'Mean slope', unit: '°' },
+  { field: 'aspectDeg', label: 'Mean aspect', unit: '° from north' },
+  { field: 'glacierFraction', label: 'Glacier fraction', unit: '0–1 of band' },
+  { field: 'debrisFraction', label: 'Debris-covered fraction', unit: '0–1 of glacier' },
+  { field: 'debrisThicknessM', label: 'Debris thickness', unit: 'm' },
+] as const;
+export type BandField = (typeof BAND_COLUMNS)[number]['field'];
+export const BAND_FIELDS: readonly BandField[] = BAND_COLUMNS.map((c) => c.field);
+
+/** One band as stored: the engine's band (same names and units) and its row number. */
+export type BandRow = z.output<typeof bandSchema>;
+
+/**
+ * The whole band table: each row is the engine's band, and across rows the bands must run
+ * from low to high without gaps or overlaps (each band's lower edge is the previous upper edge).
+ * Issues carry the path [row index, field] so messages can say "row 3, upperM".
+ */
+export const bandTableSchema = z
+  .array(bandSchema)
+  .min(1, 'needs at least one band')
+  .max(500, 'may have at most 500 bands')
+  .superRefine((bands, ctx) => {
+    for (let i = 1; i < bands.length; i++) {
+      const previous = bands[i - 1];
+      const band = bands[i];
+      if (band.lowerM < previous.upperM) {
+        ctx.addIssue({ code: 'custom', path: [i, 'lowerM'], message: `overlaps the band below (its upper edge is ${previous.upperM} m); sort bands from low to high without overlaps` });
+      } else if (band.lowerM > previous.upperM) {
+        ctx.addIssue({ code: 'custom', path: [i, 'lowerM'], message: `leaves a gap above the band below (its upper edge is ${previous.upperM} m); bands must be contiguous` });
+      }
+    }
+  });
+
+export const bandTableRequestSchema = z.object({ bands: bandTableSchema });
+export type BandTableRequest = z.input<typeof bandTableRequestSchema>;
+
+export const bandProblemSchema = z.object({ row: z.number().int(), column: z.string(), message: z.string() });
+export type BandProblem = z.infer<typeof bandProblemSchema>;
+
+export const bandTableReplySchema = z.object({ bands: z.array(bandSchema) });
+
+/** Bands read from an uploaded file: the rows that could be read and what is wrong, row by row. */
+export const bandFileReplySchema = z.object({
+  bands: z.array(z.record(z.string(), z.number().nullable())),
+  problems: z.array(bandProblemSchema),
+});
+export type BandFileReply = z.infer<typeof bandFileReplySchema>;
+
+/** Turns zod issues on a band table into row/column problems with 1-based row numbers. */
+export function bandIssuesToProblems(issues: readonly { path: readonly PropertyKey[]; message: string }[]): BandProblem[] {
+  return issues.map((issue) => {
+    const [index, field] = issue.path;
+    return typeof index === 'number'
+      ? { row: index + 1, column: String(field ?? ''), message: issue.message }
+      : { row: 0, column: '', message: issue.message };
+  });
+}

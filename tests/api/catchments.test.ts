@@ -1,0 +1,113 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { MAX_PAGE_SIZE } from '../../shared/schemas/catchments';
+import { catchmentFields } from '../support/catchments';
+import { createOrganisation, signedInAgent, unique, type TestOrg } from '../support/factories';
+import { createTestApp, type TestApp } from '../support/test-app';
+
+let t: TestApp;
+let orgA: TestOrg;
+let orgB: TestOrg;
+let foreignId: number;
+
+beforeAll(async () => {
+  t = createTestApp();
+  orgA = await createOrganisation(t.db);
+  orgB = await createOrganisation(t.db);
+  const b = await signedInAgent(t.app, orgB.users.consultant.email);
+  foreignId = (await b.post('/api/catchments').send(catchmentFields())).body.catchment.id;
+});
+afterAll(() => t.close());
+
+describe('creating and editing catchments', () => {
+  it('lets a consultant create, read and edit a catchment', async () => {
+    const agent = await signedInAgent(t.app, orgA.users.consultant.email);
+    const created = await agent.post('/api/catchments').send(catchmentFields({ name: unique('Kesh ') }));
+    expect(created.status).toBe(201);
+    expect(created.body.catchment).toMatchObject({ latitudeDeg: 33.2, timeZone: 'Asia/Kolkata', archived: false, bandCount: 0 });
+    const id = created.body.catchment.id;
+    const edited = await agent.put(`/api/catchments/${id}`).send(catchmentFields({ name: created.body.catchment.name, stationElevationM: 3333 }));
+    expect(edited.status).toBe(200);
+    expect((await agent.get(`/api/catchments/${id}`)).body.catchment.stationElevationM).toBe(3333);
+  });
+
+  it('names the bad field', async () => {
+    const agent = await signedInAgent(t.app, orgA.users.admin.email);
+    const res = await agent.post('/api/catchments').send(catchmentFields({ timeZone: 'Mars/Olympus' }));
+    expect(res.status).toBe(422);
+    expect(res.body.error.field).toBe('timeZone');
+    const lat = await agent.post('/api/catchments').send(catchmentFields({ latitudeDeg: 95 }));
+    expect(lat.body.error.field).toBe('latitudeDeg');
+  });
+
+  it('refuses a second catchment with the same name', async () => {
+    const agent = await signedInAgent(t.app, orgA.users.consultant.email);
+    const fields = catchmentFields();
+    await agent.post('/api/catchments').send(fields);
+    const again = await agent.post('/api/catchments').send(fields);
+    expect(again.status).toBe(409);
+    expect(again.body.error.field).toBe('name');
+  });
+
+  it('deletes a catchment without runs and archives on request', async () => {
+    const agent = await signedInAgent(t.app, orgA.users.consultant.email);
+    const a = (await agent.post('/api/catchments').send(catchmentFields())).body.catchment.id;
+    const archived = await agent.post(`/api/catchments/${a}/archive`).send({ archived: true });
+    expect(archived.body.catchment.archived).toBe(true);
+    expect((await agent.delete(`/api/catchments/${a}`)).body.outcome).toBe('deleted');
+    expect((await agent.get(`/api/catchments/${a}`)).status).toBe(404);
+  });
+});
+
+describe('the catchment list', () => {
+  it('pages, sorts and searches on the server and caps the page size', async () => {
+    const agent = await signedInAgent(t.app, orgA.users.consultant.email);
+    const tag = unique('Paging');
+    for (let i = 0; i < 5; i++) await agent.post('/api/catchments').send(catchmentFields({ name: `${tag} ${i}`, stationElevationM: 3000 + i }));
+    const page = await agent.get('/api/catchments').query({ search: tag, perPage: 2, page: 2, sort: 'stationElevationM', descending: 'true' });
+    expect(page.status).toBe(200);
+    expect(page.body.total).toBe(5);
+    expect(page.body.catchments.map((c: { name: string }) => c.name)).toEqual([`${tag} 2`, `${tag} 1`]);
+    const capped = await agent.get('/api/catchments').query({ perPage: 10_000 });
+    expect(capped.body.perPage).toBe(MAX_PAGE_SIZE);
+    const bad = await agent.get('/api/catchments').query({ sort: 'password_hash' });
+    expect(bad.status).toBe(422);
+  });
+
+  it('treats % and _ in the search as plain characters', async () => {
+    const agent = await signedInAgent(t.app, orgA.users.consultant.email);
+    const res = await agent.get('/api/catchments').query({ search: '%' });
+    expect(res.body.total).toBe(0);
+  });
+});
+
+describe('roles and organisations', () => {
+  it('lets a scientist read but not write', async () => {
+    const agent = await signedInAgent(t.app, orgA.users.scientist.email);
+    expect((await agent.get('/api/catchments')).status).toBe(200);
+    expect((await agent.post('/api/catchments').send(catchmentFields())).status).toBe(403);
+  });
+
+  it.each([
+    ['GET', '/api/catchments'], ['POST', '/api/catchments'], ['GET', '/api/catchments/1'], ['PUT', '/api/catchments/1'],
+    ['DELETE', '/api/catchments/1'], ['GET', '/api/catchments/1/bands'], ['PUT', '/api/catchments/1/bands'],
+    ['GET', '/api/catchments/1/bands.csv'], ['POST', '/api/catchments/1/bands/file'], ['GET', '/api/catchments/1/datasets'],
+    ['GET', '/api/catchments/1/datasets/1/series'], ['GET', '/api/catchments/1/datasets/1/monthly'], ['GET', '/api/catchments/1/datasets/1/csv'],
+    ['DELETE', '/api/catchments/1/datasets/1'], ['POST', '/api/catchments/1/uploads'], ['POST', '/api/catchments/1/uploads/x/confirm'],
+  ])('answers 403 to a client on %s %s', async (method, url) => {
+    const agent = await signedInAgent(t.app, orgA.users.client.email);
+    const res = await agent[method.toLowerCase() as 'get'](url);
+    expect(res.status).toBe(403);
+  });
+
+  it.each([
+    ['GET', ''], ['PUT', ''], ['DELETE', ''], ['POST', '/archive'], ['GET', '/bands'], ['PUT', '/bands'], ['GET', '/bands.csv'],
+    ['GET', '/datasets'], ['POST', '/uploads'],
+  ])("answers 404 for another organisation's catchment on %s …%s", async (method, suffix) => {
+    const agent = await signedInAgent(t.app, orgA.users.consultant.email);
+    const body = method === 'PUT' && suffix === '' ? catchmentFields() : method === 'POST' ? { archived: true } : { bands: [] };
+    const res = await agent[method.toLowerCase() as 'post'](`/api/catchments/${foreignId}${suffix}`).send(body);
+    expect(res.status).toBe(404);
+    const list = await agent.get('/api/catchments').query({ perPage: 100 });
+    expect(list.body.catchments.map((c: { id: number }) => c.id)).not.toContain(foreignId);
+  });
+});
