@@ -1,0 +1,75 @@
+import type { Knex } from 'knex';
+import type Stripe from 'stripe';
+import { badRequest } from '../../errors';
+import { callPayments } from './payments-client';
+import { lockOrganisation } from './seats';
+import { applySubscription, organisationIdOf } from './subscription-sync';
+
+type RefField = string | { id: string } | null | undefined;
+const refOf = (value: RefField): string | null => (value == null ? null : typeof value === 'string' ? value : value.id);
+
+/** The subscription an event is about, for the event types that change seats or status. */
+export function subscriptionRefOf(event: Stripe.Event): string | null {
+  const object = event.data.object as unknown as Record<string, unknown>;
+  if (event.type.startsWith('customer.subscription.')) return String(object.id);
+  if (event.type.startsWith('invoice.')) {
+    const parent = object.parent as { subscription_details?: { subscription?: RefField } } | null | undefined;
+    return refOf(parent?.subscription_details?.subscription) ?? refOf(object.subscription as RefField);
+  }
+  if (event.type === 'checkout.session.completed') return refOf(object.subscription as RefField);
+  return null;
+}
+
+const isDuplicateKey = (error: unknown) => (error as { code?: string }).code === 'ER_DUP_ENTRY';
+
+/**
+ * Applies signed webhook events. Each event id is stored once (primary key) in the same
+ * transaction that applies it, so duplicates and replays change nothing. Events are not
+ * trusted for state: the subscription is re-read from the service while the organisation
+ * is locked, so events arriving late or out of order still leave the current state.
+ */
+export class WebhookService {
+  constructor(
+    private readonly db: Knex,
+    private readonly payments: Stripe,
+    private readonly secret: string,
+  ) {}
+
+  verify(rawBody: Buffer, signature: string | undefined): Stripe.Event {
+    if (!signature) throw badRequest('The webhook has no signature header.');
+    try {
+      return this.payments.webhooks.constructEvent(rawBody, signature, this.secret);
+    } catch {
+      throw badRequest('The webhook signature does not match or is too old.');
+    }
+  }
+
+  /** True when the event was applied now, false when it had been applied before. */
+  async receive(event: Stripe.Event): Promise<boolean> {
+    if (await this.db('payment_events').where({ id: event.id }).first('id')) return false;
+    const ref = subscriptionRefOf(event);
+    // Read once to learn the organisation; read again under its lock for the state to keep.
+    const organisationId = ref ? await this.knownOrganisation(organisationIdOf(await this.retrieve(ref))) : null;
+    try {
+      await this.db.transaction(async (trx) => {
+        await trx('payment_events').insert({ id: event.id, type: event.type, organisation_id: organisationId });
+        if (!ref || !organisationId) return;
+        await lockOrganisation(trx, organisationId);
+        await applySubscription(trx, organisationId, await this.retrieve(ref));
+      });
+      return true;
+    } catch (error) {
+      if (isDuplicateKey(error)) return false;
+      throw error;
+    }
+  }
+
+  private async knownOrganisation(id: number | null): Promise<number | null> {
+    if (id === null) return null;
+    return (await this.db('organisations').where({ id }).first('id')) ? id : null;
+  }
+
+  private retrieve(ref: string): Promise<Stripe.Subscription> {
+    return callPayments(() => this.payments.subscriptions.retrieve(ref));
+  }
+}

@@ -1,0 +1,114 @@
+import type { Knex } from 'knex';
+import type { AcceptInvitation, InvitationPreview, InvitationRequest, Member } from '../../../shared/schemas/members';
+import { AppError, conflict } from '../../errors';
+import type { AuthService, UserRow } from '../auth-service';
+import { assertFreeSeats, lockOrganisation, takesSeat } from '../billing/seats';
+import { hashMailToken, newMailToken } from '../mail/mail-tokens';
+import type { MailService } from '../mail/mail-service';
+import { invitationMail } from '../mail/mail-texts';
+import type { TenantScope } from '../tenant-scope';
+import type { MembersService } from './members-service';
+import { invalidLink, tooManyMails } from './mail-link-errors';
+
+export const INVITATION_VALID_DAYS = 7;
+
+/** Invitations by mail: an `invited` member holding a seat, and a single-use token to join with. */
+export class InvitationService {
+  constructor(
+    private readonly db: Knex,
+    private readonly auth: AuthService,
+    private readonly mail: MailService,
+    private readonly members: MembersService,
+    private readonly publicUrl: () => string,
+  ) {}
+
+  /** Counting seats and adding the member happen under the organisation's lock, so seats can never be exceeded. */
+  async invite(scope: TenantScope, inviter: UserRow, request: InvitationRequest): Promise<Member> {
+    if (!(await this.mail.withinLimit(request.email))) throw tooManyMails();
+    const { id, token } = await scope.transaction(async (s) => {
+      const trx = s.db as Knex.Transaction;
+      await lockOrganisation(trx, s.organisationId);
+      if (takesSeat(request.role)) await assertFreeSeats(trx, s.organisationId, 1);
+      if (await trx('users').where({ email: request.email }).first('id')) {
+        throw conflict('This address already has a Tarnish account.', 'email');
+      }
+      const userId = await s.insert('users', { email: request.email, name: request.name, role: request.role, status: 'invited' });
+      return { id: userId, token: await this.issueToken(trx, s.organisationId, userId, inviter.id) };
+    });
+    await this.sendInvitation(scope, inviter, id, token);
+    return this.members.get(scope, id);
+  }
+
+  /** A fresh link for a pending invitation; earlier links stop working. */
+  async resend(scope: TenantScope, inviter: UserRow, userId: number): Promise<void> {
+    const member = await scope.findOr404<UserRow>('users', userId, 'Invitation');
+    if (member.status !== 'invited') throw conflict('This member has already joined.');
+    if (!(await this.mail.withinLimit(member.email))) throw tooManyMails();
+    const token = await this.db.transaction((trx) => this.issueToken(trx, scope.organisationId, userId, inviter.id));
+    await this.sendInvitation(scope, inviter, userId, token);
+  }
+
+  async preview(token: string): Promise<InvitationPreview> {
+    const row = await this.db('invitations as i')
+      .join('users as u', 'u.id', 'i.user_id')
+      .join('organisations as o', 'o.id', 'i.organisation_id')
+      .where({ 'i.token_hash': hashMailToken(token), 'u.status': 'invited' })
+      .whereNull('i.used_at')
+      .where('i.expires_at', '>', new Date())
+      .first('u.email', 'u.name', 'u.role', 'o.name as organisationName');
+    if (!row) throw invalidLink('invitation');
+    return row as InvitationPreview;
+  }
+
+  /** Uses the token (once), sets the password and makes the member active. */
+  async accept(input: AcceptInvitation): Promise<{ email: string }> {
+    const passwordHash = await this.auth.hashPassword(input.password);
+    return this.db.transaction(async (trx) => {
+      const invitation = await trx('invitations')
+        .where({ token_hash: hashMailToken(input.token) })
+        .whereNull('used_at')
+        .where('expires_at', '>', new Date())
+        .forUpdate()
+        .first('id', 'user_id');
+      if (!invitation) throw invalidLink('invitation');
+      const user = await trx<UserRow>('users').where({ id: invitation.user_id, status: 'invited' }).first();
+      if (!user) throw invalidLink('invitation');
+      await trx('invitations').where({ id: invitation.id }).update({ used_at: new Date() });
+      await trx('users')
+        .where({ id: user.id })
+        .update({ name: input.name, password_hash: passwordHash, status: 'active', updated_at: new Date() });
+      return { email: user.email };
+    });
+  }
+
+  private async issueToken(trx: Knex.Transaction, organisationId: number, userId: number, inviterId: number): Promise<string> {
+    const { token, hash } = newMailToken();
+    await trx('invitations').where({ user_id: userId }).whereNull('used_at').update({ used_at: new Date() });
+    await trx('invitations').insert({
+      organisation_id: organisationId,
+      user_id: userId,
+      invited_by: inviterId,
+      token_hash: hash,
+      expires_at: new Date(Date.now() + INVITATION_VALID_DAYS * 86_400_000),
+    });
+    return token;
+  }
+
+  private async sendInvitation(scope: TenantScope, inviter: UserRow, userId: number, token: string): Promise<void> {
+    const member = await scope.findOr404<UserRow>('users', userId, 'Invitation');
+    const organisation = await this.db('organisations').where({ id: scope.organisationId }).first('name');
+    const link = `${this.publicUrl()}/invitation?token=${token}`;
+    const content = invitationMail({
+      organisationName: organisation.name,
+      inviterName: inviter.name,
+      role: member.role,
+      link,
+      validDays: INVITATION_VALID_DAYS,
+    });
+    try {
+      await this.mail.send({ to: member.email, kind: 'invitation', ...content });
+    } catch {
+      throw new AppError(503, 'mail_unavailable', 'The invitation is saved but its mail could not be sent; use "Send again" in a minute.');
+    }
+  }
+}

@@ -1,0 +1,58 @@
+import type { Knex } from 'knex';
+import type { ResetComplete } from '../../../shared/schemas/members';
+import type { AuthService, UserRow } from '../auth-service';
+import { hashMailToken, newMailToken } from '../mail/mail-tokens';
+import type { MailService } from '../mail/mail-service';
+import { passwordResetMail } from '../mail/mail-texts';
+import { invalidLink } from './mail-link-errors';
+
+export const RESET_VALID_MINUTES = 60;
+
+/** Password resets by mail; asking never tells whether an address has an account. */
+export class PasswordResetService {
+  constructor(
+    private readonly db: Knex,
+    private readonly auth: AuthService,
+    private readonly mail: MailService,
+    private readonly publicUrl: () => string,
+  ) {}
+
+  /**
+   * Mails a reset link to an active account's address. Unknown addresses and addresses
+   * over their hourly limit get the same silence; the mail goes out after the reply.
+   */
+  async request(email: string): Promise<void> {
+    const user = await this.db<UserRow>('users').where({ email, status: 'active' }).first();
+    if (!user || !(await this.mail.withinLimit(email))) return;
+    const { token, hash } = newMailToken();
+    await this.db('password_reset_tokens').insert({
+      user_id: user.id,
+      token_hash: hash,
+      expires_at: new Date(Date.now() + RESET_VALID_MINUTES * 60_000),
+    });
+    const content = passwordResetMail({ link: `${this.publicUrl()}/reset-password?token=${token}`, validMinutes: RESET_VALID_MINUTES });
+    void this.mail.send({ to: email, kind: 'password_reset', ...content }).catch((error: unknown) => {
+      console.error(`[mail] password reset mail not sent: ${(error as Error).message}`);
+    });
+  }
+
+  /** Uses the token once, sets the password, ends every session and voids the user's other reset links. */
+  async complete(input: ResetComplete): Promise<void> {
+    const passwordHash = await this.auth.hashPassword(input.password);
+    await this.db.transaction(async (trx: Knex.Transaction) => {
+      const reset = await trx('password_reset_tokens')
+        .where({ token_hash: hashMailToken(input.token) })
+        .whereNull('used_at')
+        .where('expires_at', '>', new Date())
+        .forUpdate()
+        .first('id', 'user_id');
+      if (!reset) throw invalidLink('reset');
+      const user = await trx<UserRow>('users').where({ id: reset.user_id, status: 'active' }).first();
+      if (!user) throw invalidLink('reset');
+      await trx('password_reset_tokens').where({ user_id: user.id }).whereNull('used_at').update({ used_at: new Date() });
+      await trx('users')
+        .where({ id: user.id })
+        .update({ password_hash: passwordHash, token_version: user.token_version + 1, updated_at: new Date() });
+    });
+  }
+}
