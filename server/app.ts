@@ -6,6 +6,7 @@ import path from 'node:path';
 import type { AppContext } from './context';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { apiRoutes } from './routes';
+import { billingWebhookRoute } from './routes/billing';
 
 export interface AppOptions {
   /** Folder of the built client to serve (with SPA fallback); omitted in API-only tests. */
@@ -39,6 +40,8 @@ export function createApp(ctx: AppContext, options: AppOptions = {}): Express {
     }),
   );
   app.use(cookieParser());
+  // Before the JSON parser: webhook signatures cover the raw bytes.
+  app.use(billingWebhookRoute(ctx));
   app.use('/api', express.json({ limit: '1mb' }));
   app.use('/api', apiRoutes(ctx));
   app.use('/api', apiNotFound);

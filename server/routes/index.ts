@@ -1,11 +1,15 @@
 import { Router } from 'express';
 import type { AppContext } from '../context';
 import { authRoutes } from './auth';
+import { billingRoutes } from './billing';
 import { catchmentBandRoutes } from './catchment-bands';
 import { catchmentDatasetRoutes } from './catchment-datasets';
 import { catchmentRoutes } from './catchments';
+import { devInboxRoutes } from './dev-inbox';
 import { healthRoutes } from './health';
+import { invitationRoutes } from './invitations';
 import { memberRoutes } from './members';
+import { passwordResetRoutes } from './password-reset';
 
 /** Every /api router, in one list. */
 export function apiRoutes(ctx: AppContext): Router {
@@ -13,6 +17,10 @@ export function apiRoutes(ctx: AppContext): Router {
   router.use(healthRoutes(ctx));
   router.use(authRoutes(ctx));
   router.use(memberRoutes(ctx));
+  router.use(billingRoutes(ctx));
+  router.use(invitationRoutes(ctx));
+  router.use(passwordResetRoutes(ctx));
+  router.use(devInboxRoutes(ctx));
   router.use(catchmentRoutes(ctx));
   router.use(catchmentBandRoutes(ctx));
   router.use(catchmentDatasetRoutes(ctx));

@@ -1,25 +1,33 @@
 import { Router } from 'express';
+import { roleChangeSchema } from '../../shared/schemas/members';
 import type { AppContext } from '../context';
 import { authOf, requireAuth } from '../middleware/require-auth';
 import { requireRole } from '../middleware/require-role';
-import { idParam } from '../middleware/validate';
+import { idParam, validateBody } from '../middleware/validate';
 
-const MEMBER_COLUMNS = ['id', 'name', 'email', 'role', 'status', 'last_sign_in_at', 'created_at'] as const;
-
-/** /api/members: the organisation's people, for its admins. */
+/** /api/members: the organisation's people and its seats, for its admins. */
 export function memberRoutes(ctx: AppContext): Router {
   const router = Router();
+  const { members } = ctx;
   router.use('/members', requireAuth(ctx), requireRole('admin'));
 
   router.get('/members', async (req, res) => {
-    const rows = await authOf(req).scope.from('users').select(MEMBER_COLUMNS).orderBy('name');
-    res.json({ members: rows });
+    res.json(await members.list(authOf(req).scope));
   });
 
   router.get('/members/:id', async (req, res) => {
-    const row = await authOf(req).scope.findOr404('users', idParam(req), 'Member');
-    const member = Object.fromEntries(MEMBER_COLUMNS.map((c) => [c, (row as Record<string, unknown>)[c]]));
-    res.json({ member });
+    res.json({ member: await members.get(authOf(req).scope, idParam(req)) });
+  });
+
+  router.patch('/members/:id', validateBody(roleChangeSchema), async (req, res) => {
+    const { user, scope } = authOf(req);
+    res.json({ member: await members.changeRole(scope, user, idParam(req), req.body.role) });
+  });
+
+  router.delete('/members/:id', async (req, res) => {
+    const { user, scope } = authOf(req);
+    await members.remove(scope, user, idParam(req));
+    res.status(204).end();
   });
 
   return router;
