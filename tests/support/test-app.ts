@@ -2,7 +2,7 @@ import type { Express } from 'express';
 import type { Knex } from 'knex';
 import { createApp } from '../../server/app';
 import { parseConfig, type AppConfig } from '../../server/config';
-import { createContext, type AppContext } from '../../server/context';
+import { createContext, type AppContext, type ContextOptions } from '../../server/context';
 import { createDb } from '../../server/db';
 
 export interface TestApp {
@@ -17,13 +17,17 @@ export interface TestApp {
  * An app on the test database prepared by `npm test` (scripts/test.sh). Refuses any
  * database whose name does not end in `_test`, so tests never touch the demo data.
  */
-export function createTestApp(overrides: Record<string, string> = {}): TestApp {
+export function createTestApp(overrides: Record<string, string> = {}, contextOptions: ContextOptions = {}): TestApp {
   const config = parseConfig({ ...process.env, NODE_ENV: 'test', ...overrides });
   if (!config.db.database.endsWith('_test')) {
     throw new Error(`Tests must run on a *_test database (got "${config.db.database}"); use npm test.`);
   }
   const db = createDb(config.db);
-  const ctx = createContext(config, db, { bcryptCost: 4 });
+  const ctx = createContext(config, db, { bcryptCost: 4, ...contextOptions });
   const app = createApp(ctx, { clientDir: overrides.CLIENT_DIR });
-  return { app, ctx, db, config, close: () => db.destroy() };
+  const close = async () => {
+    ctx.mail.close();
+    await db.destroy();
+  };
+  return { app, ctx, db, config, close };
 }

@@ -53,13 +53,24 @@ export class BillingService {
     if (request.seats < inUse) {
       throw conflict(`${inUse} members take a seat; buy at least ${inUse} seats.`, 'seats');
     }
+    const session = await this.openCheckout(scope.organisationId, { customer: row?.customer_ref, email: admin.email }, request);
+    if (!session.url) throw conflict('The payment service did not return a checkout page.');
+    return session.url;
+  }
+
+  /** A checkout session for this organisation; the subscription it creates carries the organisation's id. */
+  async openCheckout(
+    organisationId: number,
+    payer: { customer?: string; email: string },
+    request: CheckoutRequest,
+  ): Promise<Stripe.Checkout.Session> {
     const price = await this.priceFor(request.interval);
     const base = this.config.publicUrl;
-    const organisation = String(scope.organisationId);
-    const session = await callPayments(() =>
+    const organisation = String(organisationId);
+    return callPayments(() =>
       this.payments.checkout.sessions.create({
         mode: 'subscription',
-        ...(row ? { customer: row.customer_ref } : { customer_email: admin.email }),
+        ...(payer.customer ? { customer: payer.customer } : { customer_email: payer.email }),
         line_items: [{ price: price.id, quantity: request.seats }],
         client_reference_id: organisation,
         metadata: { organisation_id: organisation },
@@ -68,8 +79,6 @@ export class BillingService {
         cancel_url: `${base}/billing?checkout=cancelled`,
       }),
     );
-    if (!session.url) throw conflict('The payment service did not return a checkout page.');
-    return session.url;
   }
 
   /**
