@@ -1,0 +1,131 @@
+import { simulate, type Parameters, type SimulationInput } from '../melt/index';
+import { PARAMETER_NAMES, PARAMETER_SPECS, type ParameterName } from '../melt/parameters';
+import { addDays } from '../melt/calendar';
+import { catchmentInput, forcingDays } from './calibration-set';
+import type { LabSite, Period } from './site';
+
+/** Scenario changes a sweep can vary, with their allowed ranges (the engine's scenario schema). */
+export const SCENARIO_SWEEP_SPECS = {
+  temperatureDeltaC: { label: 'Temperature change', min: -15, max: 15, unit: '°C' },
+  precipitationFactor: { label: 'Precipitation change factor', min: 0, max: 5, unit: '×' },
+  blackCarbonSnowNgG: { label: 'Black carbon in snow', min: 0, max: 50_000, unit: 'ng/g' },
+  blackCarbonIceNgG: { label: 'Black carbon on ice', min: 0, max: 50_000, unit: 'ng/g' },
+  dustSnowUgG: { label: 'Dust in snow', min: 0, max: 5_000, unit: 'µg/g' },
+  dustIceUgG: { label: 'Dust on ice', min: 0, max: 5_000, unit: 'µg/g' },
+  debrisThicknessChangeM: { label: 'Debris thickness change', min: -10, max: 10, unit: 'm' },
+  debrisExtentChange: { label: 'Debris extent change', min: 0, max: 1, unit: 'of clean ice' },
+} as const;
+export type ScenarioSweepKey = keyof typeof SCENARIO_SWEEP_SPECS;
+export const SWEEP_VARIABLES = [...Object.keys(SCENARIO_SWEEP_SPECS) as ScenarioSweepKey[], ...PARAMETER_NAMES];
+export type SweepVariable = ScenarioSweepKey | ParameterName;
+
+/** Largest number of values on one axis (a 20 × 20 grid at most). */
+export const MAX_SWEEP_STEPS = 20;
+
+export interface SweepAxis {
+  variable: SweepVariable;
+  from: number;
+  to: number;
+  steps: number;
+}
+
+export interface SweepPlan {
+  axes: SweepAxis[];
+  period: Period;
+}
+
+export function isScenarioKey(variable: SweepVariable): variable is ScenarioSweepKey {
+  return variable in SCENARIO_SWEEP_SPECS;
+}
+
+export function variableSpec(variable: SweepVariable): { label: string; min: number; max: number; unit: string } {
+  if (isScenarioKey(variable)) return SCENARIO_SWEEP_SPECS[variable];
+  const { min, max, unit } = PARAMETER_SPECS[variable];
+  return { label: variable, min, max, unit };
+}
+
+/** Evenly spaced values from `from` to `to`, both included. */
+export function axisValues(axis: SweepAxis): number[] {
+  if (!Number.isInteger(axis.steps) || axis.steps < 2 || axis.steps > MAX_SWEEP_STEPS) throw new RangeError(`a sweep axis needs 2 to ${MAX_SWEEP_STEPS} steps`);
+  return Array.from({ length: axis.steps }, (_, i) => axis.from + ((axis.to - axis.from) * i) / (axis.steps - 1));
+}
+
+/** One grid cell: its indices along each axis and the values there. */
+export interface SweepCell {
+  index: number[];
+  values: number[];
+}
+
+export function sweepCells(plan: SweepPlan): SweepCell[] {
+  const [first, second] = plan.axes.map(axisValues);
+  if (!second) return first.map((v, i) => ({ index: [i], values: [v] }));
+  return first.flatMap((v, i) => second.map((w, j) => ({ index: [i, j], values: [v, w] })));
+}
+
+/**
+ * Catchment melt (snow and ice) over the period, mm w.e. averaged over the catchment area. Runs
+ * from the start of the forcing so the snowpack is built, and sums the days of the period.
+ */
+export function periodMelt(input: SimulationInput, period: Period, forcingStart: string): number {
+  const r = simulate(input);
+  const first = Math.max(0, Math.round((Date.parse(period.from) - Date.parse(forcingStart)) / 86_400_000));
+  let volume = 0;
+  for (const source of ['snow', 'ice', 'debrisIce'] as const) {
+    const v = r.catchmentDaily.volumeM3[source];
+    for (let d = first; d < r.dayCount; d++) volume += v[d];
+  }
+  const area = r.bands.areaM2.reduce((s, a) => s + a, 0);
+  return (volume / area) * 1000;
+}
+
+/** The engine input of one cell: the site's parameters and precipitation factor with the swept values applied. */
+export function cellInput(site: LabSite, plan: SweepPlan, values: readonly number[]): SimulationInput {
+  const scenario: Record<string, number> = {};
+  const parameters: Partial<Parameters> = { ...site.parameters };
+  plan.axes.forEach(({ variable }, k) => {
+    if (!isScenarioKey(variable)) parameters[variable] = values[k];
+    else scenario[variable] = variable === 'precipitationFactor' ? values[k] * (site.precipitationFactor ?? 1) : values[k];
+  });
+  const last = addDays(site.forcing.start, forcingDays(site.forcing) - 1);
+  const input = catchmentInput({ ...site, parameters }, { from: site.forcing.start, to: plan.period.to < last ? plan.period.to : last });
+  return { ...input, scenario: { ...input.scenario, ...scenario } };
+}
+
+export function cellMelt(site: LabSite, plan: SweepPlan, values: readonly number[]): number {
+  return periodMelt(cellInput(site, plan, values), plan.period, site.forcing.start);
+}
+
+export interface SweepResult {
+  axes: { variable: SweepVariable; label: string; unit: string; values: number[] }[];
+  period: Period;
+  /** Melt with the parameters in force and no scenario change, mm w.e. */
+  baselineMeltMm: number;
+  /** Per cell (one-axis sweeps: one row), mm w.e.: melt and melt minus the baseline. */
+  meltMm: number[][];
+  addedMeltMm: number[][];
+}
+
+export function baselineMelt(site: LabSite, period: Period): number {
+  return cellMelt(site, { axes: [], period }, []);
+}
+
+/** Puts the cell melts (in sweepCells order) on the grid. */
+export function assembleSweep(plan: SweepPlan, baselineMeltMm: number, melts: readonly number[]): SweepResult {
+  const axes = plan.axes.map((axis) => ({ variable: axis.variable, ...variableSpec(axis.variable), values: axisValues(axis) }));
+  const columns = axes[1]?.values.length ?? axes[0].values.length;
+  const rows = axes[1] ? axes[0].values.length : 1;
+  const meltMm = Array.from({ length: rows }, (_, i) => melts.slice(i * columns, (i + 1) * columns));
+  return { axes, period: plan.period, baselineMeltMm, meltMm, addedMeltMm: meltMm.map((row) => row.map((m) => m - baselineMeltMm)) };
+}
+
+/** Runs every cell in this thread (workers split the cells among themselves instead). */
+export function runSweep(site: LabSite, plan: SweepPlan, options: { signal?: AbortSignal; onProgress?: (done: number, total: number) => void } = {}): SweepResult {
+  const cells = sweepCells(plan);
+  const melts = cells.map((cell, k) => {
+    options.signal?.throwIfAborted();
+    const melt = cellMelt(site, plan, cell.values);
+    options.onProgress?.(k + 1, cells.length);
+    return melt;
+  });
+  return assembleSweep(plan, baselineMelt(site, plan.period), melts);
+}
