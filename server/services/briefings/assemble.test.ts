@@ -1,0 +1,36 @@
+import { describe, expect, it } from 'vitest';
+import { CAUTIONS } from '../../../shared/text/cautions';
+import { testSnapshot } from '../../../tests/fixtures/briefing-snapshot';
+
+describe('assembleSnapshot', () => {
+  const s = testSnapshot();
+
+  it('freezes one headline per variant, sections in draft order and the cautions last', () => {
+    expect(s.headlines.map((h) => h.variantName)).toEqual(['Black carbon 150 ng/g', 'Dust and +2 °C']);
+    expect(s.sections.map((x) => x.heading)[0]).toBe('What we looked at');
+    expect(s.sections).toHaveLength(10);
+    expect(s.cautions).toEqual(CAUTIONS);
+  });
+
+  it('charts the added melt per month as variant minus baseline, in million m³', () => {
+    const chart = s.sections.find((x) => x.kind === 'chart' && x.heading === 'Added melt by month');
+    if (chart?.kind !== 'chart') throw new Error('chart missing');
+    expect(chart.chart.categories).toHaveLength(12);
+    const total = chart.chart.series[0].values.reduce((a: number, b) => a + (b ?? 0), 0);
+    // The month sums must add up to the season's added volume (rounded per month to 100 m³).
+    expect(total * 1e6).toBeCloseTo(s.headlines[0].addedVolumeM3.value, -3);
+  });
+
+  it('records engine version and input hash of every run, and the data sources with their accuracy', () => {
+    expect(s.assumptions.runs.map((r) => r.inputHash)).toHaveLength(3);
+    expect(s.assumptions.engineVersion).toMatch(/^\d+\.\d+\.\d+/);
+    expect(s.assumptions.dataSources[0].accuracy).toContain('±');
+  });
+
+  it('is a deep copy: changing the source afterwards leaves it alone', () => {
+    const before = JSON.stringify(s);
+    const again = testSnapshot();
+    (again.headlines[0].addedVolumeM3 as { value: number }).value = -1;
+    expect(JSON.stringify(s)).toBe(before);
+  });
+});
