@@ -1,15 +1,34 @@
 import { startServer } from '../server/index';
+import { loadConfig } from '../server/config';
+import { startMailCatcher } from '../server/services/mail/mail-catcher';
+import { startFakeStripe } from '../stripe-fake';
 import { DEMO_ACCOUNTS } from '../seeds/data/demo-accounts';
+import { replayPlansInFake } from './lib/paid-plan';
 
 /** Local serving for `npm start` and `npm run dev`: the app plus its local fakes, then the sign-ins. */
 async function main(): Promise<void> {
-  const server = await startServer();
+  const config = loadConfig();
+  // The payment fake and the mail catcher listen where the config points the app (loopback only).
+  const catcher = await startMailCatcher(config.mail.port);
+  const fake = await startFakeStripe({
+    port: config.billing.port,
+    webhookUrl: `${config.publicUrl}/api/billing/webhook`,
+    webhookSecret: config.billing.webhookSecret,
+    apiKey: config.billing.secretKey,
+  });
+  const server = await startServer({ inbox: catcher });
+  const replayed = await replayPlansInFake(server.ctx, fake);
+
   console.log(`\n  Tarnish is running at ${server.url}\n`);
+  console.log(`  Mail inbox (development only): ${server.url}/dev/inbox   (SMTP catcher on 127.0.0.1:${catcher.port})`);
+  console.log(`  Payment service fake: ${fake.url}   (card 4242 4242 4242 4242; ${replayed} seat plan(s) set up in it)\n`);
   console.log('  Demo sign-ins (local use only):');
   for (const a of DEMO_ACCOUNTS) console.log(`    ${a.role.padEnd(11)} ${a.email.padEnd(32)} ${a.password}`);
   console.log('\n  Stop with Ctrl+C.\n');
   const stop = async () => {
     await server.close();
+    await fake.close();
+    await catcher.close();
     process.exit(0);
   };
   process.once('SIGINT', stop);

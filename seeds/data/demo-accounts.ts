@@ -16,3 +16,6 @@ export const DEMO_ACCOUNTS: readonly DemoAccount[] = [
   { role: 'scientist', name: 'Dr Anouk Felder', email: 'scientist@corrievell.example', password: 'demo-scientist-tarnish' },
   { role: 'client', name: 'Rafe Okonna (Duskwater Power)', email: 'client@duskwater.example', password: 'demo-client-tarnish' },
 ];
+
+/** The demo consultancy starts with an active monthly plan of this many seats. */
+export const DEMO_SUBSCRIPTION = { seats: 5 } as const;
