@@ -1,6 +1,6 @@
 import { createApp } from 'vue';
 import { createPinia } from 'pinia';
-import { Dark, Notify, Quasar } from 'quasar';
+import { Dark, Dialog, Notify, Quasar } from 'quasar';
 import '@quasar/extras/roboto-font/roboto-font.css';
 import '@quasar/extras/material-icons/material-icons.css';
 import 'quasar/src/css/index.sass';
@@ -10,7 +10,7 @@ import { createAppRouter } from './router';
 import { installAuthBoot } from './boot/auth';
 
 const app = createApp(App);
-app.use(Quasar, { plugins: { Notify, Dark }, config: { dark: 'auto' } });
+app.use(Quasar, { plugins: { Notify, Dark, Dialog }, config: { dark: 'auto' } });
 app.use(createPinia());
 const router = createAppRouter();
 installAuthBoot(router);
