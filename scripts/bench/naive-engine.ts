@@ -21,7 +21,10 @@ interface BandState { swe: number; grain: number; coldContent: Float64Array }
 interface Air { tempC: number; precipMm: number; longIn: number; sensibleCoef: number; global: number; sunFactor: number }
 interface Surface { weight: number; global: number; absorbed: number; albedo: number; lwNet: number; sensible: number }
 interface BandHour { state: BandState; snowMelt: number; iceMelt: number; debrisMelt: number; rain: number; snowfall: number; surfaces: Surface[] }
-export interface DayTotals { snowMelt: number; iceMelt: number; debrisMelt: number; rain: number; snowfall: number; swe: number; surfaces: Surface[] }
+export interface DayTotals {
+  snowMelt: number; iceMelt: number; debrisMelt: number; rain: number; snowfall: number; swe: number;
+  cover: number; swIn: number; swAbs: number; lwNet: number; sensible: number; albedoSum: number;
+}
 
 function bandAir(run: PreparedRun, b: number, h: number, day: number, instantMs: number): Air {
   const { catchment } = run.input;
@@ -109,6 +112,23 @@ function stepBand(run: PreparedRun, b: number, state: BandState, air: Air, snowT
   return { state: { ...state, swe, grain }, snowMelt, iceMelt, debrisMelt, rain, snowfall, surfaces };
 }
 
+function addStep(t: DayTotals, step: BandHour): DayTotals {
+  const next: DayTotals = {
+    ...t,
+    snowMelt: t.snowMelt + step.snowMelt, iceMelt: t.iceMelt + step.iceMelt, debrisMelt: t.debrisMelt + step.debrisMelt,
+    rain: t.rain + step.rain, snowfall: t.snowfall + step.snowfall, swe: step.state.swe,
+  };
+  for (const s of step.surfaces) {
+    next.cover += s.weight;
+    next.swIn += s.weight * s.global;
+    next.swAbs += s.weight * s.absorbed;
+    next.lwNet += s.weight * s.lwNet;
+    next.sensible += s.weight * s.sensible;
+    next.albedoSum += s.weight * s.albedo * s.global;
+  }
+  return next;
+}
+
 /** Runs the naive engine and returns per band per day totals (day-major list of band records). */
 export function simulateNaive(input: unknown): DayTotals[][] {
   const run = prepareRun(input);
@@ -117,16 +137,13 @@ export function simulateNaive(input: unknown): DayTotals[][] {
   const days: DayTotals[][] = [];
   for (let d = 0; d < timeline.dayCount; d++) {
     const month = timeline.months[d];
-    let totals: DayTotals[] = states.map(() => ({ snowMelt: 0, iceMelt: 0, debrisMelt: 0, rain: 0, snowfall: 0, swe: 0, surfaces: [] }));
+    let totals: DayTotals[] = states.map(() => ({ snowMelt: 0, iceMelt: 0, debrisMelt: 0, rain: 0, snowfall: 0, swe: 0, cover: 0, swIn: 0, swAbs: 0, lwNet: 0, sensible: 0, albedoSum: 0 }));
     for (let k = 0; k < 24; k++) {
       const h = d * 24 + k;
       const instantMs = timeline.dayStartUtcMs[d] + (k + 0.5) * 3_600_000;
       const steps = states.map((state, b) => stepBand(run, b, state, bandAir(run, b, h, d, instantMs), run.tables.snow[month], run.tables.iceAlbedo[month]));
       states = steps.map((s) => s.state);
-      totals = totals.map((t, b) => ({
-        snowMelt: t.snowMelt + steps[b].snowMelt, iceMelt: t.iceMelt + steps[b].iceMelt, debrisMelt: t.debrisMelt + steps[b].debrisMelt,
-        rain: t.rain + steps[b].rain, snowfall: t.snowfall + steps[b].snowfall, swe: steps[b].state.swe, surfaces: [...t.surfaces, ...steps[b].surfaces],
-      }));
+      totals = totals.map((t, b) => addStep(t, steps[b]));
     }
     days.push(totals);
   }
