@@ -1,0 +1,43 @@
+import { Router } from 'express';
+import { z } from 'zod';
+import { scenarioCreateSchema, scenarioUpdateSchema } from '../../shared/schemas/scenarios';
+import type { AppContext } from '../context';
+import { authOf, requireAuth } from '../middleware/require-auth';
+import { requireRole } from '../middleware/require-role';
+import { idParam, parseWith, validateBody } from '../middleware/validate';
+import { READERS, WRITERS } from './catchments';
+
+const listQuery = z.object({ archived: z.enum(['true', 'false']).default('false').transform((v) => v === 'true') });
+
+/** /api/catchments/:catchmentId/scenarios: consultants and admins write, scientists read, clients nothing. */
+export function scenarioRoutes(ctx: AppContext): Router {
+  const router = Router();
+  const service = ctx.scenarios;
+  const base = '/catchments/:catchmentId/scenarios';
+  router.use(base, requireAuth(ctx), requireRole(...READERS));
+
+  router.get(base, async (req, res) => {
+    const { archived } = parseWith(listQuery, req.query);
+    res.json({ scenarios: await service.list(authOf(req).scope, idParam(req, 'catchmentId'), archived) });
+  });
+
+  router.post(base, requireRole(...WRITERS), validateBody(scenarioCreateSchema), async (req, res) => {
+    const { scope, user } = authOf(req);
+    res.status(201).json({ scenario: await service.create(scope, idParam(req, 'catchmentId'), req.body, user.id) });
+  });
+
+  router.get(`${base}/:id`, async (req, res) => {
+    res.json({ scenario: await service.get(authOf(req).scope, idParam(req, 'catchmentId'), idParam(req)) });
+  });
+
+  router.patch(`${base}/:id`, requireRole(...WRITERS), validateBody(scenarioUpdateSchema), async (req, res) => {
+    res.json({ scenario: await service.update(authOf(req).scope, idParam(req, 'catchmentId'), idParam(req), req.body) });
+  });
+
+  router.post(`${base}/:id/duplicate`, requireRole(...WRITERS), async (req, res) => {
+    const { scope, user } = authOf(req);
+    res.status(201).json({ scenario: await service.duplicate(scope, idParam(req, 'catchmentId'), idParam(req), user.id) });
+  });
+
+  return router;
+}

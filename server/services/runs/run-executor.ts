@@ -1,0 +1,118 @@
+import { setMaxListeners } from 'node:events';
+import type { Knex } from 'knex';
+import type { MemberPlan } from '../../../shared/analysis/run-plan';
+import type { SimulationSummary } from '../../../shared/analysis/simulation-summary';
+import { TenantScope } from '../tenant-scope';
+import type { SimulationPool } from './simulation-pool';
+import { storeMembers } from './run-store';
+
+/** A queued run with every member's complete engine input, held in memory until it finishes. */
+export interface RunJob {
+  runId: number;
+  organisationId: number;
+  members: { plan: MemberPlan; input: unknown }[];
+}
+
+/** How often progress is written to the run row while simulating. */
+const PROGRESS_WRITE_MS = 300;
+const RESTART_MESSAGE = 'The server restarted before this run finished; start it again.';
+
+function failureMessage(error: unknown): string {
+  const message = error instanceof Error ? error.message : String(error);
+  return message.slice(0, 2000) || 'The run failed without a message.';
+}
+
+/**
+ * Runs jobs in order, a few at a time, each job's simulations spread over the worker pool.
+ * Lifecycle of a run row: queued → running → done | failed | cancelled.
+ */
+export class RunExecutor {
+  private readonly queue: RunJob[] = [];
+  private readonly active = new Map<number, AbortController>();
+  private readonly finished = new Set<Promise<void>>();
+
+  constructor(
+    private readonly db: Knex,
+    private readonly pool: SimulationPool,
+    private readonly maxConcurrentRuns = 2,
+  ) {}
+
+  /** Marks runs left queued or running by an earlier process as failed (their inputs were in its memory). */
+  async recover(): Promise<void> {
+    await this.db('runs').whereIn('status', ['queued', 'running'])
+      .update({ status: 'failed', error_message: RESTART_MESSAGE, finished_at: this.db.fn.now() });
+  }
+
+  enqueue(job: RunJob): void {
+    this.queue.push(job);
+    this.next();
+  }
+
+  /** Cancels a queued or running run; false when this process does not hold it. */
+  async cancel(runId: number): Promise<boolean> {
+    const queued = this.queue.findIndex((j) => j.runId === runId);
+    if (queued >= 0) {
+      this.queue.splice(queued, 1);
+      await this.finish(runId, 'cancelled', null);
+      return true;
+    }
+    const controller = this.active.get(runId);
+    if (!controller) return false;
+    controller.abort();
+    return true;
+  }
+
+  /** Resolves when nothing is queued or running (tests and shutdown). */
+  async idle(): Promise<void> {
+    while (this.finished.size > 0 || this.queue.length > 0) await Promise.all([...this.finished]);
+  }
+
+  private next(): void {
+    while (this.active.size < this.maxConcurrentRuns && this.queue.length > 0) {
+      const job = this.queue.shift()!;
+      const controller = new AbortController();
+      // Every simulation of the job listens to the same signal.
+      setMaxListeners(0, controller.signal);
+      this.active.set(job.runId, controller);
+      const done = this.execute(job, controller.signal).finally(() => {
+        this.active.delete(job.runId);
+        this.finished.delete(done);
+        this.next();
+      });
+      this.finished.add(done);
+    }
+  }
+
+  private async execute(job: RunJob, signal: AbortSignal): Promise<void> {
+    const { runId } = job;
+    await this.db('runs').where({ id: runId }).update({ status: 'running', started_at: this.db.fn.now(), progress: 0 });
+    const fractions = new Float64Array(job.members.length);
+    let lastWrite = 0;
+    const reportProgress = (i: number, fraction: number) => {
+      fractions[i] = fraction;
+      const now = Date.now();
+      if (now - lastWrite < PROGRESS_WRITE_MS) return;
+      lastWrite = now;
+      const progress = fractions.reduce((a, b) => a + b, 0) / fractions.length;
+      // Progress is advisory: a failed write must not fail the run.
+      void this.db('runs').where({ id: runId, status: 'running' }).update({ progress: Math.min(progress, 0.99) }).catch(() => undefined);
+    };
+    try {
+      const summaries: SimulationSummary[] = await Promise.all(
+        job.members.map((m, i) => this.pool.simulate(m.input, (f) => reportProgress(i, f), signal)),
+      );
+      if (signal.aborted) throw signal.reason;
+      await storeMembers(new TenantScope(this.db, job.organisationId), runId, job.members.map((m, i) => ({ plan: m.plan, summary: summaries[i] })));
+      await this.finish(runId, 'done', null);
+    } catch (error) {
+      if (signal.aborted) await this.finish(runId, 'cancelled', null);
+      else await this.finish(runId, 'failed', failureMessage(error));
+    }
+  }
+
+  private async finish(runId: number, status: 'done' | 'failed' | 'cancelled', message: string | null): Promise<void> {
+    await this.db('runs').where({ id: runId }).update({
+      status, error_message: message, finished_at: this.db.fn.now(), ...(status === 'done' ? { progress: 1 } : {}),
+    });
+  }
+}

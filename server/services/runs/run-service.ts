@@ -1,0 +1,136 @@
+import type { z } from 'zod';
+import { planRun, RunPlanError } from '../../../shared/analysis/run-plan';
+import { ENGINE_VERSION } from '../../../shared/melt/version';
+import { parseSimulationInput, SimulationInputError } from '../../../shared/melt/prepare';
+import type { Run, startRunSchema } from '../../../shared/schemas/runs';
+import { conflict, notFound, validationFailed } from '../../errors';
+import type { ScenarioService } from '../scenario-service';
+import type { TenantScope } from '../tenant-scope';
+import type { CatchmentInputSource } from './catchment-inputs';
+import { inputHash } from './input-hash';
+import type { RunExecutor } from './run-executor';
+
+export interface RunRow {
+  id: number;
+  catchment_id: number;
+  scenario_id: number;
+  scenario_name: string;
+  is_baseline: number | boolean;
+  changes: string | object;
+  baseline_changes: string | object | null;
+  attribution: number | boolean;
+  ensemble_size: number;
+  ensemble_seed: number;
+  status: Run['status'];
+  progress: number;
+  simulation_count: number;
+  error_message: string | null;
+  engine_version: string;
+  input_hash: string;
+  period_from: Date | string | null;
+  period_to: Date | string | null;
+  queued_at: Date;
+  started_at: Date | null;
+  finished_at: Date | null;
+}
+
+const iso = (v: Date | null) => (v ? new Date(v).toISOString() : null);
+const day = (v: Date | string) => (v instanceof Date ? v.toISOString().slice(0, 10) : String(v).slice(0, 10));
+
+export function toRun(row: RunRow): Run {
+  return {
+    id: row.id,
+    catchmentId: row.catchment_id,
+    scenarioId: row.scenario_id,
+    scenarioName: row.scenario_name,
+    isBaseline: Boolean(row.is_baseline),
+    attribution: Boolean(row.attribution),
+    ensembleSize: row.ensemble_size,
+    status: row.status,
+    progress: row.progress,
+    simulationCount: row.simulation_count,
+    errorMessage: row.error_message,
+    engineVersion: row.engine_version,
+    inputHash: row.input_hash,
+    period: row.period_from && row.period_to ? { from: day(row.period_from), to: day(row.period_to) } : null,
+    queuedAt: iso(row.queued_at)!,
+    startedAt: iso(row.started_at),
+    finishedAt: iso(row.finished_at),
+  };
+}
+
+/** Starting, reading and cancelling runs; the simulating is the executor's. */
+export class RunService {
+  constructor(
+    private readonly scenarios: ScenarioService,
+    private readonly inputs: CatchmentInputSource,
+    private readonly executor: RunExecutor,
+  ) {}
+
+  /**
+   * Validates everything a run needs, then queues it — or returns the finished (or still running)
+   * run with identical inputs instead of computing it again.
+   */
+  async start(scope: TenantScope, catchmentId: number, request: z.output<typeof startRunSchema>, userId: number): Promise<{ run: Run; reused: boolean }> {
+    const scenario = await this.scenarios.get(scope, catchmentId, request.scenarioId);
+    if (scenario.archived) throw validationFailed('This scenario is archived; restore it before running it.', 'scenarioId');
+    const baseline = scenario.isBaseline ? null : await this.scenarios.ensureBaseline(scope, catchmentId);
+    let plan;
+    try {
+      plan = planRun({ changes: scenario.changes, baselineChanges: baseline?.changes ?? null, ...request });
+    } catch (error) {
+      if (error instanceof RunPlanError) throw validationFailed(error.message, 'attribution');
+      throw error;
+    }
+    const period = plan.members[0].input.period ?? null;
+    const stored = await this.inputs(scope, catchmentId, period);
+    const members = plan.members.map((m) => ({ plan: m, input: { ...stored, ...m.input } }));
+    try {
+      // The first member checks what all share (catchment, forcing, period); the rest differ only in validated changes.
+      parseSimulationInput(members[0].input);
+    } catch (error) {
+      if (error instanceof SimulationInputError) throw validationFailed(`The inputs cannot be simulated: ${error.issues[0].path}: ${error.issues[0].message}`, error.issues[0].path, { issues: error.issues });
+      throw error;
+    }
+    const hash = inputHash({ engineVersion: ENGINE_VERSION, drivers: plan.drivers, members: members.map((m) => [m.plan.key, m.input]) });
+    const same = await scope.from<RunRow>('runs').where({ input_hash: hash }).whereIn('status', ['queued', 'running', 'done']).orderBy('id', 'desc').first();
+    if (same) return { run: toRun(same), reused: true };
+
+    const id = await scope.insert('runs', {
+      catchment_id: catchmentId, scenario_id: scenario.id, scenario_name: scenario.name, is_baseline: scenario.isBaseline,
+      changes: JSON.stringify(scenario.changes), baseline_changes: baseline ? JSON.stringify(baseline.changes) : null,
+      attribution: request.attribution, ensemble_size: request.ensembleSize, ensemble_seed: request.ensembleSeed,
+      status: 'queued', progress: 0, simulation_count: members.length, engine_version: ENGINE_VERSION, input_hash: hash,
+      period_from: period?.from ?? null, period_to: period?.to ?? null, created_by: userId,
+    });
+    const run = await this.get(scope, catchmentId, id);
+    this.executor.enqueue({ runId: id, organisationId: scope.organisationId, members });
+    return { run, reused: false };
+  }
+
+  async get(scope: TenantScope, catchmentId: number, id: number): Promise<Run> {
+    return toRun(await this.row(scope, catchmentId, id));
+  }
+
+  async row(scope: TenantScope, catchmentId: number, id: number): Promise<RunRow> {
+    const row = await scope.findOr404<RunRow>('runs', id, 'Run');
+    if (row.catchment_id !== catchmentId) throw notFound('Run');
+    return row;
+  }
+
+  async list(scope: TenantScope, catchmentId: number): Promise<Run[]> {
+    await scope.findOr404('catchments', catchmentId, 'Catchment');
+    const rows = await scope.from<RunRow>('runs').where('catchment_id', catchmentId).orderBy('id', 'desc').limit(200);
+    return rows.map(toRun);
+  }
+
+  async cancel(scope: TenantScope, catchmentId: number, id: number): Promise<Run> {
+    const row = await this.row(scope, catchmentId, id);
+    if (row.status !== 'queued' && row.status !== 'running') throw conflict(`This run is already ${row.status}.`);
+    if (!(await this.executor.cancel(id))) {
+      // Not held by this process (e.g. left over from before a restart): close it here.
+      await scope.from('runs').where('id', id).update({ status: 'cancelled', finished_at: scope.db.fn.now() });
+    }
+    return this.get(scope, catchmentId, id);
+  }
+}

@@ -1,0 +1,99 @@
+import type { Knex } from 'knex';
+import type { BandMonthRow, SimulationSummary } from '../../../shared/analysis/simulation-summary';
+import type { MemberPlan } from '../../../shared/analysis/run-plan';
+import { SOURCES, type Source } from '../../../shared/melt/result';
+import type { TenantScope } from '../tenant-scope';
+
+/** MySQL allows 65,535 placeholders per statement; 14 columns × 2000 rows stays well below. */
+const CHUNK = 2000;
+
+const DAILY_COLUMN: Record<Source, string> = { snow: 'snow_m3', ice: 'ice_m3', debrisIce: 'debris_ice_m3', rain: 'rain_m3' };
+
+async function insertChunked(db: Knex | Knex.Transaction, table: string, rows: Record<string, unknown>[]): Promise<void> {
+  for (let i = 0; i < rows.length; i += CHUNK) await db(table).insert(rows.slice(i, i + CHUNK));
+}
+
+/** Stores every member of a finished run in one transaction: member rows, band × month totals, daily series. */
+export async function storeMembers(scope: TenantScope, runId: number, members: { plan: MemberPlan; summary: SimulationSummary }[]): Promise<void> {
+  await scope.transaction(async (s) => {
+    const organisation_id = s.organisationId;
+    const months: Record<string, unknown>[] = [];
+    const daily: Record<string, unknown>[] = [];
+    for (const { plan, summary } of members) {
+      const memberId = await s.insert('run_members', {
+        run_id: runId, member_key: plan.key, kind: plan.kind, combination_mask: plan.combinationMask, ensemble_index: plan.ensembleIndex,
+        parameters: JSON.stringify(plan.input.parameters), start_date: summary.startDate, day_count: summary.dayCount,
+        bands: JSON.stringify(summary.bands),
+      });
+      for (const m of summary.months) {
+        months.push({
+          organisation_id, member_id: memberId, band_index: m.bandIndex, month: m.month, days: m.days,
+          snow_melt_mm: m.snowMeltMm, ice_melt_mm: m.iceMeltMm, debris_ice_melt_mm: m.debrisIceMeltMm, rain_mm: m.rainMm,
+          snowfall_mm: m.snowfallMm, mean_albedo: m.meanAlbedo, absorbed_shortwave_wm2: m.absorbedShortwaveWm2,
+          net_shortwave_wm2: m.netShortwaveWm2, net_longwave_wm2: m.netLongwaveWm2, sensible_heat_wm2: m.sensibleHeatWm2,
+        });
+      }
+      for (let d = 0; d < summary.dayCount; d++) {
+        const row: Record<string, unknown> = { organisation_id, member_id: memberId, day_index: d };
+        for (const source of SOURCES) row[DAILY_COLUMN[source]] = summary.dailyM3[source][d];
+        daily.push(row);
+      }
+    }
+    await insertChunked(s.db, 'run_band_months', months);
+    await insertChunked(s.db, 'run_daily', daily);
+  });
+}
+
+interface MemberRow {
+  id: number;
+  member_key: string;
+  kind: MemberPlan['kind'];
+  combination_mask: number | null;
+  ensemble_index: number | null;
+  start_date: string | Date;
+  day_count: number;
+  bands: string | { elevationM: number; areaM2: number }[];
+}
+
+export interface StoredMember {
+  key: string;
+  kind: MemberPlan['kind'];
+  combinationMask: number | null;
+  ensembleIndex: number | null;
+  summary: SimulationSummary;
+}
+
+const isoDate = (v: string | Date) => (v instanceof Date ? v.toISOString().slice(0, 10) : String(v).slice(0, 10));
+const parsed = <T>(v: string | T): T => (typeof v === 'string' ? (JSON.parse(v) as T) : v);
+
+/** Reads a run's members back; `withMonths: false` skips band × month rows (ensemble hydrographs need only daily series). */
+export async function loadMembers(scope: TenantScope, runId: number, filter: (kind: MemberPlan['kind']) => boolean = () => true): Promise<StoredMember[]> {
+  const all: MemberRow[] = await scope.from<MemberRow>('run_members').where('run_id', runId).orderBy('id');
+  const rows = all.filter((r) => filter(r.kind));
+  if (rows.length === 0) return [];
+  const ids = rows.map((r) => r.id);
+  const monthRows = await scope.from('run_band_months').whereIn('member_id', ids).orderBy(['member_id', 'band_index', 'month']);
+  const dailyRows = await scope.from('run_daily').whereIn('member_id', ids).orderBy(['member_id', 'day_index']);
+  const byMember = new Map<number, StoredMember>();
+  for (const r of rows) {
+    const summary: SimulationSummary = {
+      startDate: isoDate(r.start_date), dayCount: r.day_count, bands: parsed(r.bands), months: [],
+      dailyM3: { snow: new Array(r.day_count).fill(0), ice: new Array(r.day_count).fill(0), debrisIce: new Array(r.day_count).fill(0), rain: new Array(r.day_count).fill(0) },
+    };
+    byMember.set(r.id, { key: r.member_key, kind: r.kind, combinationMask: r.combination_mask, ensembleIndex: r.ensemble_index, summary });
+  }
+  for (const m of monthRows as Record<string, number & string>[]) {
+    const row: BandMonthRow = {
+      bandIndex: m.band_index, month: m.month, days: m.days, snowMeltMm: m.snow_melt_mm, iceMeltMm: m.ice_melt_mm,
+      debrisIceMeltMm: m.debris_ice_melt_mm, rainMm: m.rain_mm, snowfallMm: m.snowfall_mm, meanAlbedo: m.mean_albedo,
+      absorbedShortwaveWm2: m.absorbed_shortwave_wm2, netShortwaveWm2: m.net_shortwave_wm2, netLongwaveWm2: m.net_longwave_wm2,
+      sensibleHeatWm2: m.sensible_heat_wm2,
+    };
+    byMember.get(m.member_id)!.summary.months.push(row);
+  }
+  for (const d of dailyRows as Record<string, number>[]) {
+    const daily = byMember.get(d.member_id)!.summary.dailyM3;
+    for (const source of SOURCES) daily[source][d.day_index] = d[DAILY_COLUMN[source]];
+  }
+  return [...byMember.values()];
+}

@@ -1,0 +1,13 @@
+import { validationFailed } from '../../errors';
+import type { BandService } from '../band-service';
+import { buildSimulationInputs, requireReadyInputs } from '../simulation-inputs';
+import type { CatchmentInputSource } from './catchment-inputs';
+
+/** Engine inputs from the catchment's stored bands and climate datasets; refuses missing data and unbridgeable gaps by name. */
+export function storedCatchmentInputs(bands: BandService): CatchmentInputSource {
+  return async (scope, catchmentId, period) => {
+    if (!period) throw validationFailed('Set the simulation period (in the scenario or the baseline) before running.', 'changes.period');
+    const input = requireReadyInputs(await buildSimulationInputs(scope, bands, catchmentId, period));
+    return { catchment: input.catchment, forcing: input.forcing };
+  };
+}

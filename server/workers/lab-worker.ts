@@ -1,0 +1,68 @@
+import type { MessagePort } from 'node:worker_threads';
+import { surfaceResponse } from '../../shared/lab/surface-response';
+import { compareMeltModels } from '../../shared/lab/reference-models';
+import { evaluateDischarge, splitSample, calibrate } from '../../shared/lab/calibrate';
+import { baselineMelt, cellMelt, prepareSweep, type SweepPlan, type SweepSetup } from '../../shared/lab/sweep';
+import type { CalibrationKey, CalibrationSet } from '../../shared/lab/calibration-set';
+import type { DatedValue } from '../../shared/lab/paired-series';
+import type { BandSite, LabSite, Period } from '../../shared/lab/site';
+
+/** The lab's computations, each run in a worker thread so the API keeps answering. */
+export type LabTask =
+  | { kind: 'surface'; site: BandSite }
+  | { kind: 'reference'; site: BandSite }
+  | { kind: 'skill'; site: LabSite; observed: DatedValue[]; period: Period }
+  | { kind: 'sweepSetup'; site: LabSite; plan: SweepPlan }
+  | { kind: 'sweepCells'; setup: SweepSetup; cells: number[][] }
+  | {
+    kind: 'calibrate'; site: LabSite; observed: DatedValue[]; keys: CalibrationKey[]; start: CalibrationSet;
+    period: Period; validationPeriod?: Period; maxEvaluations: number; seed: number;
+  };
+
+export interface LabTaskMessage {
+  task: LabTask;
+  /** Receives a fraction 0 … 1 as work proceeds. */
+  progress: MessagePort;
+}
+
+function run(task: LabTask, report: (fraction: number) => void): unknown {
+  switch (task.kind) {
+    case 'surface':
+      return surfaceResponse(task.site);
+    case 'reference':
+      return compareMeltModels(task.site);
+    case 'skill':
+      return evaluateDischarge(task.site, task.observed, task.period);
+    case 'sweepSetup': {
+      const setup = prepareSweep(task.site, task.plan);
+      return { setup, baseline: baselineMelt(setup) };
+    }
+    case 'sweepCells':
+      return task.cells.map((values, k) => {
+        const melt = cellMelt(task.setup, values);
+        report((k + 1) / task.cells.length);
+        return melt;
+      });
+    case 'calibrate': {
+      const options = {
+        keys: task.keys, period: task.period, start: task.start, maxEvaluations: task.maxEvaluations, seed: task.seed,
+        onProgress: (p: { evaluations: number; maxEvaluations: number }) => report(Math.min(1, p.evaluations / p.maxEvaluations)),
+      };
+      if (!task.validationPeriod) return { calibration: calibrate(task.site, task.observed, options), validation: null };
+      const outcome = splitSample(task.site, task.observed, { ...options, validationPeriod: task.validationPeriod });
+      return {
+        calibration: outcome.calibration,
+        validation: { period: task.validationPeriod, before: outcome.validationBefore, after: outcome.validationAfter },
+      };
+    }
+  }
+}
+
+export default function labTask({ task, progress }: LabTaskMessage): unknown {
+  try {
+    return run(task, (fraction) => progress.postMessage(fraction));
+  } finally {
+    progress.close();
+  }
+}
+

@@ -1,0 +1,77 @@
+import type { ParameterOverrides, ScenarioChanges } from '../schemas/scenarios';
+import { changedDrivers, combinedScenario, type Driver } from './drivers';
+import { engineInputOf, type ScenarioEngineInput } from './engine-input';
+import { ensembleParameterSets } from './ensemble-parameters';
+
+export const MEMBER_KINDS = ['scenario', 'baseline', 'combination', 'ensemble-scenario', 'ensemble-baseline'] as const;
+export type MemberKind = (typeof MEMBER_KINDS)[number];
+
+/** One simulation of a run. */
+export interface MemberPlan {
+  key: string;
+  kind: MemberKind;
+  /** Factor-separation combination: bit i set = drivers[i] taken from the variant. */
+  combinationMask: number | null;
+  ensembleIndex: number | null;
+  input: ScenarioEngineInput;
+}
+
+export interface RunRequest {
+  changes: ScenarioChanges;
+  /** The catchment baseline's changes; null when the scenario run is the baseline itself. */
+  baselineChanges: ScenarioChanges | null;
+  attribution: boolean;
+  ensembleSize: number;
+  ensembleSeed: number;
+}
+
+export interface RunPlan {
+  members: MemberPlan[];
+  /** Drivers separated by attribution, in mask-bit order (empty without attribution). */
+  drivers: Driver[];
+}
+
+export class RunPlanError extends Error {}
+
+/**
+ * The simulations a run needs. A variant is always paired with its baseline simulated on the
+ * same period and parameters (the variant's, over the baseline's), so added melt reflects only the changes; attribution adds the
+ * 2^N − 2 mixed combinations of its N changed drivers (Stein & Alpert 1993); an ensemble adds, per
+ * Latin hypercube parameter set, the scenario and (for a variant) the baseline.
+ */
+export function planRun(request: RunRequest): RunPlan {
+  const { changes, baselineChanges, attribution, ensembleSize, ensembleSeed } = request;
+  // A variant inherits the baseline's parameters and period where it sets none of its own.
+  const variant = engineInputOf(
+    { ...changes, period: changes.period ?? baselineChanges?.period ?? null },
+    { ...baselineChanges?.parameters, ...changes.parameters },
+  );
+  const members: MemberPlan[] = [{ key: 'scenario', kind: 'scenario', combinationMask: null, ensembleIndex: null, input: variant }];
+  const baselineOn = (parameters: ParameterOverrides): ScenarioEngineInput | null =>
+    baselineChanges ? { ...variant, scenario: engineInputOf(baselineChanges).scenario, parameters } : null;
+  const baseline = baselineOn(variant.parameters);
+  if (baseline) members.push({ key: 'baseline', kind: 'baseline', combinationMask: null, ensembleIndex: null, input: baseline });
+
+  let drivers: Driver[] = [];
+  if (attribution) {
+    if (!baseline) throw new RunPlanError('Attribution splits a variant\'s added melt; the baseline has nothing to split.');
+    drivers = changedDrivers(baseline.scenario, variant.scenario);
+    if (drivers.length === 0) throw new RunPlanError('This variant changes nothing relative to the baseline, so there is nothing to attribute.');
+    const full = (1 << drivers.length) - 1;
+    for (let mask = 1; mask < full; mask++) {
+      members.push({
+        key: `combination:${mask}`, kind: 'combination', combinationMask: mask, ensembleIndex: null,
+        input: { ...variant, scenario: combinedScenario(baseline.scenario, variant.scenario, drivers, mask) },
+      });
+    }
+  }
+
+  if (ensembleSize > 0) {
+    ensembleParameterSets(ensembleSize, ensembleSeed, variant.parameters).forEach((parameters, i) => {
+      members.push({ key: `ensemble:${i}:scenario`, kind: 'ensemble-scenario', combinationMask: null, ensembleIndex: i, input: { ...variant, parameters } });
+      const paired = baselineOn(parameters);
+      if (paired) members.push({ key: `ensemble:${i}:baseline`, kind: 'ensemble-baseline', combinationMask: null, ensembleIndex: i, input: paired });
+    });
+  }
+  return { members, drivers };
+}

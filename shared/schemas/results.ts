@@ -1,0 +1,61 @@
+import { z } from 'zod';
+import { runSchema } from './runs';
+
+const numbers = z.array(z.number());
+const range = z.object({ p5: z.number(), p50: z.number(), p95: z.number() });
+
+export const totalsSchema = z.object({
+  addedDepthMm: z.number(),
+  addedVolumeM3: z.number(),
+  addedVolumeMillionM3: z.number(),
+  meanAddedDischargeM3s: z.number(),
+  shareOfSeasonalRunoff: z.number(),
+  baselineHalfMeltDate: z.string().nullable(),
+  variantHalfMeltDate: z.string().nullable(),
+  timingShiftDays: z.number().nullable(),
+  meanExtraAbsorbedShortwaveWm2: z.number(),
+  meltSeason: z.object({ from: z.string(), to: z.string() }).nullable(),
+});
+export type Totals = z.infer<typeof totalsSchema>;
+
+/** Figures of the totals table that get a 5–95 % range from an ensemble. */
+export const RANGED_TOTALS = ['addedDepthMm', 'addedVolumeM3', 'meanAddedDischargeM3s', 'shareOfSeasonalRunoff', 'meanExtraAbsorbedShortwaveWm2', 'timingShiftDays'] as const;
+
+const bySource = z.object({ snow: z.number(), ice: z.number(), debrisIce: z.number(), rain: z.number() });
+
+/** Everything the results screens and exports show for one run (variant minus its paired baseline). */
+export const runResultsSchema = z.object({
+  run: runSchema,
+  catchmentName: z.string(),
+  startDate: z.string(),
+  dayCount: z.number().int(),
+  bands: z.array(z.object({ elevationM: z.number(), areaM2: z.number() })),
+  totals: totalsSchema,
+  /** Daily mean discharge, m³ s⁻¹. */
+  dischargeM3s: z.object({ baseline: numbers, variant: numbers }),
+  /** Cumulative added runoff volume through the period, m³. */
+  cumulativeAddedM3: numbers,
+  /** Added melt over the period per band by source, mm w.e. over the band. */
+  bandAddedMm: z.array(bySource),
+  months: z.array(z.string()),
+  /** Per band (outer) and month (inner); null when the band had no sunlit snow or ice. */
+  albedo: z.object({ baseline: z.array(z.array(z.number().nullable())), variant: z.array(z.array(z.number().nullable())) }),
+  /** Area-weighted catchment means per month, W m⁻². */
+  energy: z.object({
+    baseline: z.object({ netShortwave: numbers, netLongwave: numbers, sensibleHeat: numbers }),
+    variant: z.object({ netShortwave: numbers, netLongwave: numbers, sensibleHeat: numbers }),
+  }),
+  attribution: z.object({
+    terms: z.array(z.object({ label: z.string(), mask: z.number().int(), drivers: z.number().int(), addedVolumeM3: z.number(), addedDepthMm: z.number() })),
+    fullChangeM3: z.number(),
+  }).nullable(),
+  ensemble: z.object({
+    size: z.number().int(),
+    dischargeM3s: z.object({ p5: numbers, p50: numbers, p95: numbers }),
+    addedDischargeM3s: z.object({ p5: numbers, p50: numbers, p95: numbers }),
+    totals: z.record(z.string(), range),
+  }).nullable(),
+  cautions: z.array(z.string()),
+});
+export type RunResults = z.infer<typeof runResultsSchema>;
+export const runResultsReplySchema = z.object({ results: runResultsSchema });
