@@ -1,3 +1,4 @@
+import { availableParallelism } from 'node:os';
 import { z } from 'zod';
 
 /**
@@ -37,6 +38,10 @@ const envSchema = z.object({
   SMTP_PASSWORD: z.string().optional(),
   MAIL_FROM: z.string().min(3).default('Tarnish <no-reply@tarnish.localhost>'),
   MAILS_PER_ADDRESS_PER_HOUR: z.coerce.number().int().positive().default(5),
+  /** Worker threads for simulations; 0 = one fewer than the machine's cores (at least 1), keeping a core for the API. */
+  RUN_WORKER_THREADS: z.coerce.number().int().min(0).max(64).default(0),
+  /** Runs simulated at the same time; their simulations share the worker threads. */
+  RUN_CONCURRENCY: z.coerce.number().int().min(1).max(16).default(2),
 });
 
 export type Env = z.infer<typeof envSchema>;
@@ -70,6 +75,7 @@ export interface AppConfig {
     from: string;
     perAddressPerHour: number;
   };
+  runs: { workerThreads: number; concurrency: number };
 }
 
 /** Parses an environment map into the typed config; throws one readable message listing every bad variable. */
@@ -118,6 +124,7 @@ export function parseConfig(env: Record<string, string | undefined>): AppConfig 
       from: e.MAIL_FROM,
       perAddressPerHour: e.MAILS_PER_ADDRESS_PER_HOUR,
     },
+    runs: { workerThreads: e.RUN_WORKER_THREADS || Math.max(1, availableParallelism() - 1), concurrency: e.RUN_CONCURRENCY },
   };
 }
 

@@ -6,9 +6,10 @@ import { BandService } from './services/band-service';
 import { CatchmentService } from './services/catchment-service';
 import { DatasetService } from './services/dataset-service';
 import { UploadService } from './services/upload-service';
+import { createRunServices, type RunServices, type RunServicesOptions } from './services/runs/run-services';
 
 /** Everything the routes need, built once per app so tests can build their own. */
-export interface AppContext extends TeamServices {
+export interface AppContext extends TeamServices, RunServices {
   config: AppConfig;
   db: Knex;
   auth: AuthService;
@@ -18,7 +19,7 @@ export interface AppContext extends TeamServices {
   uploads: UploadService;
 }
 
-export interface ContextOptions extends TeamServicesOptions {
+export interface ContextOptions extends TeamServicesOptions, RunServicesOptions {
   /** bcrypt work factor; 12 in production, lower locally to keep tests quick. */
   bcryptCost?: number;
 }
@@ -26,14 +27,16 @@ export interface ContextOptions extends TeamServicesOptions {
 export function createContext(config: AppConfig, db: Knex, options: ContextOptions = {}): AppContext {
   const bcryptCost = options.bcryptCost ?? (config.env === 'production' ? 12 : 10);
   const auth = new AuthService(db, bcryptCost);
+  const bands = new BandService();
   return {
     config,
     db,
     auth,
     ...createTeamServices(config, db, auth, options),
     catchments: new CatchmentService(),
-    bands: new BandService(),
+    bands,
     datasets: new DatasetService(),
     uploads: new UploadService(),
+    ...createRunServices(config, db, bands, options),
   };
 }

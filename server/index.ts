@@ -8,6 +8,9 @@ export async function startServer(options: ContextOptions = {}): Promise<{ close
   const config = loadConfig();
   const db = createDb(config.db);
   const ctx = createContext(config, db, options);
+  // Runs left queued or running by an earlier process cannot resume: their inputs were in its memory.
+  await ctx.runExecutor.recover();
+  ctx.simulationPool.warm();
   const app = createApp(ctx, { clientDir: 'dist' });
   const server = app.listen(config.port, config.host);
   await new Promise<void>((resolve, reject) => server.once('listening', resolve).once('error', reject));
@@ -17,6 +20,7 @@ export async function startServer(options: ContextOptions = {}): Promise<{ close
     ctx,
     close: async () => {
       await new Promise<void>((resolve) => server.close(() => resolve()));
+      await ctx.simulationPool.close();
       await db.destroy();
     },
   };

@@ -10,6 +10,8 @@ import { healthRoutes } from './health';
 import { invitationRoutes } from './invitations';
 import { memberRoutes } from './members';
 import { passwordResetRoutes } from './password-reset';
+import { runRoutes } from './runs';
+import { scenarioRoutes } from './scenarios';
 
 /** Every /api router, in one list. */
 export function apiRoutes(ctx: AppContext): Router {
@@ -24,5 +26,7 @@ export function apiRoutes(ctx: AppContext): Router {
   router.use(catchmentRoutes(ctx));
   router.use(catchmentBandRoutes(ctx));
   router.use(catchmentDatasetRoutes(ctx));
+  router.use(scenarioRoutes(ctx));
+  router.use(runRoutes(ctx));
   return router;
 }
