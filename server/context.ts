@@ -6,6 +6,8 @@ import { BandService } from './services/band-service';
 import { CatchmentService } from './services/catchment-service';
 import { DatasetService } from './services/dataset-service';
 import { UploadService } from './services/upload-service';
+import { LabService } from './services/lab/lab-service';
+import { LabPool } from './services/lab/lab-pool';
 import { createRunServices, type RunServices, type RunServicesOptions } from './services/runs/run-services';
 
 /** Everything the routes need, built once per app so tests can build their own. */
@@ -17,11 +19,14 @@ export interface AppContext extends TeamServices, RunServices {
   bands: BandService;
   datasets: DatasetService;
   uploads: UploadService;
+  lab: LabService;
 }
 
 export interface ContextOptions extends TeamServicesOptions, RunServicesOptions {
   /** bcrypt work factor; 12 in production, lower locally to keep tests quick. */
   bcryptCost?: number;
+  /** Worker threads for the lab's computations; one less than the cores by default. */
+  labThreads?: number;
 }
 
 export function createContext(config: AppConfig, db: Knex, options: ContextOptions = {}): AppContext {
@@ -37,6 +42,7 @@ export function createContext(config: AppConfig, db: Knex, options: ContextOptio
     bands,
     datasets: new DatasetService(),
     uploads: new UploadService(),
+    lab: new LabService(db, new BandService(), new LabPool(options.labThreads)),
     ...createRunServices(config, db, bands, options),
   };
 }

@@ -8,6 +8,8 @@ export async function startServer(options: ContextOptions = {}): Promise<{ close
   const config = loadConfig();
   const db = createDb(config.db);
   const ctx = createContext(config, db, options);
+  // Lab jobs left running by an earlier process cannot resume: their work was in its memory.
+  await ctx.lab.jobs.recover();
   // Runs left queued or running by an earlier process cannot resume: their inputs were in its memory.
   await ctx.runExecutor.recover();
   ctx.simulationPool.warm();
@@ -20,6 +22,7 @@ export async function startServer(options: ContextOptions = {}): Promise<{ close
     ctx,
     close: async () => {
       await new Promise<void>((resolve) => server.close(() => resolve()));
+      await ctx.lab.pool.close();
       await ctx.simulationPool.close();
       await db.destroy();
     },

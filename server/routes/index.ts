@@ -8,6 +8,7 @@ import { catchmentRoutes } from './catchments';
 import { devInboxRoutes } from './dev-inbox';
 import { healthRoutes } from './health';
 import { invitationRoutes } from './invitations';
+import { labRoutes } from './lab';
 import { memberRoutes } from './members';
 import { passwordResetRoutes } from './password-reset';
 import { runRoutes } from './runs';
@@ -26,6 +27,7 @@ export function apiRoutes(ctx: AppContext): Router {
   router.use(catchmentRoutes(ctx));
   router.use(catchmentBandRoutes(ctx));
   router.use(catchmentDatasetRoutes(ctx));
+  router.use(labRoutes(ctx));
   router.use(scenarioRoutes(ctx));
   router.use(runRoutes(ctx));
   return router;
