@@ -5,7 +5,7 @@ import { authOf, requireAuth } from '../middleware/require-auth';
 import { requireRole } from '../middleware/require-role';
 import { idParam } from '../middleware/validate';
 import { readBandFile } from '../services/csv/band-file';
-import { safeFileName } from '../services/csv/csv-writing';
+import { safeFileName } from '../../shared/csv/csv-writing';
 import { decodeCsvText } from '../services/csv/read-table';
 import { READERS, WRITERS } from './catchments';
 

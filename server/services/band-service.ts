@@ -1,6 +1,6 @@
 import { BAND_COLUMNS, bandIssuesToProblems, bandTableSchema, type BandRow } from '../../shared/schemas/catchment-bands';
 import { validationFailed } from '../errors';
-import { csvDocument } from './csv/csv-writing';
+import { csvDocument } from '../../shared/csv/csv-writing';
 import type { TenantScope } from './tenant-scope';
 
 interface BandDbRow {

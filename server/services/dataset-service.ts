@@ -1,7 +1,7 @@
 import { variableSpec, type Variable } from '../../shared/schemas/dataset-variables';
 import type { Dataset, MonthlySummary, Series } from '../../shared/schemas/datasets';
 import { notFound } from '../errors';
-import { csvDocument } from './csv/csv-writing';
+import { csvDocument } from '../../shared/csv/csv-writing';
 import { parseTimestamp, STEP_MINUTES } from './csv/timestamps';
 import { readDatasetValues } from './dataset-values';
 import { stepsBetween, valuesOnGrid } from './series-grid';
