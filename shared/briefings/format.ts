@@ -7,8 +7,14 @@ export function formatNumber(value: number | null, digits = 2): string {
   return text.replace(/^-/, '−');
 }
 
-/** "12.3 (9.8 – 14.1)" when a range exists, else "12.3". */
+/** "12.3 (9.8 to 14.1)" when a range exists, else "12.3". */
 export function formatRanged(r: Ranged, digits = 2): string {
   const main = formatNumber(r.value, digits);
   return r.low === null || r.high === null ? main : `${main} (${formatNumber(r.low, digits)} to ${formatNumber(r.high, digits)})`;
+}
+
+/** The same ranged figure in another unit, e.g. m³ → million m³ with factor 1e-6. */
+export function scaleRanged(r: Ranged, factor: number): Ranged {
+  const scale = (x: number | null) => (x === null ? null : x * factor);
+  return { value: scale(r.value), low: scale(r.low), high: scale(r.high) };
 }

@@ -10,7 +10,7 @@ export type SectionKind = z.infer<typeof sectionKindSchema>;
 export const CHART_KEYS = ['monthly-added-melt', 'daily-discharge', 'band-added-melt', 'surface-split'] as const;
 export const TABLE_KEYS = ['totals', 'monthly-added-melt', 'band-added-melt'] as const;
 export const CONTENT_LABELS: Record<string, string> = {
-  'monthly-added-melt': 'Added melt by month',
+  'monthly-added-melt': 'Added runoff by month',
   'daily-discharge': 'Daily discharge, baseline and variants',
   'band-added-melt': 'Added melt by elevation band',
   'surface-split': 'Added melt by surface',
@@ -30,11 +30,12 @@ export const draftSectionSchema = z.discriminatedUnion('kind', [
 export type DraftSection = z.infer<typeof draftSectionSchema>;
 
 export const MAX_VARIANTS = 6;
+/** The finished variant runs a briefing draws on; each carries its paired baseline. */
 export const runSelectionSchema = z.object({
-  baselineRunId: z.number({ error: 'Choose the baseline run.' }).int().positive(),
-  variantRunIds: z.array(z.number().int().positive())
-    .min(1, { error: 'Choose at least one variant run.' })
-    .max(MAX_VARIANTS, { error: `Choose at most ${MAX_VARIANTS} variant runs.` }),
+  runIds: z.array(z.number().int().positive())
+    .min(1, { error: 'Choose at least one finished variant run.' })
+    .max(MAX_VARIANTS, { error: `Choose at most ${MAX_VARIANTS} runs.` })
+    .refine((ids) => new Set(ids).size === ids.length, { error: 'Choose each run once.' }),
 });
 export type RunSelection = z.infer<typeof runSelectionSchema>;
 
@@ -64,8 +65,8 @@ export const commentSchema = z.object({
 
 // ---- The frozen snapshot of a published version ----
 
-/** A number with the 5–95 % ensemble range around it when an ensemble exists. */
-export const rangedSchema = z.object({ value: z.number(), low: z.number().nullable(), high: z.number().nullable() });
+/** A number (null when it cannot be found, e.g. no melt season) with the 5–95 % ensemble range around it when an ensemble exists. */
+export const rangedSchema = z.object({ value: z.number().nullable(), low: z.number().nullable(), high: z.number().nullable() });
 export type Ranged = z.infer<typeof rangedSchema>;
 
 /** The headline numbers of one variant against the baseline. */

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { CAUTIONS } from '../../../shared/text/cautions';
+import { briefingComparison } from '../../../tests/fixtures/briefing-comparison';
 import { testSnapshot } from '../../../tests/fixtures/briefing-snapshot';
 
 describe('assembleSnapshot', () => {
@@ -12,17 +13,26 @@ describe('assembleSnapshot', () => {
     expect(s.cautions).toEqual(CAUTIONS);
   });
 
-  it('charts the added melt per month as variant minus baseline, in million m³', () => {
+  it('charts the added runoff per month; the months add up to the run\'s season total', () => {
     const chart = s.sections.find((x) => x.kind === 'chart' && x.heading === 'Added melt by month');
     if (chart?.kind !== 'chart') throw new Error('chart missing');
     expect(chart.chart.categories).toHaveLength(12);
     const total = chart.chart.series[0].values.reduce((a: number, b) => a + (b ?? 0), 0);
-    // The month sums must add up to the season's added volume (rounded per month to 100 m³).
-    expect(total * 1e6).toBeCloseTo(s.headlines[0].addedVolumeM3.value, -3);
+    const cumulative = briefingComparison().runs[0].results.cumulativeAddedM3;
+    // Rounded per month to 100 m³, so agree to about a thousand m³.
+    expect(total * 1e6).toBeCloseTo(cumulative[cumulative.length - 1], -3);
+  });
+
+  it('takes headline numbers from the run totals, share of runoff as a percentage', () => {
+    const totals = briefingComparison().runs[0].results.totals;
+    expect(s.headlines[0].addedVolumeM3.value).toBe(totals.addedVolumeM3);
+    expect(s.headlines[0].shareOfSeasonalRunoffPct.value).toBeCloseTo(totals.shareOfSeasonalRunoff * 100, 10);
+    expect(s.headlines[0].addedVolumeM3.low).toBeNull();
   });
 
   it('records engine version and input hash of every run, and the data sources with their accuracy', () => {
-    expect(s.assumptions.runs.map((r) => r.inputHash)).toHaveLength(3);
+    expect(s.assumptions.runs.map((r) => r.inputHash)).toHaveLength(2);
+    expect(s.assumptions.scenarios.map((x) => x.role)).toEqual(['baseline', 'variant', 'variant']);
     expect(s.assumptions.engineVersion).toMatch(/^\d+\.\d+\.\d+/);
     expect(s.assumptions.dataSources[0].accuracy).toContain('±');
   });

@@ -3,7 +3,7 @@ import {
 } from '../../../shared/schemas/briefings';
 import { CAUTIONS } from '../../../shared/text/cautions';
 import type { ComparisonForBriefing } from './comparison';
-import { resultChart, resultTable } from './result-views';
+import { headlineOf, resultChart, resultTable } from './result-views';
 
 export interface AssembleInput {
   title: string;
@@ -35,7 +35,8 @@ function frozenSection(section: DraftSection, c: ComparisonForBriefing): Snapsho
  */
 export function assembleSnapshot(input: AssembleInput): BriefingSnapshot {
   const c = input.comparison;
-  const runs = [c.baseline, ...c.variants];
+  const first = c.runs[0].results;
+  const lastDay = new Date(Date.parse(`${first.startDate}T00:00:00Z`) + (first.dayCount - 1) * 86_400_000).toISOString().slice(0, 10);
   const snapshot: BriefingSnapshot = {
     format: SNAPSHOT_FORMAT,
     title: input.title,
@@ -45,19 +46,22 @@ export function assembleSnapshot(input: AssembleInput): BriefingSnapshot {
     publishedBy: input.publishedBy,
     organisation: input.organisation,
     catchment: input.catchment,
-    period: c.period,
-    baselineName: c.baseline.scenarioName,
-    headlines: c.variants.map((v) => ({ variantName: v.scenarioName, ...v.headline })),
+    period: { from: first.startDate, to: lastDay },
+    baselineName: c.baselineName,
+    headlines: c.runs.map((r) => headlineOf(r.results)),
     sections: input.sections.map((s) => frozenSection(s, c)),
     assumptions: {
-      scenarios: runs.map((r, i) => ({ name: r.scenarioName, role: i === 0 ? 'baseline' : 'variant', values: r.scenarioValues })),
+      scenarios: [
+        { name: c.baselineName, role: 'baseline', values: c.baselineValues },
+        ...c.runs.map((r) => ({ name: r.results.run.scenarioName, role: 'variant' as const, values: r.scenarioValues })),
+      ],
       parameters: c.parameters,
       dataSources: c.dataSources,
-      runs: runs.map((r) => ({
-        id: r.id, scenarioName: r.scenarioName, engineVersion: r.engineVersion, inputHash: r.inputHash,
-        finishedAt: r.finishedAt, ensembleSize: r.ensembleSize,
+      runs: c.runs.map(({ results: { run } }) => ({
+        id: run.id, scenarioName: run.scenarioName, engineVersion: run.engineVersion, inputHash: run.inputHash,
+        finishedAt: run.finishedAt ?? '', ensembleSize: run.ensembleSize,
       })),
-      engineVersion: [...new Set(runs.map((r) => r.engineVersion))].join(', '),
+      engineVersion: [...new Set(c.runs.map((r) => r.results.run.engineVersion))].join(', '),
     },
     cautions: [...CAUTIONS],
   };

@@ -9,9 +9,9 @@ describe('briefingCsv', () => {
     const lines = csv.split('\r\n');
     expect(lines[0]).toBe('Briefing,Added melt in the Hollin valley');
     expect(csv).toContain('Catchment,Hollin valley');
-    expect(csv).toContain('Baseline scenario,Present surfaces');
+    expect(csv).toContain('Baseline scenario,Baseline');
     expect(csv).toContain('Version,2');
-    expect(csv).toMatch(/Input hash: Present surfaces,sha256:/);
+    expect(csv).toMatch(/Input hash: Black carbon 150 ng\/g,[0-9a-f]{64}/);
     for (const caution of CAUTIONS) expect(csv).toContain(caution.includes(',') ? `"${caution}"` : caution);
   });
 
@@ -20,7 +20,7 @@ describe('briefingCsv', () => {
     const csv = briefingCsv(s);
     expect(csv).toContain(`Black carbon 150 ng/g,${s.headlines[0].addedVolumeM3.value}`);
     expect(csv).toContain('\r\nTotals per variant\r\n');
-    expect(csv).toContain('\r\nAdded melt by elevation band (table)\r\nElevation band,');
+    expect(csv).toContain('\r\nAdded melt by elevation band (table)\r\nElevation band (mean elevation),');
   });
 
   it('escapes formula-like cells so spreadsheets do not run them', () => {

@@ -1,7 +1,7 @@
 import type { BriefingSnapshot, TableData } from '../../../shared/schemas/briefings';
 import { chartTable } from '../../../shared/briefings/chart-table';
 import { CAUTIONS_HEADING } from '../../../shared/text/cautions';
-import { csvLine } from '../csv/csv-writing';
+import { csvLine } from '../../../shared/csv/csv-writing';
 
 function tableLines(heading: string, table: TableData): string[] {
   return [

@@ -1,97 +1,107 @@
-import type { ChartData, ChartKey, TableData, TableKey } from '../../../shared/schemas/briefings';
+import type { ChartData, ChartKey, Headline, Ranged, TableData, TableKey } from '../../../shared/schemas/briefings';
+import type { RunResults } from '../../../shared/schemas/results';
 import { chartTable } from '../../../shared/briefings/chart-table';
-import type { BandMonthVolumes, ComparisonForBriefing, RunForBriefing } from './comparison';
+import type { ComparisonForBriefing } from './comparison';
 
 const MILLION = 1e6;
-const meltOf = (r: BandMonthVolumes) => r.snowMeltM3 + r.iceMeltM3 + r.debrisIceMeltM3;
 const round = (x: number, digits: number) => Number(x.toFixed(digits));
+const dateOf = (start: string, day: number) => new Date(Date.parse(`${start}T00:00:00Z`) + day * 86_400_000).toISOString().slice(0, 10);
+const bandLabel = (b: { elevationM: number }) => `${Math.round(b.elevationM).toLocaleString('en-GB')} m`;
+const variantsOf = (c: ComparisonForBriefing) => c.runs.map((r) => r.results);
 
-/** Sum of `pick` per key over a run's band × month rows. */
-function sumBy(run: RunForBriefing, key: (r: BandMonthVolumes) => string, pick: (r: BandMonthVolumes) => number): Map<string, number> {
-  const out = new Map<string, number>();
-  for (const row of run.bandMonths) out.set(key(row), (out.get(key(row)) ?? 0) + pick(row));
-  return out;
-}
-
-function monthlyAddedMelt(c: ComparisonForBriefing): ChartData {
-  const months = [...new Set(c.baseline.bandMonths.map((r) => r.month))].sort();
-  const base = sumBy(c.baseline, (r) => r.month, meltOf);
+/** Added runoff per calendar month (variant minus baseline daily discharge), million m³. */
+function monthlyAdded(c: ComparisonForBriefing): ChartData {
+  const first = c.runs[0].results;
+  const months = [...new Set(Array.from({ length: first.dayCount }, (_, d) => dateOf(first.startDate, d).slice(0, 7)))];
   return {
-    type: 'bar', xName: 'Month', yName: 'Added melt', unit: 'million m³', categories: months,
-    series: c.variants.map((v) => {
-      const variant = sumBy(v, (r) => r.month, meltOf);
-      return { name: v.scenarioName, values: months.map((m) => round(((variant.get(m) ?? 0) - (base.get(m) ?? 0)) / MILLION, 4)) };
+    type: 'bar', xName: 'Month', yName: 'Added runoff', unit: 'million m³', categories: months,
+    series: variantsOf(c).map((r) => {
+      const perMonth = new Map<string, number>();
+      r.dischargeM3s.variant.forEach((q, d) => {
+        const month = dateOf(r.startDate, d).slice(0, 7);
+        perMonth.set(month, (perMonth.get(month) ?? 0) + (q - r.dischargeM3s.baseline[d]) * 86400);
+      });
+      return { name: r.run.scenarioName, values: months.map((m) => round((perMonth.get(m) ?? 0) / MILLION, 4)) };
     }),
   };
 }
 
 function bandAddedMelt(c: ComparisonForBriefing): ChartData {
-  const base = sumBy(c.baseline, (r) => String(r.bandIndex), meltOf);
   return {
-    type: 'bar', xName: 'Elevation band', yName: 'Added melt', unit: 'mm w.e.', categories: c.bands.map((b) => b.label),
-    series: c.variants.map((v) => {
-      const variant = sumBy(v, (r) => String(r.bandIndex), meltOf);
-      // m³ over km² → mm: 1 mm over 1 km² is 1000 m³.
-      return { name: v.scenarioName, values: c.bands.map((b, i) => round(((variant.get(String(i)) ?? 0) - (base.get(String(i)) ?? 0)) / (b.areaKm2 * 1000), 1)) };
-    }),
+    type: 'bar', xName: 'Elevation band (mean elevation)', yName: 'Added melt', unit: 'mm w.e.', categories: c.runs[0].results.bands.map(bandLabel),
+    series: variantsOf(c).map((r) => ({ name: r.run.scenarioName, values: r.bandAddedMm.map((b) => round(b.snow + b.ice + b.debrisIce, 1)) })),
   };
 }
 
-const SURFACES = [['Snow', 'snowMeltM3'], ['Clean ice', 'iceMeltM3'], ['Debris-covered ice', 'debrisIceMeltM3']] as const;
+const SURFACES = [['Snow', 'snow'], ['Clean ice', 'ice'], ['Debris-covered ice', 'debrisIce']] as const;
 
 function surfaceSplit(c: ComparisonForBriefing): ChartData {
-  const total = (run: RunForBriefing, field: (typeof SURFACES)[number][1]) => run.bandMonths.reduce((s, r) => s + r[field], 0);
   return {
     type: 'bar', xName: 'Surface', yName: 'Added melt', unit: 'million m³', categories: SURFACES.map(([label]) => label),
-    series: c.variants.map((v) => ({
-      name: v.scenarioName,
-      values: SURFACES.map(([, field]) => round((total(v, field) - total(c.baseline, field)) / MILLION, 4)),
+    series: variantsOf(c).map((r) => ({
+      name: r.run.scenarioName,
+      // mm over m² → m³: divide by 1000.
+      values: SURFACES.map(([, source]) => round(r.bandAddedMm.reduce((s, b, i) => s + (b[source] * r.bands[i].areaM2) / 1000, 0) / MILLION, 4)),
     })),
   };
 }
 
 function dailyDischarge(c: ComparisonForBriefing): ChartData {
-  const { startDate, dischargeM3s } = c.baseline.daily;
-  const start = Date.parse(`${startDate}T00:00:00Z`);
-  const dates = dischargeM3s.map((_, d) => new Date(start + d * 86_400_000).toISOString().slice(0, 10));
-  const r3 = (xs: number[] | undefined) => xs?.map((x) => round(x, 3));
+  const first = c.runs[0].results;
+  const r3 = (xs: number[]) => xs.map((x) => round(x, 3));
   return {
-    type: 'line', xName: 'Date', yName: 'Discharge', unit: 'm³/s', categories: dates,
+    type: 'line', xName: 'Date', yName: 'Discharge', unit: 'm³/s',
+    categories: Array.from({ length: first.dayCount }, (_, d) => dateOf(first.startDate, d)),
     series: [
-      { name: `${c.baseline.scenarioName} (baseline)`, values: r3(dischargeM3s)! },
-      ...c.variants.map((v) => ({
-        name: v.scenarioName, values: r3(v.daily.dischargeM3s)!,
-        ...(v.daily.low && v.daily.high ? { low: r3(v.daily.low), high: r3(v.daily.high) } : {}),
+      { name: `${c.baselineName} (baseline)`, values: r3(first.dischargeM3s.baseline) },
+      ...variantsOf(c).map((r) => ({
+        name: r.run.scenarioName, values: r3(r.dischargeM3s.variant),
+        ...(r.ensemble ? { low: r3(r.ensemble.dischargeM3s.p5), high: r3(r.ensemble.dischargeM3s.p95) } : {}),
       })),
     ],
   };
 }
 
+/** A total with its ensemble 5–95 % range, scaled. */
+function ranged(r: RunResults, key: 'addedVolumeM3' | 'meanAddedDischargeM3s' | 'shareOfSeasonalRunoff' | 'timingShiftDays', scale = 1): Ranged {
+  const value = r.totals[key];
+  const band = r.ensemble?.totals[key];
+  return { value: value === null ? null : value * scale, low: band ? band.p5 * scale : null, high: band ? band.p95 * scale : null };
+}
+
+export function headlineOf(r: RunResults): Headline {
+  const season = r.totals.meltSeason;
+  return {
+    variantName: r.run.scenarioName,
+    addedVolumeM3: ranged(r, 'addedVolumeM3'),
+    addedMeltSeasonDischargeM3s: ranged(r, 'meanAddedDischargeM3s'),
+    shareOfSeasonalRunoffPct: ranged(r, 'shareOfSeasonalRunoff', 100),
+    timingShiftDays: ranged(r, 'timingShiftDays'),
+    meltSeason: season ? `${season.from} to ${season.to}` : 'no melt season found',
+  };
+}
+
 function totalsTable(c: ComparisonForBriefing): TableData {
-  const ranged = (r: { value: number; low: number | null; high: number | null }, scale = 1, digits = 3) =>
-    [round(r.value / scale, digits), r.low === null ? null : round(r.low / scale, digits), r.high === null ? null : round(r.high / scale, digits)];
+  const cells = (r: Ranged, scale: number, digits: number) => [r.value, r.low, r.high].map((x) => (x === null ? null : round(x / scale, digits)));
+  const trio = (label: string, unit: string) => [{ label, unit }, { label: 'low (5 %)', unit }, { label: 'high (95 %)', unit }];
   return {
     columns: [
       { label: 'Variant', unit: '' },
-      { label: 'Added melt volume', unit: 'million m³' }, { label: 'low (5 %)', unit: 'million m³' }, { label: 'high (95 %)', unit: 'million m³' },
-      { label: 'Added discharge in the melt season', unit: 'm³/s' }, { label: 'low (5 %)', unit: 'm³/s' }, { label: 'high (95 %)', unit: 'm³/s' },
-      { label: 'Share of seasonal runoff', unit: '%' }, { label: 'low (5 %)', unit: '%' }, { label: 'high (95 %)', unit: '%' },
-      { label: 'Timing shift', unit: 'days' }, { label: 'low (5 %)', unit: 'days' }, { label: 'high (95 %)', unit: 'days' },
+      ...trio('Added melt volume', 'million m³'), ...trio('Added discharge in the melt season', 'm³/s'),
+      ...trio('Share of seasonal runoff', '%'), ...trio('Timing shift', 'days'),
       { label: 'Melt season', unit: '' },
     ],
-    rows: c.variants.map((v) => [
-      v.scenarioName,
-      ...ranged(v.headline.addedVolumeM3, MILLION),
-      ...ranged(v.headline.addedMeltSeasonDischargeM3s),
-      ...ranged(v.headline.shareOfSeasonalRunoffPct, 1, 2),
-      ...ranged(v.headline.timingShiftDays, 1, 1),
-      v.headline.meltSeason,
+    rows: variantsOf(c).map(headlineOf).map((h) => [
+      h.variantName,
+      ...cells(h.addedVolumeM3, MILLION, 3), ...cells(h.addedMeltSeasonDischargeM3s, 1, 3),
+      ...cells(h.shareOfSeasonalRunoffPct, 1, 2), ...cells(h.timingShiftDays, 1, 1),
+      h.meltSeason,
     ]),
   };
 }
 
 const CHARTS: Record<ChartKey, (c: ComparisonForBriefing) => ChartData> = {
-  'monthly-added-melt': monthlyAddedMelt,
+  'monthly-added-melt': monthlyAdded,
   'daily-discharge': dailyDischarge,
   'band-added-melt': bandAddedMelt,
   'surface-split': surfaceSplit,
@@ -99,7 +109,7 @@ const CHARTS: Record<ChartKey, (c: ComparisonForBriefing) => ChartData> = {
 
 const TABLES: Record<TableKey, (c: ComparisonForBriefing) => TableData> = {
   totals: totalsTable,
-  'monthly-added-melt': (c) => chartTable(monthlyAddedMelt(c)),
+  'monthly-added-melt': (c) => chartTable(monthlyAdded(c)),
   'band-added-melt': (c) => chartTable(bandAddedMelt(c)),
 };
 

@@ -1,7 +1,7 @@
 import { PDFParse } from 'pdf-parse';
 import { describe, expect, it } from 'vitest';
 import { CAUTIONS } from '../../../../shared/text/cautions';
-import { formatNumber } from '../../../../shared/briefings/format';
+import { formatRanged, scaleRanged } from '../../../../shared/briefings/format';
 import { testSnapshot } from '../../../../tests/fixtures/briefing-snapshot';
 import { briefingPdf } from './briefing-pdf';
 
@@ -30,8 +30,8 @@ describe('briefingPdf', () => {
     expect(text).toContain('30 November 2026');
     for (const h of s.headlines) {
       expect(text).toContain(h.variantName);
-      expect(text).toContain(`${formatNumber(h.addedVolumeM3.value / 1e6, 2)} (`);
-      expect(text).toContain(`${formatNumber(h.shareOfSeasonalRunoffPct.value, 1)} %`);
+      expect(text).toContain(`${formatRanged(scaleRanged(h.addedVolumeM3, 1e-6), 2)} million m³`);
+      expect(text).toContain(`${formatRanged(h.shareOfSeasonalRunoffPct, 1)} %`);
     }
     for (const caution of CAUTIONS) expect(text).toContain(caution);
     expect(text).toContain(`Page 2 of ${pages}`);

@@ -1,6 +1,6 @@
 import PDFDocument from 'pdfkit';
 import type { BriefingSnapshot, Headline } from '../../../../shared/schemas/briefings';
-import { formatNumber, formatRanged } from '../../../../shared/briefings/format';
+import { formatNumber, formatRanged, scaleRanged } from '../../../../shared/briefings/format';
 import { CAUTIONS_HEADING } from '../../../../shared/text/cautions';
 import { chartSvg } from './chart-svg';
 import { FONTS } from './fonts';
@@ -36,7 +36,7 @@ function headlineBlock(doc: Doc, h: Headline): void {
   ensureRoom(doc, 110);
   paragraph(doc, `${h.variantName}`, { bold: true, size: 11 });
   const lines: [string, string][] = [
-    ['Added melt volume', `${formatRanged({ value: h.addedVolumeM3.value / 1e6, low: h.addedVolumeM3.low === null ? null : h.addedVolumeM3.low / 1e6, high: h.addedVolumeM3.high === null ? null : h.addedVolumeM3.high / 1e6 }, 2)} million m³`],
+    ['Added melt volume', `${formatRanged(scaleRanged(h.addedVolumeM3, 1e-6), 2)} million m³`],
     [`Added discharge in the melt season (${h.meltSeason})`, `${formatRanged(h.addedMeltSeasonDischargeM3s, 3)} m³/s`],
     ['Share of seasonal runoff', `${formatRanged(h.shareOfSeasonalRunoffPct, 1)} %`],
     ['Timing shift', `${formatRanged(h.timingShiftDays, 1)} days`],
