@@ -139,6 +139,15 @@ describe('property: slopes and hemispheres', () => {
 });
 
 describe('simulate', () => {
+  it('leaves its input unchanged, records the engine version and never returns NaN under extreme loads', () => {
+    const input = structuredClone(valley);
+    const extreme = { ...input, scenario: { blackCarbonSnowNgG: 50_000, blackCarbonIceNgG: 50_000, dustSnowUgG: 5000, dustIceUgG: 5000, temperatureDeltaC: 15, debrisThicknessChangeM: -10, debrisExtentChange: 1 } };
+    const r = simulate(extreme);
+    expect(input).toEqual(valley);
+    expect(r.engineVersion).toMatch(/^\d+\.\d+\.\d+$/);
+    expect(r.layout).toBe('band-major');
+    for (const field of BAND_DAY_FIELDS) for (const v of r.bandDay[field]) expect(Number.isFinite(v)).toBe(true);
+  });
   it('reports progress after each month and ends at 1', () => {
     const seen: number[] = [];
     simulate(valley, { onProgress: (p) => seen.push(p.fraction) });
