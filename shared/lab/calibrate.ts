@@ -11,6 +11,8 @@ export interface DischargeEvaluation {
   /** Null when fewer than two months have enough paired days. */
   monthly: SkillScores | null;
   series: PairedSeries;
+  /** Monthly means of the paired days (months with enough days only). */
+  monthlySeries: PairedSeries;
 }
 
 /**
@@ -30,7 +32,12 @@ export function evaluateDischarge(site: LabSite, observed: readonly DatedValue[]
   const series = pairDaily(observed, sim.startDate, sim.values, period);
   if (series.dates.length < 2) throw new RangeError(`only ${series.dates.length} observed day(s) fall between ${period.from} and ${period.to}; at least two are needed`);
   const monthly = monthlyMeans(series);
-  return { daily: skillScores(series.observed, series.simulated), monthly: monthly.dates.length >= 2 ? skillScores(monthly.observed, monthly.simulated) : null, series };
+  return {
+    daily: skillScores(series.observed, series.simulated),
+    monthly: monthly.dates.length >= 2 ? skillScores(monthly.observed, monthly.simulated) : null,
+    series,
+    monthlySeries: monthly,
+  };
 }
 
 export interface CalibrateOptions {

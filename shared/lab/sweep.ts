@@ -63,23 +63,38 @@ export function sweepCells(plan: SweepPlan): SweepCell[] {
 }
 
 /**
- * Catchment melt (snow and ice) over the period, mm w.e. averaged over the catchment area. Runs
- * from the start of the forcing so the snowpack is built, and sums the days of the period.
+ * What every cell of a sweep starts from: the site and plan, and the snow water equivalent per
+ * band that a baseline run (parameters in force, no scenario change) has built by the start of
+ * the period. Swept values act within the period only, so one season is one short run per cell.
  */
-export function periodMelt(input: SimulationInput, period: Period, forcingStart: string): number {
+export interface SweepSetup {
+  site: LabSite;
+  plan: SweepPlan;
+  initialSweMm: number[];
+}
+
+/** Runs the baseline from the start of the forcing to the day before the period to get the snowpack. */
+export function prepareSweep(site: LabSite, plan: SweepPlan): SweepSetup {
+  const bandCount = site.catchment.bands.length;
+  if (plan.period.from <= site.forcing.start) return { site, plan, initialSweMm: new Array<number>(bandCount).fill(0) };
+  const r = simulate(catchmentInput(site, { from: site.forcing.start, to: addDays(plan.period.from, -1) }));
+  return { site, plan, initialSweMm: Array.from({ length: bandCount }, (_, b) => r.bandDay.sweMm[b * r.dayCount + r.dayCount - 1]) };
+}
+
+/** Catchment melt (snow and ice) over a run, mm w.e. averaged over the catchment area. */
+export function catchmentMelt(input: SimulationInput): number {
   const r = simulate(input);
-  const first = Math.max(0, Math.round((Date.parse(period.from) - Date.parse(forcingStart)) / 86_400_000));
   let volume = 0;
   for (const source of ['snow', 'ice', 'debrisIce'] as const) {
-    const v = r.catchmentDaily.volumeM3[source];
-    for (let d = first; d < r.dayCount; d++) volume += v[d];
+    for (const v of r.catchmentDaily.volumeM3[source]) volume += v;
   }
   const area = r.bands.areaM2.reduce((s, a) => s + a, 0);
   return (volume / area) * 1000;
 }
 
 /** The engine input of one cell: the site's parameters and precipitation factor with the swept values applied. */
-export function cellInput(site: LabSite, plan: SweepPlan, values: readonly number[]): SimulationInput {
+export function cellInput(setup: SweepSetup, values: readonly number[]): SimulationInput {
+  const { site, plan } = setup;
   const scenario: Record<string, number> = {};
   const parameters: Partial<Parameters> = { ...site.parameters };
   plan.axes.forEach(({ variable }, k) => {
@@ -87,12 +102,17 @@ export function cellInput(site: LabSite, plan: SweepPlan, values: readonly numbe
     else scenario[variable] = variable === 'precipitationFactor' ? values[k] * (site.precipitationFactor ?? 1) : values[k];
   });
   const last = addDays(site.forcing.start, forcingDays(site.forcing) - 1);
-  const input = catchmentInput({ ...site, parameters }, { from: site.forcing.start, to: plan.period.to < last ? plan.period.to : last });
-  return { ...input, scenario: { ...input.scenario, ...scenario } };
+  const input = catchmentInput({ ...site, parameters }, { from: plan.period.from, to: plan.period.to < last ? plan.period.to : last });
+  return { ...input, scenario: { ...input.scenario, ...scenario }, initialState: { sweMm: setup.initialSweMm } };
 }
 
-export function cellMelt(site: LabSite, plan: SweepPlan, values: readonly number[]): number {
-  return periodMelt(cellInput(site, plan, values), plan.period, site.forcing.start);
+export function cellMelt(setup: SweepSetup, values: readonly number[]): number {
+  return catchmentMelt(cellInput(setup, values));
+}
+
+/** Melt with the parameters in force and no scenario change, from the same snowpack. */
+export function baselineMelt(setup: SweepSetup): number {
+  return cellMelt({ ...setup, plan: { ...setup.plan, axes: [] } }, []);
 }
 
 export interface SweepResult {
@@ -103,10 +123,6 @@ export interface SweepResult {
   /** Per cell (one-axis sweeps: one row), mm w.e.: melt and melt minus the baseline. */
   meltMm: number[][];
   addedMeltMm: number[][];
-}
-
-export function baselineMelt(site: LabSite, period: Period): number {
-  return cellMelt(site, { axes: [], period }, []);
 }
 
 /** Puts the cell melts (in sweepCells order) on the grid. */
@@ -120,12 +136,13 @@ export function assembleSweep(plan: SweepPlan, baselineMeltMm: number, melts: re
 
 /** Runs every cell in this thread (workers split the cells among themselves instead). */
 export function runSweep(site: LabSite, plan: SweepPlan, options: { signal?: AbortSignal; onProgress?: (done: number, total: number) => void } = {}): SweepResult {
+  const setup = prepareSweep(site, plan);
   const cells = sweepCells(plan);
   const melts = cells.map((cell, k) => {
     options.signal?.throwIfAborted();
-    const melt = cellMelt(site, plan, cell.values);
+    const melt = cellMelt(setup, cell.values);
     options.onProgress?.(k + 1, cells.length);
     return melt;
   });
-  return assembleSweep(plan, baselineMelt(site, plan.period), melts);
+  return assembleSweep(plan, baselineMelt(setup), melts);
 }

@@ -1,0 +1,50 @@
+import { addDays } from '../../../shared/melt/calendar';
+import type { CalibrationSet } from '../../../shared/lab/calibration-set';
+import type { DatedValue } from '../../../shared/lab/paired-series';
+import type { LabSite, Period } from '../../../shared/lab/site';
+import { validationFailed } from '../../errors';
+import type { BandService } from '../band-service';
+import type { DatasetRow } from '../dataset-service';
+import { readDatasetValues } from '../dataset-values';
+import { buildSimulationInputs, requireReadyInputs } from '../simulation-inputs';
+import type { TenantScope } from '../tenant-scope';
+
+/** Days simulated before a period starts so the snowpack is built (one year, or the record's start). */
+const SPIN_UP_DAYS = 365;
+
+/** Stored data the lab computes from: the climate forcing with a spin-up, and observed discharge. */
+export class LabData {
+  constructor(private readonly bands: BandService) {}
+
+  /** First date on which both temperature and precipitation are recorded, or null without them. */
+  async recordStart(scope: TenantScope, catchmentId: number): Promise<string | null> {
+    const rows: DatasetRow[] = await scope.from<DatasetRow>('datasets').where({ catchment_id: catchmentId, kind: 'climate' }).orderBy('id', 'desc');
+    const firstOf = (variables: string[]) => rows.find((r) => variables.includes(r.variable) && r.first_at)?.first_at?.slice(0, 10) ?? null;
+    const temperature = firstOf(['temperature', 'temperatureMin']);
+    const precipitation = firstOf(['precipitation']);
+    if (!temperature || !precipitation) return null;
+    return temperature > precipitation ? temperature : precipitation;
+  }
+
+  /** The catchment, its forcing from up to a year before the period and the parameters in force. */
+  async site(scope: TenantScope, catchmentId: number, period: Period, set: CalibrationSet): Promise<LabSite> {
+    await scope.findOr404('catchments', catchmentId, 'Catchment');
+    const start = await this.recordStart(scope, catchmentId);
+    if (start && period.from < start) {
+      throw validationFailed(`The period starts on ${period.from}, before the climate record begins (${start}).`, 'from');
+    }
+    const spinUp = addDays(period.from, -SPIN_UP_DAYS);
+    const from = start && start > spinUp ? start : spinUp;
+    const input = requireReadyInputs(await buildSimulationInputs(scope, this.bands, catchmentId, { from: start ? from : period.from, to: period.to }));
+    return { catchment: input.catchment, forcing: input.forcing, parameters: set.parameters, precipitationFactor: set.precipitationFactor };
+  }
+
+  /** Daily observed discharge (m³ s⁻¹) of the newest discharge record within the period. */
+  async observedDischarge(scope: TenantScope, catchmentId: number, period: Period): Promise<DatedValue[]> {
+    const row = await scope.from<DatasetRow>('datasets').where({ catchment_id: catchmentId, variable: 'discharge' }).orderBy('id', 'desc').first();
+    if (!row) throw validationFailed('The catchment has no observed discharge. Upload a daily discharge record first.', 'discharge');
+    const values = await readDatasetValues(scope.db, { datasetId: row.id, organisationId: scope.organisationId }, { from: `${period.from} 00:00`, to: `${period.to} 23:59` });
+    if (values.length < 2) throw validationFailed(`The discharge record has ${values.length} value(s) between ${period.from} and ${period.to}; at least two are needed.`, 'period');
+    return values.map((v) => ({ date: v.t.slice(0, 10), value: v.value }));
+  }
+}

@@ -1,0 +1,137 @@
+import type { Knex } from 'knex';
+import { DEFAULT_CALIBRATION_SET, type CalibrationSet } from '../../../shared/lab/calibration-set';
+import type { DischargeEvaluation, CalibrationOutcome } from '../../../shared/lab/calibrate';
+import type { ReferenceComparison } from '../../../shared/lab/reference-models';
+import type { SurfaceResponseResult } from '../../../shared/lab/surface-response';
+import { assembleSweep, sweepCells, type SweepPlan, type SweepSetup } from '../../../shared/lab/sweep';
+import {
+  calibrateRequestSchema, saveCalibrationSchema, skillRequestSchema, sweepRequestSchema,
+  type BandQuery, type LabJob, type SavedCalibration, type SurfaceResponse,
+} from '../../../shared/schemas/lab';
+import { validationFailed } from '../../errors';
+import { parseWith } from '../../middleware/validate';
+import type { UserRow } from '../auth-service';
+import type { BandService } from '../band-service';
+import type { TenantScope } from '../tenant-scope';
+import { CalibrationStore } from './calibration-store';
+import { LabData } from './lab-data';
+import { LabJobs } from './lab-jobs';
+import { LabPool } from './lab-pool';
+
+/** Cells per worker task in a sweep: small enough for steady progress, large enough to keep threads busy. */
+const CELLS_PER_TASK = 10;
+
+/** The lab: surface response, reference models, skill scores, calibration and sweeps for a catchment. */
+export class LabService {
+  readonly data: LabData;
+  readonly calibrations = new CalibrationStore();
+  readonly jobs: LabJobs;
+
+  constructor(db: Knex, bands: BandService, readonly pool: LabPool = new LabPool()) {
+    this.data = new LabData(bands);
+    this.jobs = new LabJobs(db);
+  }
+
+  /**
+   * The calibrated parameters new scenarios start from: the newest saved set of the catchment, or
+   * the engine's defaults (empty overrides, precipitation factor 1) when none was saved.
+   */
+  async calibratedParameters(scope: TenantScope, catchmentId: number): Promise<CalibrationSet> {
+    await scope.findOr404('catchments', catchmentId, 'Catchment');
+    const current = await this.calibrations.current(scope, catchmentId);
+    return current ? { parameters: current.set.parameters, precipitationFactor: current.set.precipitationFactor } : { ...DEFAULT_CALIBRATION_SET, parameters: {} };
+  }
+
+  async surfaceResponse(scope: TenantScope, catchmentId: number, query: BandQuery): Promise<SurfaceResponse> {
+    const set = await this.calibratedParameters(scope, catchmentId);
+    const period = { from: query.from, to: query.to };
+    const site = await this.data.site(scope, catchmentId, period, set);
+    const band = this.band(site.catchment.bands, query.band);
+    const result = await this.pool.run<SurfaceResponseResult>({ kind: 'surface', site: { ...site, bandIndex: query.band, period } });
+    return {
+      band: { index: query.band, lowerM: band.lowerM, upperM: band.upperM, debrisThicknessM: band.debrisThicknessM, glacierFraction: band.glacierFraction },
+      period,
+      set: { parameters: set.parameters as Record<string, number>, precipitationFactor: set.precipitationFactor },
+      ...result,
+    };
+  }
+
+  async referenceModels(scope: TenantScope, catchmentId: number, query: BandQuery): Promise<ReferenceComparison> {
+    const set = await this.calibratedParameters(scope, catchmentId);
+    const period = { from: query.from, to: query.to };
+    const site = await this.data.site(scope, catchmentId, period, set);
+    this.band(site.catchment.bands, query.band);
+    return this.pool.run<ReferenceComparison>({ kind: 'reference', site: { ...site, bandIndex: query.band, period } });
+  }
+
+  /** Skill of simulated against observed discharge, with the given set or the one in force. */
+  async skill(scope: TenantScope, catchmentId: number, body: unknown): Promise<{ set: CalibrationSet; evaluation: DischargeEvaluation }> {
+    const request = parseWith(skillRequestSchema, body);
+    const set = request.set ?? await this.calibratedParameters(scope, catchmentId);
+    return { set, evaluation: await this.evaluate(scope, catchmentId, request.period, set) };
+  }
+
+  async saveCalibration(scope: TenantScope, user: UserRow, catchmentId: number, body: unknown): Promise<SavedCalibration> {
+    const request = parseWith(saveCalibrationSchema, body);
+    const set: CalibrationSet = request.set;
+    const evaluation = await this.evaluate(scope, catchmentId, request.period, set);
+    return this.calibrations.save(scope, user, catchmentId, { set, period: request.period, note: request.note, scores: { daily: evaluation.daily, monthly: evaluation.monthly } });
+  }
+
+  async startSweep(scope: TenantScope, user: UserRow, catchmentId: number, body: unknown): Promise<LabJob> {
+    const plan: SweepPlan = parseWith(sweepRequestSchema, body);
+    const set = await this.calibratedParameters(scope, catchmentId);
+    const site = await this.data.site(scope, catchmentId, plan.period, set);
+    const cells = sweepCells(plan);
+    const chunks: number[][][] = [];
+    for (let i = 0; i < cells.length; i += CELLS_PER_TASK) chunks.push(cells.slice(i, i + CELLS_PER_TASK).map((c) => c.values));
+    return this.jobs.start(scope, user, catchmentId, 'sweep', plan, async (signal, report) => {
+      report(0, 'Building the snowpack before the period');
+      const { setup, baseline } = await this.pool.run<{ setup: SweepSetup; baseline: number }>({ kind: 'sweepSetup', site, plan }, undefined, signal);
+      const done = new Array<number>(chunks.length).fill(0);
+      const parts = await Promise.all(chunks.map((chunk, k) => this.pool.run<number[]>(
+        { kind: 'sweepCells', setup, cells: chunk },
+        (fraction) => {
+          done[k] = fraction * chunk.length;
+          const total = done.reduce((s, v) => s + v, 0);
+          report(total / cells.length, `${Math.round(total)} of ${cells.length} runs`);
+        },
+        signal,
+      )));
+      return assembleSweep(plan, baseline, parts.flat());
+    });
+  }
+
+  async startCalibration(scope: TenantScope, user: UserRow, catchmentId: number, body: unknown): Promise<LabJob> {
+    const request = parseWith(calibrateRequestSchema, body);
+    const start = await this.calibratedParameters(scope, catchmentId);
+    const periods = [request.period, ...(request.validationPeriod ? [request.validationPeriod] : [])];
+    const span = { from: periods.reduce((a, p) => (p.from < a ? p.from : a), request.period.from), to: periods.reduce((a, p) => (p.to > a ? p.to : a), request.period.to) };
+    const site = await this.data.site(scope, catchmentId, span, start);
+    const observed = await this.data.observedDischarge(scope, catchmentId, span);
+    return this.jobs.start(scope, user, catchmentId, 'calibration', request, async (signal, report) => {
+      const outcome = await this.pool.run<{ calibration: CalibrationOutcome; validation: unknown }>(
+        { kind: 'calibrate', site, observed, keys: request.keys, start, period: request.period, validationPeriod: request.validationPeriod, maxEvaluations: request.maxEvaluations, seed: request.seed },
+        (fraction) => report(fraction, `${Math.round(fraction * request.maxEvaluations)} of at most ${request.maxEvaluations} model runs`),
+        signal,
+      );
+      return { ...outcome.calibration, validation: outcome.validation };
+    });
+  }
+
+  private async evaluate(scope: TenantScope, catchmentId: number, period: { from: string; to: string }, set: CalibrationSet): Promise<DischargeEvaluation> {
+    const site = await this.data.site(scope, catchmentId, period, set);
+    const observed = await this.data.observedDischarge(scope, catchmentId, period);
+    try {
+      return await this.pool.run<DischargeEvaluation>({ kind: 'skill', site, observed, period });
+    } catch (error) {
+      throw validationFailed(`Skill scores cannot be computed: ${error instanceof Error ? error.message : String(error)}`, 'period');
+    }
+  }
+
+  private band<T>(bands: T[], index: number): T {
+    const band = bands[index];
+    if (!band) throw validationFailed(`Band ${index} does not exist; the catchment has ${bands.length} band(s), numbered from 0.`, 'band');
+    return band;
+  }
+}
