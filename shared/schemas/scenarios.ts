@@ -90,3 +90,9 @@ export type ScenarioRecord = z.infer<typeof scenarioSchema>;
 
 export const scenarioListSchema = z.object({ scenarios: z.array(scenarioSchema) });
 export const scenarioReplySchema = z.object({ scenario: scenarioSchema });
+
+export const scenarioSetupSchema = z.object({
+  record: z.object({ from: z.string(), to: z.string() }).nullable(),
+  defaultPeriod: z.object({ from: z.string(), to: z.string() }).nullable(),
+});
+export type ScenarioSetup = z.infer<typeof scenarioSetupSchema>;

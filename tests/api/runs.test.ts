@@ -67,6 +67,18 @@ describe('scenarios', () => {
   });
 });
 
+describe('scenario builder support', () => {
+  it('hands out the stored inputs for the in-browser preview, at most a year', async () => {
+    const res = await consultant.get(`/api/catchments/${catchmentId}/preview-input`).query(SEASON);
+    expect(res.status).toBe(200);
+    expect(res.body.catchment.bands).toHaveLength(3);
+    expect(res.body.forcing.timeStep).toBe('daily');
+    const long = await consultant.get(`/api/catchments/${catchmentId}/preview-input`).query({ from: '2021-01-01', to: '2023-01-01' });
+    expect(long.status).toBe(422);
+    expect(long.body.error.field).toBe('to');
+  });
+});
+
 describe('roles and organisations', () => {
   it('keep clients out of scenarios, runs and results', async () => {
     const client = await signedInAgent(t.app, org.users.client.email);
@@ -164,6 +176,8 @@ describe('run lifecycle', () => {
       const again = await agent.post(`/api/catchments/${id}/runs`).send({ scenarioId: scenarios.body.scenarios[0].id });
       expect(again.status).toBe(422);
       expect(again.body.error.message).toMatch(/elevation bands|precipitation|temperature/);
+      const setup = await agent.get(`/api/catchments/${id}/scenario-setup`);
+      expect(setup.body).toEqual({ record: null, defaultPeriod: null });
     } finally {
       await plain.close();
     }

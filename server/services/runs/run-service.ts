@@ -6,7 +6,7 @@ import type { Run, startRunSchema } from '../../../shared/schemas/runs';
 import { conflict, notFound, validationFailed } from '../../errors';
 import type { ScenarioService } from '../scenario-service';
 import type { TenantScope } from '../tenant-scope';
-import type { CatchmentInputSource } from './catchment-inputs';
+import type { CatchmentInputs, CatchmentInputSource } from './catchment-inputs';
 import { inputHash } from './input-hash';
 import type { RunExecutor } from './run-executor';
 
@@ -106,6 +106,12 @@ export class RunService {
     const run = await this.get(scope, catchmentId, id);
     this.executor.enqueue({ runId: id, organisationId: scope.organisationId, members });
     return { run, reused: false };
+  }
+
+  /** Stored catchment and forcing for a period, for the builder's in-browser preview. */
+  async previewInputs(scope: TenantScope, catchmentId: number, period: { from: string; to: string }): Promise<CatchmentInputs> {
+    await scope.findOr404('catchments', catchmentId, 'Catchment');
+    return this.inputs(scope, catchmentId, period);
   }
 
   async get(scope: TenantScope, catchmentId: number, id: number): Promise<Run> {
