@@ -5,7 +5,7 @@ export const billingIntervalSchema = z.enum(BILLING_INTERVALS);
 export type BillingInterval = z.infer<typeof billingIntervalSchema>;
 
 export const MAX_SEATS = 500;
-const seatsSchema = z.coerce
+const seatsSchema = z
   .number({ error: 'Enter a number of seats.' })
   .int({ error: 'Seats are whole numbers.' })
   .min(1, { error: 'Buy at least 1 seat.' })

@@ -65,8 +65,14 @@ export const routes: RouteRecordRaw[] = [
     children: [
       { path: 'sign-in', name: 'sign-in', component: () => import('src/pages/SignInPage.vue'), meta: { guestOnly: true, title: 'Sign in' } },
       { path: 'sign-up', name: 'sign-up', component: () => import('src/pages/SignUpPage.vue'), meta: { guestOnly: true, title: 'Create an account' } },
+      { path: 'forgot-password', name: 'forgot-password', component: () => import('src/pages/ForgotPasswordPage.vue'), meta: { guestOnly: true, title: 'Forgot password' } },
+      // Opened from mailed links; the token in the query is the credential, so no session is needed.
+      { path: 'reset-password', name: 'reset-password', component: () => import('src/pages/ResetPasswordPage.vue'), meta: { title: 'New password' } },
+      { path: 'invitation', name: 'invitation', component: () => import('src/pages/AcceptInvitationPage.vue'), meta: { title: 'Join your team' } },
     ],
   },
+  // Development only: the server answers 404 to its data in production.
+  { path: '/dev/inbox', name: 'dev-inbox', component: () => import('src/pages/DevInboxPage.vue'), meta: { title: 'Development inbox' } },
   // Always last.
   { path: '/:catchAll(.*)*', name: 'not-found', component: () => import('src/pages/NotFoundPage.vue'), meta: { title: 'Not found' } },
 ];
