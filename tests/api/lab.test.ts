@@ -1,0 +1,172 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Express } from 'express';
+import { createTestApp, type TestApp } from '../support/test-app';
+import { createOrganisation, signedInAgent, type TestOrg } from '../support/factories';
+import { createDemoCatchment } from '../support/lab-catchment';
+import { calibrationHistorySchema, labJobSchema, skillReplySchema, surfaceResponseSchema, sweepResultSchema, calibrationResultSchema, type LabJob } from '../../shared/schemas/lab';
+import { nse } from '../../shared/melt/index';
+
+let t: TestApp;
+let app: Express;
+let org: TestOrg;
+let other: TestOrg;
+let catchmentId: number;
+let otherCatchmentId: number;
+const season = { from: '2022-06-01', to: '2022-08-31' };
+const query = `band=6&from=${season.from}&to=${season.to}`;
+
+async function waitForJob(agent: Awaited<ReturnType<typeof signedInAgent>>, id: number): Promise<LabJob> {
+  for (let i = 0; i < 600; i++) {
+    const res = await agent.get(`/api/lab/jobs/${id}`);
+    const job = labJobSchema.parse(res.body);
+    if (job.status !== 'running' && job.status !== 'queued') return job;
+    await new Promise((r) => setTimeout(r, 100));
+  }
+  throw new Error('job did not finish');
+}
+
+beforeAll(async () => {
+  t = createTestApp({}, { labThreads: 1 });
+  app = t.app;
+  org = await createOrganisation(t.db);
+  other = await createOrganisation(t.db);
+  catchmentId = await createDemoCatchment(t.db, org.organisationId);
+  otherCatchmentId = await createDemoCatchment(t.db, other.organisationId, { withDischarge: false });
+});
+
+afterAll(async () => {
+  await t.ctx.lab.jobs.idle();
+  await t.ctx.lab.pool.close();
+  await t.close();
+});
+
+describe('who reaches the lab', () => {
+  it('answers scientists, consultants and admins; refuses clients (403) and strangers (401)', async () => {
+    for (const role of ['scientist', 'consultant', 'admin'] as const) {
+      const agent = await signedInAgent(app, org.users[role].email);
+      const res = await agent.get(`/api/lab/catchments/${catchmentId}/calibration`);
+      expect(res.status).toBe(200);
+    }
+    const client = await signedInAgent(app, org.users.client.email);
+    expect((await client.get(`/api/lab/catchments/${catchmentId}/surface-response?${query}`)).status).toBe(403);
+    expect((await client.post(`/api/lab/catchments/${catchmentId}/sweeps`).send({})).status).toBe(403);
+    const { default: request } = await import('supertest');
+    expect((await request(app).get(`/api/lab/catchments/${catchmentId}/calibration`)).status).toBe(401);
+  });
+  it('hides other organisations\' catchments and jobs (404)', async () => {
+    const scientist = await signedInAgent(app, org.users.scientist.email);
+    expect((await scientist.get(`/api/lab/catchments/${otherCatchmentId}/surface-response?${query}`)).status).toBe(404);
+    expect((await scientist.get(`/api/lab/catchments/${otherCatchmentId}/calibration`)).status).toBe(404);
+    expect((await scientist.put(`/api/lab/catchments/${otherCatchmentId}/calibration`).send({ period: season, set: {} })).status).toBe(404);
+    expect((await scientist.post(`/api/lab/catchments/${otherCatchmentId}/sweeps`).send({ period: season, axes: [{ variable: 'temperatureDeltaC', from: 0, to: 1, steps: 2 }] })).status).toBe(404);
+    const outsider = await signedInAgent(app, other.users.scientist.email);
+    const started = await scientist.post(`/api/lab/catchments/${catchmentId}/sweeps`).send({ period: season, axes: [{ variable: 'temperatureDeltaC', from: 0, to: 1, steps: 2 }] });
+    expect(started.status).toBe(202);
+    expect((await outsider.get(`/api/lab/jobs/${started.body.id}`)).status).toBe(404);
+    expect((await outsider.post(`/api/lab/jobs/${started.body.id}/cancel`)).status).toBe(404);
+    await waitForJob(scientist, started.body.id);
+  });
+});
+
+describe('surface response on the demo climate', () => {
+  it('gives the Østrem curve above clean ice under thin debris and far below it at 0.5 m', async () => {
+    const scientist = await signedInAgent(app, org.users.scientist.email);
+    const res = await scientist.get(`/api/lab/catchments/${catchmentId}/surface-response?${query}`);
+    expect(res.status).toBe(200);
+    const body = surfaceResponseSchema.parse(res.body);
+    const { present } = body.ostrem;
+    expect(present.peak.meltMm).toBeGreaterThan(present.cleanIceMeltMm);
+    const half = present.points.find((p) => p.thicknessM >= 0.5)!;
+    expect(half.meltMm).toBeLessThan(present.cleanIceMeltMm / 3);
+    expect(present.criticalThicknessM).toBeGreaterThan(present.peak.thicknessM);
+    expect(body.ostrem.warmer.map((c) => c.temperatureDeltaC)).toEqual([1, 2, 3]);
+    expect(body.impurity.map((c) => c.surface)).toEqual(['freshSnow', 'oldSnow', 'bareIce']);
+    expect(body.band.debrisThicknessM).toBeGreaterThan(0.3);
+    expect(body.warming.bandDebris!.perC).toBeLessThan(body.warming.cleanIcePerC);
+  });
+  it('names a band that does not exist and a period outside the record', async () => {
+    const scientist = await signedInAgent(app, org.users.scientist.email);
+    const missing = await scientist.get(`/api/lab/catchments/${catchmentId}/surface-response?band=40&from=${season.from}&to=${season.to}`);
+    expect(missing.status).toBe(422);
+    expect(missing.body.error.message).toMatch(/Band 40 does not exist; the catchment has 21 band/);
+    const early = await scientist.get(`/api/lab/catchments/${catchmentId}/surface-response?band=6&from=2020-06-01&to=2020-08-31`);
+    expect(early.status).toBe(422);
+    expect(early.body.error.message).toMatch(/before the climate record begins \(2021-10-01\)/);
+  });
+});
+
+describe('skill scores and saved calibration', () => {
+  it('scores the baseline against the stored discharge, and the scores can be recomputed from the series', async () => {
+    const scientist = await signedInAgent(app, org.users.scientist.email);
+    const res = await scientist.post(`/api/lab/catchments/${catchmentId}/skill`).send({ period: season });
+    expect(res.status).toBe(200);
+    const { evaluation } = skillReplySchema.parse(res.body);
+    expect(evaluation.series.dates).toHaveLength(92);
+    expect(evaluation.daily.nse).toBeCloseTo(nse(evaluation.series.observed, evaluation.series.simulated), 10);
+    expect(evaluation.monthly!.count).toBe(3);
+  });
+  it('saves an adjusted set with who saved it and the scores then, and new scenarios read it', async () => {
+    const scientist = await signedInAgent(app, org.users.scientist.email);
+    const set = { parameters: { lapseRateCPerKm: -5.5, transmissivity: 0.7 }, precipitationFactor: 1.2 };
+    const saved = await scientist.put(`/api/lab/catchments/${catchmentId}/calibration`).send({ period: season, set, note: 'hand adjusted' });
+    expect(saved.status).toBe(201);
+    const history = calibrationHistorySchema.parse((await scientist.get(`/api/lab/catchments/${catchmentId}/calibration`)).body);
+    expect(history.current!.set).toEqual(set);
+    expect(history.current!.savedBy).toMatch(/^scientist /);
+    expect(history.current!.scores.daily.count).toBe(92);
+    const direct = await scientist.post(`/api/lab/catchments/${catchmentId}/skill`).send({ period: season, set });
+    expect(history.current!.scores.daily.kge).toBeCloseTo(direct.body.evaluation.daily.kge, 10);
+    const { TenantScope } = await import('../../server/services/tenant-scope');
+    expect(await t.ctx.lab.calibratedParameters(new TenantScope(t.db, org.organisationId), catchmentId)).toEqual(set);
+    await expect(t.ctx.lab.calibratedParameters(new TenantScope(t.db, other.organisationId), catchmentId)).rejects.toMatchObject({ status: 404 });
+  });
+  it('refuses a parameter outside its range, naming the field', async () => {
+    const scientist = await signedInAgent(app, org.users.scientist.email);
+    const res = await scientist.put(`/api/lab/catchments/${catchmentId}/calibration`).send({ period: season, set: { parameters: { transmissivity: 1.4 } } });
+    expect(res.status).toBe(422);
+    expect(res.body.error.field).toBe('set.parameters.transmissivity');
+  });
+});
+
+describe('jobs: sweeps and automatic calibration', () => {
+  it('runs a two-parameter sweep with progress to a grid of added melt', async () => {
+    const scientist = await signedInAgent(app, org.users.scientist.email);
+    const res = await scientist.post(`/api/lab/catchments/${catchmentId}/sweeps`).send({
+      period: season, axes: [{ variable: 'temperatureDeltaC', from: 0, to: 2, steps: 3 }, { variable: 'blackCarbonIceNgG', from: 0, to: 1000, steps: 2 }],
+    });
+    expect(res.status).toBe(202);
+    const job = await waitForJob(scientist, res.body.id);
+    expect(job.status).toBe('done');
+    expect(job.progress).toBe(1);
+    const result = sweepResultSchema.parse(job.result);
+    expect(result.addedMeltMm).toHaveLength(3);
+    expect(result.addedMeltMm[2][1]).toBeGreaterThan(result.addedMeltMm[0][0]);
+  });
+  it('refuses a grid larger than 20 × 20', async () => {
+    const scientist = await signedInAgent(app, org.users.scientist.email);
+    const res = await scientist.post(`/api/lab/catchments/${catchmentId}/sweeps`).send({ period: season, axes: [{ variable: 'temperatureDeltaC', from: 0, to: 2, steps: 21 }] });
+    expect(res.status).toBe(422);
+    expect(res.body.error.field).toBe('axes.0.steps');
+  });
+  it('calibrates as a job and does not lower the KGE; split-sample scores are reported', async () => {
+    const scientist = await signedInAgent(app, org.users.scientist.email);
+    const res = await scientist.post(`/api/lab/catchments/${catchmentId}/calibrations`).send({
+      keys: ['precipitationFactor', 'transmissivity'], period: season, validationPeriod: { from: '2023-06-01', to: '2023-07-31' }, maxEvaluations: 12,
+    });
+    expect(res.status).toBe(202);
+    const job = await waitForJob(scientist, res.body.id);
+    expect(job.status).toBe('done');
+    const result = calibrationResultSchema.parse(job.result);
+    expect(result.scores.daily.kge).toBeGreaterThanOrEqual(result.startScores.daily.kge);
+    expect(result.validation!.after.series.dates[0]).toBe('2023-06-01');
+  });
+  it('can be cancelled', async () => {
+    const scientist = await signedInAgent(app, org.users.scientist.email);
+    const res = await scientist.post(`/api/lab/catchments/${catchmentId}/calibrations`).send({ keys: ['lapseRateCPerKm', 'iceAlbedo', 'transmissivity'], period: season, maxEvaluations: 400 });
+    expect(res.status).toBe(202);
+    const cancelled = await scientist.post(`/api/lab/jobs/${res.body.id}/cancel`);
+    expect(cancelled.status).toBe(200);
+    expect(cancelled.body.status).toBe('cancelled');
+    expect((await scientist.post(`/api/lab/jobs/${res.body.id}/cancel`)).status).toBe(409);
+  });
+});

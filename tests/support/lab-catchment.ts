@@ -1,0 +1,37 @@
+import type { Knex } from 'knex';
+import { variableSpec, type Variable } from '../../shared/schemas/dataset-variables';
+import { insertDatasetValues } from '../../server/services/dataset-values';
+import { DEMO_BANDS, DEMO_CATCHMENT } from '../../seeds/data/demo-catchment';
+import { syntheticStation } from '../../seeds/data/synthetic-station';
+import { unique } from './factories';
+
+/**
+ * The demo catchment's bands and synthetic station record (seeds/data) stored for any
+ * organisation, two hydrological years from 2021-10-01, so lab tests run on the demo climate.
+ */
+export async function createDemoCatchment(db: Knex, organisationId: number, options: { withDischarge?: boolean } = {}): Promise<number> {
+  const c = DEMO_CATCHMENT;
+  const [catchmentId] = await db('catchments').insert({
+    organisation_id: organisationId, name: unique('Sarvel '), description: c.description, latitude_deg: c.latitudeDeg, longitude_deg: c.longitudeDeg,
+    time_zone: c.timeZone, station_name: c.stationName, station_elevation_m: c.stationElevationM, outlet_description: c.outletDescription,
+  });
+  await db('elevation_bands').insert(DEMO_BANDS.map((b, position) => ({
+    organisation_id: organisationId, catchment_id: catchmentId, position,
+    lower_m: b.lowerM, upper_m: b.upperM, area_km2: b.areaKm2, slope_deg: b.slopeDeg, aspect_deg: b.aspectDeg,
+    glacier_fraction: b.glacierFraction, debris_fraction: b.debrisFraction, debris_thickness_m: b.debrisThicknessM,
+  })));
+  const station = syntheticStation({ start: '2021-10-01', days: 730, seed: 20211001 });
+  const add = async (variable: Variable, step: 'hourly' | 'daily', series: { times: string[]; values: number[] }) => {
+    const spec = variableSpec(variable);
+    const [datasetId] = await db('datasets').insert({
+      organisation_id: organisationId, catchment_id: catchmentId, variable, kind: spec.kind, unit: spec.storedUnit, original_unit: spec.storedUnit,
+      time_step: step, time_zone: c.timeZone, source: 'lab test', accuracy: 'invented', file_name: `${variable}.csv`, uploaded_by_name: 'test',
+      first_at: series.times[0], last_at: series.times.at(-1), value_count: series.values.length,
+    });
+    await insertDatasetValues(db, { datasetId, organisationId }, series.times, series.values);
+  };
+  await add('temperature', 'hourly', station.hourlyTemperature);
+  await add('precipitation', 'daily', station.dailyPrecipitation);
+  if (options.withDischarge ?? true) await add('discharge', 'daily', station.dailyDischarge);
+  return catchmentId;
+}
