@@ -34,6 +34,12 @@ export const routes: RouteRecordRaw[] = [
         meta: { roles: WORKSHOP, nav: { label: 'Catchments', icon: 'terrain', caption: 'Bands, climate, scenarios' }, title: 'Catchments' },
       },
       {
+        path: 'catchments/:id(\\d+)',
+        name: 'catchment',
+        component: () => import('src/pages/CatchmentDetailPage.vue'),
+        meta: { roles: WORKSHOP, title: 'Catchment' },
+      },
+      {
         path: 'lab',
         name: 'lab',
         component: () => import('src/pages/LabPage.vue'),
