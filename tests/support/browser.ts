@@ -20,12 +20,14 @@ const CHROMIUM_ARGS = [
   '--disable-background-networking', '--disable-component-update', '--disable-sync',
 ];
 
-/** Serves the built client (dist/) and API on a free port and opens headless Chromium on it. */
-export async function openBrowser(): Promise<BrowserSession> {
-  const t = createTestApp({ CLIENT_DIR: 'dist' });
-  const server = t.app.listen(0, '127.0.0.1');
-  await new Promise<void>((resolve) => server.once('listening', () => resolve()));
-  const baseUrl = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
+export interface BrowserWindow {
+  context: BrowserContext;
+  newPage(): Promise<Page>;
+  close(): Promise<void>;
+}
+
+/** Headless Chromium with a fresh profile, for an app already listening (pages start signed out, without animation). */
+export async function launchBrowser(): Promise<BrowserWindow> {
   const profile = mkdtempSync(path.join(tmpdir(), 'tarnish-chromium-'));
   const context = await chromium.launchPersistentContext(profile, {
     executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
@@ -34,8 +36,6 @@ export async function openBrowser(): Promise<BrowserSession> {
     viewport: { width: 1280, height: 860 },
   });
   return {
-    baseUrl,
-    t,
     context,
     newPage: async () => {
       // One browser profile for the file: each page starts signed out.
@@ -52,9 +52,27 @@ export async function openBrowser(): Promise<BrowserSession> {
     },
     close: async () => {
       await context.close();
+      rmSync(profile, { recursive: true, force: true });
+    },
+  };
+}
+
+/** Serves the built client (dist/) and API on a free port and opens headless Chromium on it. */
+export async function openBrowser(): Promise<BrowserSession> {
+  const t = createTestApp({ CLIENT_DIR: 'dist' });
+  const server = t.app.listen(0, '127.0.0.1');
+  await new Promise<void>((resolve) => server.once('listening', () => resolve()));
+  const baseUrl = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
+  const browser = await launchBrowser();
+  return {
+    baseUrl,
+    t,
+    context: browser.context,
+    newPage: browser.newPage,
+    close: async () => {
+      await browser.close();
       await new Promise<void>((resolve) => server.close(() => resolve()));
       await t.close();
-      rmSync(profile, { recursive: true, force: true });
     },
   };
 }

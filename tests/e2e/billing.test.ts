@@ -1,0 +1,97 @@
+import type { Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { launchBrowser, signInThroughForm, type BrowserWindow } from '../support/browser';
+import { createOrganisation, TEST_PASSWORD, unique, type TestOrg } from '../support/factories';
+import { startTeamHarness, type TeamHarness } from '../support/team-harness';
+
+let h: TeamHarness;
+let browser: BrowserWindow;
+let org: TestOrg;
+
+beforeAll(async () => {
+  h = await startTeamHarness({ CLIENT_DIR: 'dist' });
+  browser = await launchBrowser();
+  org = await createOrganisation(h.t.db);
+});
+afterAll(async () => {
+  await browser?.close();
+  await h?.close();
+});
+
+const shot = (page: Page, name: string) => page.screenshot({ path: `test-results/billing-${name}.png`, fullPage: true });
+
+describe('seats and team in the browser', () => {
+  it('buys seats through the checkout page, adds 3 more, invites a consultant and the mail arrives', async () => {
+    const page = await browser.newPage();
+    await signInThroughForm(page, h.baseUrl, org.users.admin.email, TEST_PASSWORD);
+
+    // No plan yet: the page says what is blocked and offers one.
+    await page.click('[data-test=nav-billing]');
+    await page.waitForSelector('[data-test=subscription-inactive]');
+    await page.fill('[data-test=buy-seats]', '3');
+    await page.click('[data-test=buy-checkout]');
+
+    // The payment fake's own card page.
+    await page.waitForSelector('#card_number');
+    expect(page.url()).toContain(`${h.fake.url}/hosted/checkout/`);
+    await page.fill('#card_number', '4242 4242 4242 4242');
+    await page.fill('#expiry', '12 / 34');
+    await page.fill('#cvc', '123');
+    await page.fill('#name', 'Test Admin');
+    await shot(page, 'checkout-page');
+    await page.click('button[type=submit]');
+
+    // Back on our page once the webhook has made the plan active.
+    await page.waitForSelector('[data-test=plan-card]', { timeout: 20_000 });
+    expect(await page.textContent('[data-test=plan-seats]')).toBe('3');
+    expect(await page.textContent('[data-test=plan-in-use]')).toBe('3');
+
+    // All seats are taken: inviting a consultant is refused with an offer to add seats.
+    const consultant = `${unique('consultant')}@test.example`;
+    await page.click('[data-test=nav-team]');
+    await page.waitForSelector('[data-test=members-table]');
+    await page.click('[data-test=open-invite]');
+    await page.fill('[data-test=invite-name]', 'Edda Kveld');
+    await page.fill('[data-test=invite-email]', consultant);
+    await page.click('[data-test=invite-send]');
+    await page.waitForSelector('[data-test=invite-add-seats]');
+    expect(await page.textContent('[data-test=invite-error]')).toContain('All 3 paid seats are taken');
+    await page.click('[data-test=invite-add-seats]');
+
+    // Three more seats, charged to the saved card.
+    await page.waitForSelector('[data-test=resize-seats]');
+    await page.fill('[data-test=resize-seats]', '6');
+    await page.click('[data-test=resize-submit]');
+    await page.waitForFunction(() => document.querySelector('[data-test=plan-seats]')?.textContent === '6');
+    await page.waitForFunction(() => document.querySelectorAll('[data-test=invoice-table] tbody tr').length >= 2);
+    await shot(page, 'seats-and-billing');
+
+    await page.click('[data-test=nav-team]');
+    await page.click('[data-test=open-invite]');
+    await page.fill('[data-test=invite-name]', 'Edda Kveld');
+    await page.fill('[data-test=invite-email]', consultant);
+    await page.click('[data-test=invite-send]');
+    await page.waitForFunction((email) => document.querySelector('[data-test=members-table]')?.textContent?.includes(email), consultant);
+    expect(await page.textContent('[data-test=seat-usage]')).toContain('4 of 6');
+    await shot(page, 'team');
+
+    // The mail reached the catcher; the development inbox shows it with its link.
+    const mail = await h.catcher.waitFor((m) => m.to.includes(consultant));
+    expect(mail.text).toContain(`${h.baseUrl}/invitation?token=`);
+    await page.goto(`${h.baseUrl}/dev/inbox`);
+    await page.click(`[data-test=inbox-message]:has-text("${consultant}")`);
+    await shot(page, 'dev-inbox');
+
+    // The invited consultant follows the link, chooses a password and can sign in.
+    const invited = await browser.newPage();
+    const link = /http:\/\/\S+\/invitation\?token=\S+/.exec(mail.text)![0];
+    await invited.goto(link);
+    await invited.waitForSelector('[data-test=invitation-preview]');
+    await invited.fill('[data-test=accept-password]', 'glacier tongue retreat 2026');
+    await invited.click('[data-test=accept-submit]');
+    await invited.waitForSelector('[data-test=invitation-done]');
+    await signInThroughForm(invited, h.baseUrl, consultant, 'glacier tongue retreat 2026');
+    await invited.close();
+    await page.close();
+  });
+});
