@@ -88,6 +88,7 @@ export function runHours(run: PreparedRun, sun: SunTrack, model: MeltModel, resu
       const debrisPart = debrisShare[b];
       const conductance = debrisConductance[b];
       const debrisReduction = debrisFactor[b];
+      const hasGlacier = cleanShare > 0 || debrisPart > 0;
       let bandSwe = swe[b];
       let r = grain[b];
       let snowMelt = 0, iceMelt = 0, debrisMelt = 0, rain = 0, snowfall = 0;
@@ -106,6 +107,7 @@ export function runHours(run: PreparedRun, sun: SunTrack, model: MeltModel, resu
           }
           rain += pb - snow;
         }
+        if (bandSwe <= 0 && !hasGlacier) continue; // bare ground: nothing to melt, no flux to report
 
         const cosZ = cosZenith[h];
         let global = 0;
