@@ -1,0 +1,52 @@
+import { parameterValues, scenarioValues } from '../../../shared/briefings/scenario-values';
+import type { RunSelection } from '../../../shared/schemas/briefings';
+import { validationFailed } from '../../errors';
+import type { ResultsService } from '../runs/results-service';
+import type { RunService } from '../runs/run-service';
+import { BASELINE_NAME, readChanges } from '../scenario-service';
+import type { TenantScope } from '../tenant-scope';
+import type { BriefingResultsSource, ComparisonForBriefing } from './comparison';
+
+interface DatasetRow { variable: string; kind: string; source: string; accuracy: string; file_name: string }
+
+/** Briefing numbers from finished runs, through the results service (so briefings and results screens agree). */
+export class RunsResultsSource implements BriefingResultsSource {
+  constructor(
+    private readonly runs: RunService,
+    private readonly results: ResultsService,
+  ) {}
+
+  async load(scope: TenantScope, catchmentId: number, selection: RunSelection): Promise<ComparisonForBriefing> {
+    const picked = [];
+    for (const [i, runId] of selection.runIds.entries()) {
+      const row = await this.runs.row(scope, catchmentId, runId);
+      if (row.is_baseline || !row.baseline_changes) {
+        throw validationFailed(`Run #${runId} is a baseline run; choose variant runs (each carries its baseline).`, `selection.runIds.${i}`);
+      }
+      picked.push({ row, results: await this.results.results(scope, catchmentId, runId) });
+    }
+    const first = picked[0];
+    const mismatch = picked.find((p) => p.results.startDate !== first.results.startDate || p.results.dayCount !== first.results.dayCount);
+    if (mismatch) {
+      throw validationFailed(
+        `Run #${mismatch.row.id} covers ${mismatch.results.startDate} + ${mismatch.results.dayCount} days, run #${first.row.id} ${first.results.startDate} + ${first.results.dayCount} days; a briefing compares runs over the same period.`,
+        'selection.runIds',
+      );
+    }
+    const datasets = (await scope.from('datasets').where({ catchment_id: catchmentId }).orderBy(['kind', 'variable'])
+      .select('variable', 'kind', 'source', 'accuracy', 'file_name')) as DatasetRow[];
+    const firstChanges = readChanges(first.row.changes);
+    return {
+      baselineName: BASELINE_NAME,
+      baselineValues: scenarioValues(readChanges(first.row.baseline_changes!)),
+      runs: picked.map((p) => ({ results: p.results, scenarioValues: scenarioValues(readChanges(p.row.changes)) })),
+      parameters: parameterValues(firstChanges.parameters),
+      dataSources: datasets.map((d) => ({
+        name: d.file_name || d.variable,
+        variables: `${d.variable} (${d.kind})`,
+        source: d.source,
+        accuracy: d.accuracy || 'not stated',
+      })),
+    };
+  }
+}
