@@ -9,9 +9,10 @@ import { UploadService } from './services/upload-service';
 import { LabService } from './services/lab/lab-service';
 import { LabPool } from './services/lab/lab-pool';
 import { createRunServices, type RunServices, type RunServicesOptions } from './services/runs/run-services';
+import { createBriefingServices, type BriefingServices, type BriefingServicesOptions } from './services/briefings/briefing-services';
 
 /** Everything the routes need, built once per app so tests can build their own. */
-export interface AppContext extends TeamServices, RunServices {
+export interface AppContext extends TeamServices, RunServices, BriefingServices {
   config: AppConfig;
   db: Knex;
   auth: AuthService;
@@ -22,7 +23,7 @@ export interface AppContext extends TeamServices, RunServices {
   lab: LabService;
 }
 
-export interface ContextOptions extends TeamServicesOptions, RunServicesOptions {
+export interface ContextOptions extends TeamServicesOptions, RunServicesOptions, BriefingServicesOptions {
   /** bcrypt work factor; 12 in production, lower locally to keep tests quick. */
   bcryptCost?: number;
   /** Worker threads for the lab's computations; one less than the cores by default. */
@@ -33,16 +34,19 @@ export function createContext(config: AppConfig, db: Knex, options: ContextOptio
   const bcryptCost = options.bcryptCost ?? (config.env === 'production' ? 12 : 10);
   const auth = new AuthService(db, bcryptCost);
   const bands = new BandService();
+  const team = createTeamServices(config, db, auth, options);
+  const runServices = createRunServices(config, db, bands, options);
   return {
     config,
     db,
     auth,
-    ...createTeamServices(config, db, auth, options),
+    ...team,
     catchments: new CatchmentService(),
     bands,
     datasets: new DatasetService(),
     uploads: new UploadService(),
     lab: new LabService(db, new BandService(), new LabPool(options.labThreads)),
-    ...createRunServices(config, db, bands, options),
+    ...runServices,
+    ...createBriefingServices({ runs: runServices.runs, results: runServices.results, invitations: team.invitations }, options),
   };
 }
