@@ -2,6 +2,7 @@ import { Router } from 'express';
 import type { AppContext } from '../context';
 import { authRoutes } from './auth';
 import { billingRoutes } from './billing';
+import { briefingRoutes } from './briefings';
 import { catchmentBandRoutes } from './catchment-bands';
 import { catchmentDatasetRoutes } from './catchment-datasets';
 import { catchmentRoutes } from './catchments';
@@ -30,5 +31,6 @@ export function apiRoutes(ctx: AppContext): Router {
   router.use(labRoutes(ctx));
   router.use(scenarioRoutes(ctx));
   router.use(runRoutes(ctx));
+  router.use(briefingRoutes(ctx));
   return router;
 }
