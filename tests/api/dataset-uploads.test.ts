@@ -85,7 +85,7 @@ describe('files with problems', () => {
   it('reads semicolon-separated files with decimal commas and says so', async () => {
     const id = await newCatchment();
     const res = await uploadSeries(agent, id, fixture('semicolon-decimal-comma.csv'));
-    expect(res.body).toMatchObject({ delimiter: ';', decimalComma: true, canConfirm: true, valueCount: 24 });
+    expect(res.body).toMatchObject({ delimiter: 'semicolon', decimalComma: true, canConfirm: true, valueCount: 24 });
     expect(res.body.firstRows[0].value).toBe(-8.8);
   });
 

@@ -96,7 +96,7 @@ export function readSeriesFile(text: string, options: SeriesFileOptions): ReadSe
       unitNote: unit.note,
       timeStep: step.step,
       timeStepNote: step.note,
-      delimiter: table.delimiter === '\t' ? 'tab' : table.delimiter,
+      delimiter: DELIMITER_NAMES[table.delimiter] ?? table.delimiter,
       decimalComma,
       columns: table.header.map((name, i) => ({ name, role: i === timeColumn ? 'time' : i === valueColumn ? 'value' : 'ignored' })),
       firstRows,
@@ -111,6 +111,7 @@ export function readSeriesFile(text: string, options: SeriesFileOptions): ReadSe
   };
 }
 
+const DELIMITER_NAMES: Record<string, string> = { ',': 'comma', ';': 'semicolon', '\t': 'tab' };
 const ERROR_KINDS = new Set(['unreadable_date', 'out_of_order', 'duplicate', 'not_a_number', 'implausible', 'step_mismatch']);
 
 function clip(text: string): string {
