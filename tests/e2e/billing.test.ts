@@ -79,19 +79,43 @@ describe('seats and team in the browser', () => {
     const mail = await h.catcher.waitFor((m) => m.to.includes(consultant));
     expect(mail.text).toContain(`${h.baseUrl}/invitation?token=`);
     await page.goto(`${h.baseUrl}/dev/inbox`);
-    await page.click(`[data-test=inbox-message]:has-text("${consultant}")`);
+    // The newest mail is shown opened, with its link.
+    const inboxLink = page.locator('[data-test=inbox-message]').first().locator('a[href*="/invitation?token="]');
+    await inboxLink.waitFor();
+    expect(await page.locator('[data-test=inbox-message]').first().textContent()).toContain(consultant);
+    const link = (await inboxLink.getAttribute('href'))!;
+    expect(mail.text).toContain(link);
     await shot(page, 'dev-inbox');
 
     // The invited consultant follows the link, chooses a password and can sign in.
     const invited = await browser.newPage();
-    const link = /http:\/\/\S+\/invitation\?token=\S+/.exec(mail.text)![0];
     await invited.goto(link);
     await invited.waitForSelector('[data-test=invitation-preview]');
+    await shot(invited, 'accept-invitation');
     await invited.fill('[data-test=accept-password]', 'glacier tongue retreat 2026');
     await invited.click('[data-test=accept-submit]');
     await invited.waitForSelector('[data-test=invitation-done]');
     await signInThroughForm(invited, h.baseUrl, consultant, 'glacier tongue retreat 2026');
     await invited.close();
+    await page.close();
+  });
+
+  it('resets a forgotten password from the sign-in page through the mailed link', async () => {
+    const page = await browser.newPage();
+    const email = org.users.scientist.email;
+    await page.goto(`${h.baseUrl}/sign-in`);
+    await page.click('[data-test=forgot-password]');
+    await page.fill('[data-test=reset-email]', email);
+    await page.click('[data-test=reset-send]');
+    await page.waitForSelector('[data-test=reset-sent]');
+    const mail = await h.catcher.waitFor((m) => m.to.includes(email) && m.subject.includes('password'));
+    const link = /http:\/\/\S+\/reset-password\?token=\S+/.exec(mail.text)![0];
+    await page.goto(link);
+    await page.fill('[data-test=reset-password]', 'moraine dust on the firn line');
+    await page.click('[data-test=reset-submit]');
+    await page.waitForSelector('[data-test=reset-done]');
+    await shot(page, 'reset-done');
+    await signInThroughForm(page, h.baseUrl, email, 'moraine dust on the firn line');
     await page.close();
   });
 });
