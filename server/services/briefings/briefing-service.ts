@@ -55,8 +55,9 @@ export class BriefingService {
   async draft(scope: TenantScope, id: number): Promise<Draft> {
     const b = await scope.findOr404<BriefingRow>('briefings', id, 'Briefing');
     const catchment = await scope.findOr404<CatchmentRow>('catchments', b.catchment_id, 'Catchment');
-    const versions = await scope.from('briefing_versions as v').leftJoin('users as u', 'u.id', 'v.published_by')
-      .where('v.briefing_id', id).orderBy('v.version', 'desc').select('v.version', 'v.published_at', 'u.name as published_by');
+    const versions = await scope.from('briefing_versions').leftJoin('users', 'users.id', 'briefing_versions.published_by')
+      .where('briefing_versions.briefing_id', id).orderBy('briefing_versions.version', 'desc')
+      .select('briefing_versions.version', 'briefing_versions.published_at', 'users.name as published_by');
     const shares = await scope.from('briefing_shares').join('users', 'users.id', 'briefing_shares.user_id')
       .where('briefing_shares.briefing_id', id).orderBy('users.email').select('users.id', 'users.email', 'users.name', 'users.status');
     return {

@@ -49,10 +49,10 @@ export class BriefingSharing {
   /** Writers see every comment; a client sees the team's and their own, never another client's. */
   async comments(scope: TenantScope, user: UserRow, briefingId: number): Promise<CommentItem[]> {
     await readableBriefing(scope, user, briefingId);
-    const query = scope.from('briefing_comments as c').leftJoin('users as u', 'u.id', 'c.user_id')
-      .where('c.briefing_id', briefingId).orderBy('c.created_at').orderBy('c.id')
-      .select('c.id', 'c.version', 'c.body', 'c.created_at', 'u.name', 'u.role', 'c.user_id');
-    if (!writes(user)) query.where((q) => q.where('c.user_id', user.id).orWhereIn('u.role', ['admin', 'consultant']));
+    const query = scope.from('briefing_comments').leftJoin('users', 'users.id', 'briefing_comments.user_id')
+      .where('briefing_comments.briefing_id', briefingId).orderBy(['briefing_comments.created_at', 'briefing_comments.id'])
+      .select('briefing_comments.id', 'briefing_comments.version', 'briefing_comments.body', 'briefing_comments.created_at', 'users.name', 'users.role');
+    if (!writes(user)) query.where((q) => q.where('briefing_comments.user_id', user.id).orWhereIn('users.role', ['admin', 'consultant']));
     const rows: Record<string, unknown>[] = await query;
     return rows.map((r) => ({
       id: Number(r.id), author: String(r.name ?? 'former member'), role: String(r.role ?? ''), version: r.version === null ? null : Number(r.version),
