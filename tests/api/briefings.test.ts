@@ -1,6 +1,6 @@
 import { PDFParse } from 'pdf-parse';
 import type TestAgent from 'supertest/lib/agent';
-import request from 'supertest';
+import type request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { CAUTIONS } from '../../shared/text/cautions';
 import { SECTIONS, catchmentWithRun } from '../support/briefings';
