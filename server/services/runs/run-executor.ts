@@ -98,9 +98,7 @@ export class RunExecutor {
       void this.db('runs').where({ id: runId, status: 'running' }).update({ progress: Math.min(progress, 0.99) }).catch(() => undefined);
     };
     try {
-      const summaries: SimulationSummary[] = await Promise.all(
-        job.members.map((m, i) => this.pool.simulate(m.input, (f) => reportProgress(i, f), signal)),
-      );
+      const summaries = await this.simulateAll(job, reportProgress, signal);
       if (signal.aborted) throw signal.reason;
       await storeMembers(new TenantScope(this.db, job.organisationId), runId, job.members.map((m, i) => ({ plan: m.plan, summary: summaries[i] })));
       await this.finish(runId, 'done', null);
@@ -108,6 +106,23 @@ export class RunExecutor {
       if (signal.aborted) await this.finish(runId, 'cancelled', null);
       else await this.finish(runId, 'failed', failureMessage(error));
     }
+  }
+
+  /**
+   * Hands the job's simulations to the pool a few at a time rather than all at once: copying
+   * each input to a thread happens on the API's event loop, and 100 copies in one go would stall it.
+   */
+  private async simulateAll(job: RunJob, onProgress: (i: number, fraction: number) => void, signal: AbortSignal): Promise<SimulationSummary[]> {
+    const summaries = new Array<SimulationSummary>(job.members.length);
+    let next = 0;
+    const lane = async () => {
+      while (next < job.members.length && !signal.aborted) {
+        const i = next++;
+        summaries[i] = await this.pool.simulate(job.members[i].input, (f) => onProgress(i, f), signal);
+      }
+    };
+    await Promise.all(Array.from({ length: Math.min(job.members.length, this.pool.threads * 2) }, lane));
+    return summaries;
   }
 
   private async finish(runId: number, status: 'done' | 'failed' | 'cancelled', message: string | null): Promise<void> {

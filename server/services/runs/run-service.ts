@@ -92,7 +92,8 @@ export class RunService {
       if (error instanceof SimulationInputError) throw validationFailed(`The inputs cannot be simulated: ${error.issues[0].path}: ${error.issues[0].message}`, error.issues[0].path, { issues: error.issues });
       throw error;
     }
-    const hash = inputHash({ engineVersion: ENGINE_VERSION, drivers: plan.drivers, members: members.map((m) => [m.plan.key, m.input]) });
+    // Every member is the stored inputs plus its own changes: hash the stored part once.
+    const hash = inputHash({ engineVersion: ENGINE_VERSION, drivers: plan.drivers, stored, members: plan.members.map((m) => [m.key, m.input]) });
     const same = await scope.from<RunRow>('runs').where({ input_hash: hash }).whereIn('status', ['queued', 'running', 'done']).orderBy('id', 'desc').first();
     if (same) return { run: toRun(same), reused: true };
 

@@ -4,8 +4,11 @@ import type { MemberPlan } from '../../../shared/analysis/run-plan';
 import { SOURCES, type Source } from '../../../shared/melt/result';
 import type { TenantScope } from '../tenant-scope';
 
-/** MySQL allows 65,535 placeholders per statement; 14 columns × 2000 rows stays well below. */
-const CHUNK = 2000;
+/**
+ * Rows per INSERT: MySQL allows 65,535 placeholders per statement, and building one statement
+ * runs on the API's event loop, so chunks stay small enough to keep it responsive.
+ */
+const CHUNK = 500;
 
 const DAILY_COLUMN: Record<Source, string> = { snow: 'snow_m3', ice: 'ice_m3', debrisIce: 'debris_ice_m3', rain: 'rain_m3' };
 
