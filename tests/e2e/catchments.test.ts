@@ -27,6 +27,7 @@ describe('catchments in the browser', () => {
     await page.fill('[data-test=catchment-search]', 'Sarvel');
     const row = page.locator('[data-test=catchment-table] tbody tr', { hasText: DEMO_CATCHMENT.name });
     await row.waitFor();
+    await page.waitForFunction(() => document.querySelectorAll('[data-test=catchment-table] tbody tr').length === 1);
     await page.screenshot({ path: 'test-results/catchments-list.png' });
     await row.click();
     await page.waitForSelector(`[data-test=catchment-title]:has-text("${DEMO_CATCHMENT.name}")`);
@@ -38,7 +39,8 @@ describe('catchments in the browser', () => {
     await page.screenshot({ path: 'test-results/catchment-bands.png', fullPage: true });
 
     await page.click('[data-test=tab-climate]');
-    await page.waitForSelector('[data-test=series-chart] canvas');
+    await page.click('[data-test=dataset-temperature]');
+    await page.waitForSelector('[data-test=series-chart]:has-text("Air temperature") canvas');
     await page.waitForSelector('[data-test=monthly-table]');
     expect(await page.textContent('[data-test=completeness-temperature]')).toBe('99.98 % complete');
     await page.screenshot({ path: 'test-results/catchment-climate.png', fullPage: true });
