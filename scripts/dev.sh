@@ -10,6 +10,8 @@ export DB_NAME=${DB_NAME:-tarnish}
 export DB_USER=${DB_USER:-tarnish}
 export DB_PASSWORD=${DB_PASSWORD:-tarnish-local-only}
 export PORT=${PORT:-3000}
+# Links in mails and the return from the payment page go to the Vite dev server.
+export PUBLIC_URL=${PUBLIC_URL:-http://127.0.0.1:5173}
 
 ensure_node_modules
 ensure_mariadb_installed

@@ -12,15 +12,16 @@ async function main(): Promise<void> {
   const catcher = await startMailCatcher(config.mail.port);
   const fake = await startFakeStripe({
     port: config.billing.port,
-    webhookUrl: `${config.publicUrl}/api/billing/webhook`,
+    // Straight to the API, also under `npm run dev` where the public URL is Vite's.
+    webhookUrl: `http://${config.host}:${config.port}/api/billing/webhook`,
     webhookSecret: config.billing.webhookSecret,
     apiKey: config.billing.secretKey,
   });
   const server = await startServer({ inbox: catcher });
   const replayed = await replayPlansInFake(server.ctx, fake);
 
-  console.log(`\n  Tarnish is running at ${server.url}\n`);
-  console.log(`  Mail inbox (development only): ${server.url}/dev/inbox   (SMTP catcher on 127.0.0.1:${catcher.port})`);
+  console.log(`\n  Tarnish is running at ${config.publicUrl}${config.publicUrl === server.url ? '' : ` (API on ${server.url})`}\n`);
+  console.log(`  Mail inbox (development only): ${config.publicUrl}/dev/inbox   (SMTP catcher on 127.0.0.1:${catcher.port})`);
   console.log(`  Payment service fake: ${fake.url}   (card 4242 4242 4242 4242; ${replayed} seat plan(s) set up in it)\n`);
   console.log('  Demo sign-ins (local use only):');
   for (const a of DEMO_ACCOUNTS) console.log(`    ${a.role.padEnd(11)} ${a.email.padEnd(32)} ${a.password}`);

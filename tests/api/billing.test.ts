@@ -240,6 +240,18 @@ describe('payment service down', () => {
       expect(resize.body.error.message).toContain('payment service cannot be reached');
       expect(await localRow(org)).toEqual(before);
 
+      // A webhook that cannot be checked against the service is refused unrecorded, so the fake sends it again.
+      const late = await createOrganisation(cut.db);
+      const ref = await paidWithoutWebhooks(late, 3);
+      const event = (await eventsFor(ref)).find((e) => e.type === 'customer.subscription.created')!;
+      const body = JSON.stringify(event);
+      const refused = await request(cut.app).post('/api/billing/webhook').set('Content-Type', 'application/json').set('Stripe-Signature', sign(body)).send(body);
+      expect(refused.status).toBe(503);
+      expect(await h.t.db('payment_events').where({ id: event.id }).first()).toBeUndefined();
+      expect(await localRow(late)).toBeUndefined();
+      expect((await postEvent(body, sign(body))).status).toBe(200);
+      expect(await localRow(late)).toMatchObject({ status: 'active', seats: 3 });
+
       const other = await createOrganisation(cut.db);
       const otherAdmin = await signedInAgent(cut.app, other.users.admin.email);
       expect((await otherAdmin.post('/api/billing/checkout').send({ seats: 3, interval: 'monthly' })).status).toBe(503);

@@ -28,6 +28,8 @@ describe('seats and team in the browser', () => {
     // No plan yet: the page says what is blocked and offers one.
     await page.click('[data-test=nav-billing]');
     await page.waitForSelector('[data-test=subscription-inactive]');
+    await page.waitForSelector('[data-test=buy-card]');
+    await shot(page, 'no-plan');
     await page.fill('[data-test=buy-seats]', '3');
     await page.click('[data-test=buy-checkout]');
 

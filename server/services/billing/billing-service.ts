@@ -3,13 +3,14 @@ import type Stripe from 'stripe';
 import type { UserRow } from '../auth-service';
 import type { AppConfig } from '../../config';
 import { conflict, notFound, paymentRequired } from '../../errors';
-import type {
-  BillingInterval,
-  BillingSummary,
-  CheckoutRequest,
-  Invoice,
-  Plan,
-  Subscription,
+import {
+  BILLING_INTERVALS,
+  type BillingInterval,
+  type BillingSummary,
+  type CheckoutRequest,
+  type Invoice,
+  type Plan,
+  type Subscription,
 } from '../../../shared/schemas/billing';
 import type { TenantScope } from '../tenant-scope';
 import { callPayments } from './payments-client';
@@ -27,10 +28,11 @@ export class BillingService {
   async plans(): Promise<Plan[]> {
     const { monthly, yearly } = this.config.billing.prices;
     const prices = await callPayments(() => this.payments.prices.list({ lookup_keys: [monthly, yearly], active: true }));
-    return prices.data.flatMap((price) => {
+    const plans = prices.data.flatMap((price) => {
       const interval = this.intervalOf(price.lookup_key);
       return interval ? [{ interval, unitAmount: price.unit_amount ?? 0, currency: price.currency }] : [];
     });
+    return plans.sort((a, b) => BILLING_INTERVALS.indexOf(a.interval) - BILLING_INTERVALS.indexOf(b.interval));
   }
 
   async summary(scope: TenantScope): Promise<BillingSummary> {

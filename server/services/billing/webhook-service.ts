@@ -1,7 +1,7 @@
 import type { Knex } from 'knex';
 import type Stripe from 'stripe';
 import { badRequest } from '../../errors';
-import { callPayments } from './payments-client';
+import { toAppError } from './payments-client';
 import { lockOrganisation } from './seats';
 import { applySubscription, organisationIdOf } from './subscription-sync';
 
@@ -49,13 +49,15 @@ export class WebhookService {
     if (await this.db('payment_events').where({ id: event.id }).first('id')) return false;
     const ref = subscriptionRefOf(event);
     // Read once to learn the organisation; read again under its lock for the state to keep.
-    const organisationId = ref ? await this.knownOrganisation(organisationIdOf(await this.retrieve(ref))) : null;
+    const first = ref ? await this.retrieve(ref) : null;
+    const organisationId = first ? await this.knownOrganisation(organisationIdOf(first)) : null;
     try {
       await this.db.transaction(async (trx) => {
         await trx('payment_events').insert({ id: event.id, type: event.type, organisation_id: organisationId });
         if (!ref || !organisationId) return;
         await lockOrganisation(trx, organisationId);
-        await applySubscription(trx, organisationId, await this.retrieve(ref));
+        const current = await this.retrieve(ref);
+        if (current) await applySubscription(trx, organisationId, current);
       });
       return true;
     } catch (error) {
@@ -69,7 +71,13 @@ export class WebhookService {
     return (await this.db('organisations').where({ id }).first('id')) ? id : null;
   }
 
-  private retrieve(ref: string): Promise<Stripe.Subscription> {
-    return callPayments(() => this.payments.subscriptions.retrieve(ref));
+  /** The subscription as the service sees it now; null when the service does not know it (kept, not retried). */
+  private async retrieve(ref: string): Promise<Stripe.Subscription | null> {
+    try {
+      return await this.payments.subscriptions.retrieve(ref);
+    } catch (error) {
+      if ((error as { code?: string }).code === 'resource_missing') return null;
+      throw toAppError(error);
+    }
   }
 }
