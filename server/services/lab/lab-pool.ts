@@ -20,9 +20,14 @@ export class LabPool {
 
   constructor(readonly threads = defaultLabThreads()) {}
 
+  /** Starts the threads now rather than on the first task: loading the engine in a thread stalls the API briefly. */
+  warm(): void {
+    void this.pool;
+  }
+
   private get pool(): Piscina {
     const execArgv = process.execArgv.some((a) => TSX_LOADER.test(a)) ? process.execArgv : [...process.execArgv, '--import', 'tsx'];
-    this.piscina ??= new Piscina({ filename: WORKER.href, minThreads: 0, maxThreads: this.threads, idleTimeout: 60_000, execArgv });
+    this.piscina ??= new Piscina({ filename: WORKER.href, minThreads: this.threads, maxThreads: this.threads, idleTimeout: 60_000, execArgv });
     return this.piscina;
   }
 

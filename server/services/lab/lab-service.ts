@@ -18,8 +18,8 @@ import { LabData } from './lab-data';
 import { LabJobs } from './lab-jobs';
 import { LabPool } from './lab-pool';
 
-/** Cells per worker task in a sweep: small enough for steady progress, large enough to keep threads busy. */
-const CELLS_PER_TASK = 10;
+/** Worker tasks per thread in a sweep: a few, so every thread stays busy to the end. */
+const TASKS_PER_THREAD = 4;
 
 /** The lab: surface response, reference models, skill scores, calibration and sweeps for a catchment. */
 export class LabService {
@@ -83,8 +83,9 @@ export class LabService {
     const set = await this.calibratedParameters(scope, catchmentId);
     const site = await this.data.site(scope, catchmentId, plan.period, set);
     const cells = sweepCells(plan);
+    const size = Math.ceil(cells.length / (this.pool.threads * TASKS_PER_THREAD));
     const chunks: number[][][] = [];
-    for (let i = 0; i < cells.length; i += CELLS_PER_TASK) chunks.push(cells.slice(i, i + CELLS_PER_TASK).map((c) => c.values));
+    for (let i = 0; i < cells.length; i += size) chunks.push(cells.slice(i, i + size).map((c) => c.values));
     return this.jobs.start(scope, user, catchmentId, 'sweep', plan, async (signal, report) => {
       report(0, 'Building the snowpack before the period');
       const { setup, baseline } = await this.pool.run<{ setup: SweepSetup; baseline: number }>({ kind: 'sweepSetup', site, plan }, undefined, signal);
