@@ -10,6 +10,7 @@ export async function startServer(options: ContextOptions = {}): Promise<{ close
   const ctx = createContext(config, db, options);
   // Lab jobs left running by an earlier process cannot resume: their work was in its memory.
   await ctx.lab.jobs.recover();
+  ctx.lab.pool.warm();
   // Runs left queued or running by an earlier process cannot resume: their inputs were in its memory.
   await ctx.runExecutor.recover();
   ctx.simulationPool.warm();
