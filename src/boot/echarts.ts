@@ -3,11 +3,16 @@
  * so the bundle stays small. Imported by BaseChart only, which keeps ECharts out of the entry chunk.
  */
 import { use, init } from 'echarts/core';
-import { BarChart, LineChart } from 'echarts/charts';
-import { DataZoomComponent, GridComponent, LegendComponent, TooltipComponent } from 'echarts/components';
+import { BarChart, HeatmapChart, LineChart } from 'echarts/charts';
+import {
+  DataZoomComponent, GridComponent, LegendComponent, MarkLineComponent, MarkPointComponent, TooltipComponent, VisualMapComponent,
+} from 'echarts/components';
 import { CanvasRenderer, SVGRenderer } from 'echarts/renderers';
 
-use([LineChart, BarChart, GridComponent, TooltipComponent, LegendComponent, DataZoomComponent, CanvasRenderer, SVGRenderer]);
+use([
+  LineChart, BarChart, HeatmapChart, GridComponent, TooltipComponent, LegendComponent, DataZoomComponent,
+  MarkLineComponent, MarkPointComponent, VisualMapComponent, CanvasRenderer, SVGRenderer,
+]);
 
 /** Browser tests set this flag so screenshots show the final frame. */
 export const chartsAnimated = !(globalThis as { __TARNISH_NO_ANIMATION__?: boolean }).__TARNISH_NO_ANIMATION__;
