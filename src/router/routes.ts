@@ -52,6 +52,18 @@ export const routes: RouteRecordRaw[] = [
         meta: { roles: ['admin', 'consultant', 'client'], nav: { label: 'Briefings', icon: 'article', caption: 'Published results' }, title: 'Briefings' },
       },
       {
+        path: 'briefings/:id(\\d+)/edit',
+        name: 'briefing-edit',
+        component: () => import('src/pages/BriefingEditorPage.vue'),
+        meta: { roles: ['admin', 'consultant'], title: 'Briefing draft' },
+      },
+      {
+        path: 'briefings/:id(\\d+)/:version(\\d+)?',
+        name: 'briefing-read',
+        component: () => import('src/pages/BriefingReadingPage.vue'),
+        meta: { roles: ['admin', 'consultant', 'client'], title: 'Briefing' },
+      },
+      {
         path: 'team',
         name: 'team',
         component: () => import('src/pages/TeamPage.vue'),
