@@ -1,0 +1,61 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { seed as seedOrganisation } from '../../seeds/01_demo_organisation';
+import { seed as seedCatchment } from '../../seeds/02_demo_catchment';
+import { DEMO_ACCOUNTS } from '../../seeds/data/demo-accounts';
+import { DEMO_CATCHMENT } from '../../seeds/data/demo-catchment';
+import { openBrowser, signInThroughForm, type BrowserSession } from '../support/browser';
+
+let b: BrowserSession;
+let catchmentId: number;
+const scientist = DEMO_ACCOUNTS.find((a) => a.role === 'scientist')!;
+const client = DEMO_ACCOUNTS.find((a) => a.role === 'client')!;
+
+beforeAll(async () => {
+  b = await openBrowser();
+  await seedOrganisation(b.t.db);
+  await seedCatchment(b.t.db);
+  catchmentId = (await b.t.db('catchments').where({ name: DEMO_CATCHMENT.name }).orderBy('id', 'desc').first('id')).id;
+});
+afterAll(async () => {
+  await b?.t.ctx.lab.pool.close();
+  await b?.close();
+});
+
+describe('the lab in the browser', () => {
+  it('shows a scientist the Østrem curve and the calibration chart for the demo catchment', async () => {
+    const page = await b.newPage();
+    await signInThroughForm(page, b.baseUrl, scientist.email, scientist.password);
+    await page.goto(`${b.baseUrl}/lab?catchment=${catchmentId}`);
+    await page.waitForSelector('[data-test=ostrem-chart] canvas', { timeout: 60_000 });
+    await page.waitForSelector('[data-test=impurity-chart] canvas');
+    const summary = await page.textContent('[data-test=lab-surface] p');
+    expect(summary).toMatch(/critical thickness of [\d.]+ cm/);
+    await page.screenshot({ path: 'test-results/lab-surface.png', fullPage: true });
+
+    await page.click('[data-test=ostrem-chart-view] >> text=Table');
+    expect(await page.locator('[data-test=ostrem-chart] tbody tr').count()).toBeGreaterThan(10);
+
+    await page.click('[data-test=lab-tab-calibration]');
+    await page.waitForSelector('[data-test=calibration-chart] canvas', { timeout: 60_000 });
+    const scores = await page.textContent('[data-test=scores-table]');
+    expect(scores).toMatch(/Daily/);
+    expect(scores).toMatch(/Monthly means/);
+    await page.screenshot({ path: 'test-results/lab-calibration.png', fullPage: true });
+
+    await page.fill('[data-test=param-lapseRateCPerKm]', '-5.5');
+    await page.click('[data-test=save-calibration]');
+    await page.waitForSelector('[data-test=calibration-saved]');
+    expect(await page.textContent('[data-test=calibration-saved]')).toMatch(/saved by .* \(daily KGE -?[\d.]+/i);
+    await page.close();
+  });
+
+  it('keeps clients out of the lab', async () => {
+    const page = await b.newPage();
+    await signInThroughForm(page, b.baseUrl, client.email, client.password);
+    expect(await page.locator('[data-test=nav-lab]').count()).toBe(0);
+    await page.goto(`${b.baseUrl}/lab`);
+    await page.waitForTimeout(500);
+    expect(await page.locator('[data-test=lab-surface]').count()).toBe(0);
+    await page.close();
+  });
+});
