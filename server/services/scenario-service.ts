@@ -5,6 +5,8 @@ import type { z } from 'zod';
 import type { scenarioCreateSchema, scenarioUpdateSchema } from '../../shared/schemas/scenarios';
 import { conflict, notFound, validationFailed } from '../errors';
 import type { TenantScope } from './tenant-scope';
+import { climateRecord } from './runs/climate-record';
+import { defaultSeason } from '../../shared/analysis/default-season';
 
 interface ScenarioRow {
   id: number;
@@ -60,10 +62,14 @@ export class ScenarioService {
   async ensureBaseline(scope: TenantScope, catchmentId: number): Promise<ScenarioRecord> {
     const existing = await scope.from<ScenarioRow>('scenarios').where({ catchment_id: catchmentId, is_baseline: true }).first();
     if (existing) return toScenario(existing);
+    // It starts on the latest full melt season of the stored climate record, if there is one.
+    const catchment = await scope.findOr404<{ latitude_deg: number }>('catchments', catchmentId, 'Catchment');
+    const record = await climateRecord(scope, catchmentId);
+    const period = record ? defaultSeason(record, catchment.latitude_deg) : null;
     try {
       const id = await scope.insert('scenarios', {
         catchment_id: catchmentId, name: BASELINE_NAME, description: 'The station record without changes.', is_baseline: true,
-        schema_version: SCENARIO_SCHEMA_VERSION, changes: JSON.stringify(scenarioChangesSchema.parse({})),
+        schema_version: SCENARIO_SCHEMA_VERSION, changes: JSON.stringify(scenarioChangesSchema.parse({ period })),
       });
       return this.get(scope, catchmentId, id);
     } catch (error) {

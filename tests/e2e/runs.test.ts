@@ -1,0 +1,62 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { seed as seedOrganisation } from '../../seeds/01_demo_organisation';
+import { seed as seedCatchment } from '../../seeds/02_demo_catchment';
+import { seed as seedSubscription } from '../../seeds/02_demo_subscription';
+import { DEMO_ACCOUNTS } from '../../seeds/data/demo-accounts';
+import { DEMO_CATCHMENT } from '../../seeds/data/demo-catchment';
+import { openBrowser, signInThroughForm, type BrowserSession } from '../support/browser';
+import { unique } from '../support/factories';
+
+let b: BrowserSession;
+let catchmentId: number;
+const consultant = DEMO_ACCOUNTS.find((a) => a.role === 'consultant')!;
+
+beforeAll(async () => {
+  b = await openBrowser();
+  await seedOrganisation(b.t.db);
+  await seedCatchment(b.t.db);
+  await seedSubscription(b.t.db);
+  catchmentId = (await b.t.db('catchments').where({ name: DEMO_CATCHMENT.name }).first('id')).id;
+});
+afterAll(async () => {
+  await b?.t.ctx.runExecutor.idle();
+  await b?.t.ctx.simulationPool.close();
+  await b?.close();
+});
+
+describe('darkening scenarios in the browser', () => {
+  it('takes a consultant from the demo catchment to a black-carbon variant, its run, the added-melt chart and the totals', async () => {
+    const page = await b.newPage();
+    await signInThroughForm(page, b.baseUrl, consultant.email, consultant.password);
+    await page.goto(`${b.baseUrl}/catchments/${catchmentId}?tab=runs`);
+    await page.waitForSelector('[data-test=runs-panel] [data-test="scenario-Baseline"]');
+
+    const name = unique('Soot ');
+    await page.click('[data-test=new-scenario]');
+    await page.waitForSelector('[data-test=scenario-form]');
+    await page.fill('[data-test=scenario-name]', name);
+    await page.fill('[data-test=bc-snow-value]', '500');
+    await page.fill('[data-test=bc-ice-value]', '2000');
+    // The in-browser preview: the band with the most glacier, baseline against this variant.
+    await page.waitForFunction(() => /[1-9]/.test(document.querySelector('[data-test=preview-added]')?.textContent ?? ''), null, { timeout: 30_000 });
+    expect(await page.textContent('[data-test=preview-added]')).toMatch(/mm w\.e\./);
+    await page.screenshot({ path: 'test-results/runs-scenario-builder.png', fullPage: true });
+    await page.click('[data-test=save-scenario]');
+
+    await page.waitForSelector(`[data-test="scenario-${name}"]`);
+    await page.click(`[data-test="run-${name}"]`);
+    await page.click('[data-test=start-run]');
+    const row = page.locator('[data-test=runs-table] tbody tr', { hasText: name }).first();
+    await row.locator('text=done').waitFor({ timeout: 60_000 });
+    await page.screenshot({ path: 'test-results/runs-list.png', fullPage: true });
+    await row.locator('[data-test^=results-]').click();
+
+    await page.waitForSelector('[data-test=chart-bands] canvas', { timeout: 30_000 });
+    await page.waitForSelector('[data-test=chart-hydrograph] canvas');
+    await page.waitForSelector('[data-test=cautions]');
+    const volume = await page.textContent('[data-test=total-addedVolumeMillionM3]');
+    expect(Number(volume!.replace(/[^0-9.]/g, ''))).toBeGreaterThan(0);
+    await page.screenshot({ path: 'test-results/runs-results.png', fullPage: true });
+    await page.close();
+  });
+});
