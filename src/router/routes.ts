@@ -40,6 +40,18 @@ export const routes: RouteRecordRaw[] = [
         meta: { roles: WORKSHOP, title: 'Catchment' },
       },
       {
+        path: 'catchments/:id(\\d+)/scenarios/:scenarioId(\\d+|new)',
+        name: 'scenario',
+        component: () => import('src/pages/ScenarioBuilderPage.vue'),
+        meta: { roles: WORKSHOP, title: 'Scenario' },
+      },
+      {
+        path: 'catchments/:id(\\d+)/results',
+        name: 'run-results',
+        component: () => import('src/pages/RunResultsPage.vue'),
+        meta: { roles: WORKSHOP, title: 'Results' },
+      },
+      {
         path: 'lab',
         name: 'lab',
         component: () => import('src/pages/LabPage.vue'),
