@@ -26,6 +26,10 @@ export function labRoutes(ctx: AppContext): Router {
     res.json(await ctx.lab.skill(authOf(req).scope, idParam(req), req.body));
   });
 
+  router.post(`${base}/stake-skill`, async (req, res) => {
+    res.json(await ctx.lab.stakeSkill(authOf(req).scope, idParam(req), req.body));
+  });
+
   router.get(`${base}/calibration`, async (req, res) => {
     const { scope } = authOf(req);
     await scope.findOr404('catchments', idParam(req), 'Catchment');

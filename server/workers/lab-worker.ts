@@ -5,6 +5,7 @@ import { evaluateDischarge, splitSample, calibrate } from '../../shared/lab/cali
 import { baselineMelt, cellMelt, prepareSweep, type SweepPlan, type SweepSetup } from '../../shared/lab/sweep';
 import type { CalibrationKey, CalibrationSet } from '../../shared/lab/calibration-set';
 import type { DatedValue } from '../../shared/lab/paired-series';
+import { compareStakes, type StakeObservation } from '../../shared/lab/stake-balance';
 import type { BandSite, LabSite, Period } from '../../shared/lab/site';
 
 /** The lab's computations, each run in a worker thread so the API keeps answering. */
@@ -12,6 +13,7 @@ export type LabTask =
   | { kind: 'surface'; site: BandSite }
   | { kind: 'reference'; site: BandSite }
   | { kind: 'skill'; site: LabSite; observed: DatedValue[]; period: Period }
+  | { kind: 'stakes'; site: LabSite; observed: StakeObservation[] }
   | { kind: 'sweepSetup'; site: LabSite; plan: SweepPlan }
   | { kind: 'sweepCells'; setup: SweepSetup; cells: number[][] }
   | {
@@ -33,6 +35,8 @@ function run(task: LabTask, report: (fraction: number) => void): unknown {
       return compareMeltModels(task.site);
     case 'skill':
       return evaluateDischarge(task.site, task.observed, task.period);
+    case 'stakes':
+      return compareStakes(task.site, task.observed);
     case 'sweepSetup': {
       const setup = prepareSweep(task.site, task.plan);
       return { setup, baseline: baselineMelt(setup) };

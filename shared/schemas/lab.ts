@@ -35,6 +35,7 @@ export const calibrationSetSchema = z.object({
 export type CalibrationSetInput = z.input<typeof calibrationSetSchema>;
 
 export const skillRequestSchema = z.object({ period: labPeriodSchema, set: calibrationSetSchema.optional() });
+export const stakeSkillRequestSchema = z.object({ set: calibrationSetSchema.optional() });
 export const saveCalibrationSchema = z.object({ period: labPeriodSchema, set: calibrationSetSchema, note: z.string().trim().max(500).default('') });
 
 export const calibrateRequestSchema = z.object({
@@ -80,6 +81,18 @@ export type DischargeEvaluationReply = z.infer<typeof dischargeEvaluationSchema>
 const setReplySchema = z.object({ parameters: z.record(z.string(), z.number()), precipitationFactor: z.number() });
 
 export const skillReplySchema = z.object({ set: setReplySchema, evaluation: dischargeEvaluationSchema });
+
+export const stakeSkillReplySchema = z.object({
+  set: setReplySchema,
+  comparison: z.object({
+    readings: z.array(z.object({ stake: z.string(), elevationM: z.number(), from: z.string(), to: z.string(), balanceMWe: z.number(), bandIndex: z.number(), simulatedMWe: z.number() })),
+    outsideRecord: z.number(),
+    scores: skillScoresSchema.nullable(),
+    meanErrorMWe: z.number(),
+    rmseMWe: z.number(),
+  }),
+});
+export type StakeSkillReply = z.infer<typeof stakeSkillReplySchema>;
 
 export const savedCalibrationSchema = z.object({
   id: z.number().int(),

@@ -3,7 +3,7 @@ import type { Express } from 'express';
 import { createTestApp, type TestApp } from '../support/test-app';
 import { createOrganisation, signedInAgent, type TestOrg } from '../support/factories';
 import { createDemoCatchment } from '../support/lab-catchment';
-import { calibrationHistorySchema, labJobSchema, skillReplySchema, surfaceResponseSchema, sweepResultSchema, calibrationResultSchema, type LabJob } from '../../shared/schemas/lab';
+import { calibrationHistorySchema, labJobSchema, skillReplySchema, stakeSkillReplySchema, surfaceResponseSchema, sweepResultSchema, calibrationResultSchema, type LabJob } from '../../shared/schemas/lab';
 import { nse } from '../../shared/melt/index';
 
 let t: TestApp;
@@ -119,6 +119,19 @@ describe('skill scores and saved calibration', () => {
     const { TenantScope } = await import('../../server/services/tenant-scope');
     expect(await t.ctx.lab.calibratedParameters(new TenantScope(t.db, org.organisationId), catchmentId)).toEqual(set);
     await expect(t.ctx.lab.calibratedParameters(new TenantScope(t.db, other.organisationId), catchmentId)).rejects.toMatchObject({ status: 404 });
+  });
+  it('compares simulated with measured stake balances inside the climate record', async () => {
+    const scientist = await signedInAgent(app, org.users.scientist.email);
+    const res = await scientist.post(`/api/lab/catchments/${catchmentId}/stake-skill`).send({});
+    expect(res.status).toBe(200);
+    const { comparison } = stakeSkillReplySchema.parse(res.body);
+    expect(comparison.readings).toHaveLength(16);
+    expect(comparison.outsideRecord).toBe(8);
+    const errors = comparison.readings.map((r) => r.simulatedMWe - r.balanceMWe);
+    expect(comparison.meanErrorMWe).toBeCloseTo(errors.reduce((a, e) => a + e, 0) / errors.length, 10);
+    expect((await scientist.post(`/api/lab/catchments/${otherCatchmentId}/stake-skill`).send({})).status).toBe(404);
+    expect((await scientist.post(`/api/lab/catchments/${otherCatchmentId}/stake-skill`).send({ set: { precipitationFactor: 1.1 } })).status).toBe(404);
+    expect((await scientist.post(`/api/lab/catchments/${otherCatchmentId}/skill`).send({ period: season, set: { precipitationFactor: 1.1 } })).status).toBe(404);
   });
   it('refuses a parameter outside its range, naming the field', async () => {
     const scientist = await signedInAgent(app, org.users.scientist.email);

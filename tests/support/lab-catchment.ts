@@ -1,13 +1,15 @@
 import type { Knex } from 'knex';
 import { variableSpec, type Variable } from '../../shared/schemas/dataset-variables';
-import { insertDatasetValues } from '../../server/services/dataset-values';
+import { insertDatasetValues, insertStakeReadings } from '../../server/services/dataset-values';
+import { syntheticStakeReadings } from '../../seeds/data/synthetic-stakes';
 import { DEMO_BANDS, DEMO_CATCHMENT } from '../../seeds/data/demo-catchment';
 import { syntheticStation } from '../../seeds/data/synthetic-station';
 import { unique } from './factories';
 
 /**
  * The demo catchment's bands and synthetic station record (seeds/data) stored for any
- * organisation, two hydrological years from 2021-10-01, so lab tests run on the demo climate.
+ * organisation (two hydrological years of climate from 2021-10-01, discharge and the demo stakes),
+ * so lab tests run on the demo climate.
  */
 export async function createDemoCatchment(db: Knex, organisationId: number, options: { withDischarge?: boolean } = {}): Promise<number> {
   const c = DEMO_CATCHMENT;
@@ -21,17 +23,26 @@ export async function createDemoCatchment(db: Knex, organisationId: number, opti
     glacier_fraction: b.glacierFraction, debris_fraction: b.debrisFraction, debris_thickness_m: b.debrisThicknessM,
   })));
   const station = syntheticStation({ start: '2021-10-01', days: 730, seed: 20211001 });
-  const add = async (variable: Variable, step: 'hourly' | 'daily', series: { times: string[]; values: number[] }) => {
+  const dataset = async (variable: Variable, step: 'hourly' | 'daily', first: string, last: string, count: number): Promise<number> => {
     const spec = variableSpec(variable);
     const [datasetId] = await db('datasets').insert({
       organisation_id: organisationId, catchment_id: catchmentId, variable, kind: spec.kind, unit: spec.storedUnit, original_unit: spec.storedUnit,
       time_step: step, time_zone: c.timeZone, source: 'lab test', accuracy: 'invented', file_name: `${variable}.csv`, uploaded_by_name: 'test',
-      first_at: series.times[0], last_at: series.times.at(-1), value_count: series.values.length,
+      first_at: first, last_at: last, value_count: count,
     });
+    return datasetId;
+  };
+  const add = async (variable: Variable, step: 'hourly' | 'daily', series: { times: string[]; values: number[] }) => {
+    const datasetId = await dataset(variable, step, series.times[0], series.times.at(-1)!, series.values.length);
     await insertDatasetValues(db, { datasetId, organisationId }, series.times, series.values);
   };
   await add('temperature', 'hourly', station.hourlyTemperature);
   await add('precipitation', 'daily', station.dailyPrecipitation);
-  if (options.withDischarge ?? true) await add('discharge', 'daily', station.dailyDischarge);
+  if (options.withDischarge ?? true) {
+    await add('discharge', 'daily', station.dailyDischarge);
+    // the third balance year lies outside the two years of climate stored here
+    const stakes = syntheticStakeReadings();
+    await insertStakeReadings(db, { datasetId: await dataset('pointBalance', 'daily', stakes[0].from, stakes.at(-1)!.to, stakes.length), organisationId }, stakes);
+  }
   return catchmentId;
 }

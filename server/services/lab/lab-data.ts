@@ -2,10 +2,11 @@ import { addDays } from '../../../shared/melt/calendar';
 import type { CalibrationSet } from '../../../shared/lab/calibration-set';
 import type { DatedValue } from '../../../shared/lab/paired-series';
 import type { LabSite, Period } from '../../../shared/lab/site';
+import type { StakeObservation } from '../../../shared/lab/stake-balance';
 import { validationFailed } from '../../errors';
 import type { BandService } from '../band-service';
 import type { DatasetRow } from '../dataset-service';
-import { readDatasetValues } from '../dataset-values';
+import { readDatasetValues, readStakeReadings } from '../dataset-values';
 import { buildSimulationInputs, requireReadyInputs } from '../simulation-inputs';
 import type { TenantScope } from '../tenant-scope';
 
@@ -16,20 +17,21 @@ const SPIN_UP_DAYS = 365;
 export class LabData {
   constructor(private readonly bands: BandService) {}
 
-  /** First date on which both temperature and precipitation are recorded, or null without them. */
-  async recordStart(scope: TenantScope, catchmentId: number): Promise<string | null> {
+  /** First and last dates on which both temperature and precipitation are recorded, or null without them. */
+  async recordRange(scope: TenantScope, catchmentId: number): Promise<Period | null> {
     const rows: DatasetRow[] = await scope.from<DatasetRow>('datasets').where({ catchment_id: catchmentId, kind: 'climate' }).orderBy('id', 'desc');
-    const firstOf = (variables: string[]) => rows.find((r) => variables.includes(r.variable) && r.first_at)?.first_at?.slice(0, 10) ?? null;
-    const temperature = firstOf(['temperature', 'temperatureMin']);
-    const precipitation = firstOf(['precipitation']);
+    const newest = (variables: string[]) => rows.find((r) => variables.includes(r.variable) && r.first_at && r.last_at);
+    const temperature = newest(['temperature', 'temperatureMin']);
+    const precipitation = newest(['precipitation']);
     if (!temperature || !precipitation) return null;
-    return temperature > precipitation ? temperature : precipitation;
+    const [t0, t1, p0, p1] = [temperature.first_at!, temperature.last_at!, precipitation.first_at!, precipitation.last_at!].map((t) => t.slice(0, 10));
+    return { from: t0 > p0 ? t0 : p0, to: t1 < p1 ? t1 : p1 };
   }
 
   /** The catchment, its forcing from up to a year before the period and the parameters in force. */
   async site(scope: TenantScope, catchmentId: number, period: Period, set: CalibrationSet): Promise<LabSite> {
     await scope.findOr404('catchments', catchmentId, 'Catchment');
-    const start = await this.recordStart(scope, catchmentId);
+    const start = (await this.recordRange(scope, catchmentId))?.from ?? null;
     if (start && period.from < start) {
       throw validationFailed(`The period starts on ${period.from}, before the climate record begins (${start}).`, 'from');
     }
@@ -37,6 +39,13 @@ export class LabData {
     const from = start && start > spinUp ? start : spinUp;
     const input = requireReadyInputs(await buildSimulationInputs(scope, this.bands, catchmentId, { from: start ? from : period.from, to: period.to }));
     return { catchment: input.catchment, forcing: input.forcing, parameters: set.parameters, precipitationFactor: set.precipitationFactor };
+  }
+
+  /** Stake readings of the newest stake dataset. */
+  async observedStakes(scope: TenantScope, catchmentId: number): Promise<StakeObservation[]> {
+    const row = await scope.from<DatasetRow>('datasets').where({ catchment_id: catchmentId, variable: 'pointBalance' }).orderBy('id', 'desc').first();
+    if (!row) throw validationFailed('The catchment has no stake readings. Upload a stake file first.', 'stakes');
+    return readStakeReadings(scope.db, { datasetId: row.id, organisationId: scope.organisationId });
   }
 
   /** Daily observed discharge (m³ s⁻¹) of the newest discharge record within the period. */

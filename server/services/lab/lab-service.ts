@@ -3,9 +3,10 @@ import { DEFAULT_CALIBRATION_SET, type CalibrationSet } from '../../../shared/la
 import type { DischargeEvaluation, CalibrationOutcome } from '../../../shared/lab/calibrate';
 import type { ReferenceComparison } from '../../../shared/lab/reference-models';
 import type { SurfaceResponseResult } from '../../../shared/lab/surface-response';
+import type { StakeComparison } from '../../../shared/lab/stake-balance';
 import { assembleSweep, sweepCells, type SweepPlan, type SweepSetup } from '../../../shared/lab/sweep';
 import {
-  calibrateRequestSchema, saveCalibrationSchema, skillRequestSchema, sweepRequestSchema,
+  calibrateRequestSchema, saveCalibrationSchema, skillRequestSchema, stakeSkillRequestSchema, sweepRequestSchema,
   type BandQuery, type LabJob, type SavedCalibration, type SurfaceResponse,
 } from '../../../shared/schemas/lab';
 import { validationFailed } from '../../errors';
@@ -69,6 +70,21 @@ export class LabService {
     const request = parseWith(skillRequestSchema, body);
     const set = request.set ?? await this.calibratedParameters(scope, catchmentId);
     return { set, evaluation: await this.evaluate(scope, catchmentId, request.period, set) };
+  }
+
+  /** Simulated against measured stake balances, with the given set or the one in force. */
+  async stakeSkill(scope: TenantScope, catchmentId: number, body: unknown): Promise<{ set: CalibrationSet; comparison: StakeComparison }> {
+    await scope.findOr404('catchments', catchmentId, 'Catchment');
+    const request = parseWith(stakeSkillRequestSchema, body);
+    const set = request.set ?? await this.calibratedParameters(scope, catchmentId);
+    const observed = await this.data.observedStakes(scope, catchmentId);
+    const record = await this.data.recordRange(scope, catchmentId);
+    const inside = observed.filter((o) => record && o.from >= record.from && o.to <= record.to);
+    if (!record || inside.length === 0) throw validationFailed('No stake reading falls inside the climate record.', 'stakes');
+    const span = { from: inside.reduce((a, o) => (o.from < a ? o.from : a), inside[0].from), to: inside.reduce((a, o) => (o.to > a ? o.to : a), inside[0].to) };
+    const site = await this.data.site(scope, catchmentId, span, set);
+    const comparison = await this.pool.run<StakeComparison>({ kind: 'stakes', site, observed: inside });
+    return { set, comparison: { ...comparison, outsideRecord: observed.length - inside.length } };
   }
 
   async saveCalibration(scope: TenantScope, user: UserRow, catchmentId: number, body: unknown): Promise<SavedCalibration> {
