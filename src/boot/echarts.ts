@@ -3,14 +3,14 @@
  * so the bundle stays small. Imported by BaseChart only, which keeps ECharts out of the entry chunk.
  */
 import { use, init } from 'echarts/core';
-import { BarChart, HeatmapChart, LineChart } from 'echarts/charts';
+import { BarChart, HeatmapChart, LineChart, ScatterChart } from 'echarts/charts';
 import {
   DataZoomComponent, GridComponent, LegendComponent, MarkLineComponent, MarkPointComponent, TooltipComponent, VisualMapComponent,
 } from 'echarts/components';
 import { CanvasRenderer, SVGRenderer } from 'echarts/renderers';
 
 use([
-  LineChart, BarChart, HeatmapChart, GridComponent, TooltipComponent, LegendComponent, DataZoomComponent,
+  LineChart, BarChart, HeatmapChart, ScatterChart, GridComponent, TooltipComponent, LegendComponent, DataZoomComponent,
   MarkLineComponent, MarkPointComponent, VisualMapComponent, CanvasRenderer, SVGRenderer,
 ]);
 
