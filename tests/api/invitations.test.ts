@@ -118,4 +118,12 @@ describe('mail limits', () => {
     expect(res.status).toBe(409);
     expect(res.body.error.field).toBe('email');
   });
+
+  it('lets only one of several simultaneous invitations of the same address through', async () => {
+    const admin = await signedInAgent(h.t.app, org.users.admin.email);
+    const email = `${unique('twice')}@test.example`;
+    const replies = await Promise.all(Array.from({ length: 5 }, () => admin.post('/api/invitations').send({ email, name: 'Once', role: 'client' })));
+    expect(replies.map((r) => r.status).sort()).toEqual([201, 409, 409, 409, 409]);
+    expect(await h.t.db('users').where({ email })).toHaveLength(1);
+  });
 });

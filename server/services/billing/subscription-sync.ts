@@ -15,7 +15,9 @@ function localStatus(status: Stripe.Subscription.Status): SubscriptionRow['statu
   return 'past_due';
 }
 
-const refOf = (value: string | { id: string }): string => (typeof value === 'string' ? value : value.id);
+/** The id of an expandable field, whether it came as an id or as the expanded object. */
+export const refOf = (value: string | { id: string } | null | undefined): string | null =>
+  value == null ? null : typeof value === 'string' ? value : value.id;
 
 /**
  * Writes the service's current view of a subscription into our table, inside the
@@ -31,7 +33,7 @@ export async function applySubscription(trx: Knex.Transaction, organisationId: n
   const periodEnd = item.current_period_end ?? (subscription as unknown as { current_period_end?: number }).current_period_end;
   const row = {
     organisation_id: organisationId,
-    customer_ref: refOf(subscription.customer),
+    customer_ref: refOf(subscription.customer) ?? '',
     subscription_ref: subscription.id,
     item_ref: item.id,
     price_lookup_key: item.price.lookup_key ?? null,

@@ -3,10 +3,9 @@ import type Stripe from 'stripe';
 import { badRequest } from '../../errors';
 import { toAppError } from './payments-client';
 import { lockOrganisation } from './seats';
-import { applySubscription, organisationIdOf } from './subscription-sync';
+import { applySubscription, organisationIdOf, refOf } from './subscription-sync';
 
 type RefField = string | { id: string } | null | undefined;
-const refOf = (value: RefField): string | null => (value == null ? null : typeof value === 'string' ? value : value.id);
 
 /** The subscription an event is about, for the event types that change seats or status. */
 export function subscriptionRefOf(event: Stripe.Event): string | null {

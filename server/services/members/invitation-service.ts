@@ -11,6 +11,7 @@ import type { MembersService } from './members-service';
 import { invalidLink, tooManyMails } from './mail-link-errors';
 
 export const INVITATION_VALID_DAYS = 7;
+const EMAIL_TAKEN = 'This address already has a Tarnish account.';
 
 /** Invitations by mail: an `invited` member holding a seat, and a single-use token to join with. */
 export class InvitationService {
@@ -30,9 +31,14 @@ export class InvitationService {
       await lockOrganisation(trx, s.organisationId);
       if (takesSeat(request.role)) await assertFreeSeats(trx, s.organisationId, 1);
       if (await trx('users').where({ email: request.email }).first('id')) {
-        throw conflict('This address already has a Tarnish account.', 'email');
+        throw conflict(EMAIL_TAKEN, 'email');
       }
-      const userId = await s.insert('users', { email: request.email, name: request.name, role: request.role, status: 'invited' });
+      const userId = await s
+        .insert('users', { email: request.email, name: request.name, role: request.role, status: 'invited' })
+        .catch((error: unknown) => {
+          // Two admins inviting the same address at once: the unique key decides.
+          throw (error as { code?: string }).code === 'ER_DUP_ENTRY' ? conflict(EMAIL_TAKEN, 'email') : error;
+        });
       return { id: userId, token: await this.issueToken(trx, s.organisationId, userId, inviter.id) };
     });
     await this.sendInvitation(scope, inviter, id, token);

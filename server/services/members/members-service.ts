@@ -6,7 +6,7 @@ import type { UserRow } from '../auth-service';
 import { assertFreeSeats, lockOrganisation, seatUsage, takesSeat } from '../billing/seats';
 import type { TenantScope } from '../tenant-scope';
 
-export const MEMBER_COLUMNS = ['id', 'name', 'email', 'role', 'status', 'last_sign_in_at', 'created_at'] as const;
+const MEMBER_COLUMNS = ['id', 'name', 'email', 'role', 'status', 'last_sign_in_at', 'created_at'] as const;
 
 const toMember = (row: Record<string, unknown>): Member =>
   Object.fromEntries(MEMBER_COLUMNS.map((c) => [c, row[c] instanceof Date ? (row[c] as Date).toISOString() : row[c]])) as Member;
