@@ -1,10 +1,16 @@
 import { createServer } from 'node:http';
 import type { AddressInfo } from 'node:net';
+import cookieParser from 'cookie-parser';
+import express from 'express';
 import Stripe from 'stripe';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { errorHandler } from '../../server/middleware/error-handler';
+import { requireActiveSubscription } from '../../server/middleware/require-active-subscription';
+import { requireAuth } from '../../server/middleware/require-auth';
 import { TenantScope } from '../../server/services/tenant-scope';
-import { createOrganisation, signedInAgent, type TestOrg } from '../support/factories';
+import { createOrganisation, signedInAgent, TEST_PASSWORD, type TestOrg } from '../support/factories';
+import { grantActivePlan } from '../support/paid-plan';
 import { startTeamHarness, TEST_WEBHOOK_SECRET, type TeamHarness } from '../support/team-harness';
 import { createTestApp } from '../support/test-app';
 
@@ -286,6 +292,23 @@ describe('who may reach billing', () => {
 });
 
 describe('paid-feature guard', () => {
+  it('lets requests through requireActiveSubscription only with an active plan', async () => {
+    const org = await createOrganisation(h.t.db);
+    const app = express();
+    app.use(cookieParser());
+    app.post('/paid', requireAuth(h.t.ctx), requireActiveSubscription(h.t.ctx), (_req, res) => void res.json({ started: true }));
+    app.use(errorHandler);
+    const cookie = (await request(h.t.app).post('/api/auth/sign-in').send({ email: org.users.scientist.email, password: TEST_PASSWORD }))
+      .headers['set-cookie'];
+    const refused = await request(app).post('/paid').set('Cookie', cookie);
+    expect(refused.status).toBe(402);
+    expect(refused.body.error.code).toBe('subscription_required');
+    await grantActivePlan(h.t.db, org.organisationId);
+    expect((await request(app).post('/paid').set('Cookie', cookie)).body).toEqual({ started: true });
+    await h.t.db('subscriptions').where({ organisation_id: org.organisationId }).update({ status: 'past_due' });
+    expect((await request(app).post('/paid').set('Cookie', cookie)).status).toBe(402);
+  });
+
   it('refuses paid features without an active plan and allows them with one', async () => {
     const org = await createOrganisation(h.t.db);
     const scope = new TenantScope(h.t.db, org.organisationId);
