@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import {
-  calibrationHistorySchema, labJobSchema, referenceModelsSchema, savedCalibrationSchema, skillReplySchema, surfaceResponseSchema,
+  calibrationHistorySchema, labJobSchema, referenceModelsSchema, savedCalibrationSchema, skillReplySchema, stakeSkillReplySchema, surfaceResponseSchema,
   type CalibrateRequest, type CalibrationSetInput, type LabPeriod, type SweepRequest,
 } from '@shared/schemas/lab';
 import { api } from './http';
@@ -15,6 +15,7 @@ export const labApi = {
   referenceModels: (id: number, band: number, period: LabPeriod, signal?: AbortSignal) =>
     api.get(`${base(id)}/reference-models?${bandQuery(band, period)}`, referenceModelsSchema, { signal }),
   skill: (id: number, period: LabPeriod, set?: CalibrationSetInput) => api.post(`${base(id)}/skill`, { period, set }, { schema: skillReplySchema }),
+  stakeSkill: (id: number, set?: CalibrationSetInput) => api.post(`${base(id)}/stake-skill`, { set }, { schema: stakeSkillReplySchema, quiet: true }),
   calibration: (id: number) => api.get(`${base(id)}/calibration`, calibrationHistorySchema),
   saveCalibration: (id: number, period: LabPeriod, set: CalibrationSetInput, note: string) =>
     api.put(`${base(id)}/calibration`, { period, set, note }, { schema: savedCalibrationSchema }),

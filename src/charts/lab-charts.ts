@@ -1,5 +1,5 @@
 import type { EChartsCoreOption } from 'echarts/core';
-import type { ReferenceModels, SurfaceResponse, SweepResultReply, DischargeEvaluationReply } from '@shared/schemas/lab';
+import type { DischargeEvaluationReply, ReferenceModels, StakeSkillReply, SurfaceResponse, SweepResultReply } from '@shared/schemas/lab';
 import type { ChartTable } from 'src/components/BaseChart.vue';
 
 /** Chart option and the same numbers as a table, for BaseChart. */
@@ -167,6 +167,31 @@ export function referenceChart(r: ReferenceModels): LabChart {
     table: {
       columns: [{ name: 'date', label: 'Date' }, ...r.models.map((m) => ({ name: m.key, label: `${m.label} (mm w.e.)` }))],
       rows: r.dates.map((d, i) => ({ date: d, ...Object.fromEntries(r.models.map((m) => [m.key, round(m.dailyMm[i], 2)])) })),
+    },
+  };
+}
+
+/** Measured against simulated stake balances, with the 1:1 line. */
+export function stakeChart(r: StakeSkillReply['comparison']): LabChart {
+  const all = r.readings.flatMap((x) => [x.balanceMWe, x.simulatedMWe]);
+  const lo = Math.floor(Math.min(...all, 0));
+  const hi = Math.ceil(Math.max(...all, 0));
+  return {
+    option: {
+      tooltip: { trigger: 'item' }, legend, grid,
+      xAxis: { type: 'value', name: 'Measured (m w.e.)', nameLocation: 'middle', nameGap: 30, min: lo, max: hi, axisLine: { onZero: false } },
+      yAxis: { type: 'value', name: 'Simulated (m w.e.)', min: lo, max: hi, axisLine: { onZero: false } },
+      series: [
+        { name: 'Stake readings', type: 'scatter', data: r.readings.map((x) => ({ value: [x.balanceMWe, round(x.simulatedMWe, 2)], name: `${x.stake} ${x.from.slice(0, 4)}–${x.to.slice(0, 4)}` })) },
+        { name: '1:1', type: 'line', showSymbol: false, data: [[lo, lo], [hi, hi]], lineStyle: { type: 'dashed', color: '#9e9e9e' }, itemStyle: { color: '#9e9e9e' } },
+      ],
+    },
+    table: {
+      columns: [
+        { name: 'stake', label: 'Stake' }, { name: 'z', label: 'Elevation (m)' }, { name: 'from', label: 'From' }, { name: 'to', label: 'To' },
+        { name: 'obs', label: 'Measured (m w.e.)' }, { name: 'sim', label: 'Simulated (m w.e.)' },
+      ],
+      rows: r.readings.map((x) => ({ stake: x.stake, z: x.elevationM, from: x.from, to: x.to, obs: x.balanceMWe, sim: round(x.simulatedMWe, 3) })),
     },
   };
 }

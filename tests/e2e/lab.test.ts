@@ -42,10 +42,38 @@ describe('the lab in the browser', () => {
     expect(scores).toMatch(/Monthly means/);
     await page.screenshot({ path: 'test-results/lab-calibration.png', fullPage: true });
 
+    await page.waitForSelector('[data-test=stake-balance-chart] canvas');
+
     await page.fill('[data-test=param-lapseRateCPerKm]', '-5.5');
     await page.click('[data-test=save-calibration]');
     await page.waitForSelector('[data-test=calibration-saved]');
     expect(await page.textContent('[data-test=calibration-saved]')).toMatch(/saved by .* \(daily KGE -?[\d.]+/i);
+    await page.close();
+  });
+
+  it('runs a sweep and an automatic calibration as jobs, and compares reference models', async () => {
+    const page = await b.newPage();
+    await signInThroughForm(page, b.baseUrl, scientist.email, scientist.password);
+    await page.goto(`${b.baseUrl}/lab?catchment=${catchmentId}`);
+    await page.waitForSelector('[data-test=ostrem-chart] canvas', { timeout: 60_000 });
+    await page.click('[data-test=lab-tabs] >> text=Sweeps');
+    await page.click('text=Second parameter');
+    await page.click('[data-test=sweep-run]');
+    await page.waitForSelector('[data-test=sweep-chart] canvas', { timeout: 60_000 });
+    await page.screenshot({ path: 'test-results/lab-sweep.png', fullPage: true });
+
+    await page.click('[data-test=lab-tabs] >> text=Reference models');
+    await page.waitForSelector('[data-test=reference-chart] canvas', { timeout: 60_000 });
+    expect(await page.locator('[data-test=lab-reference] tbody tr').count()).toBe(3);
+    await page.screenshot({ path: 'test-results/lab-reference.png', fullPage: true });
+
+    await page.click('[data-test=lab-tab-calibration]');
+    await page.waitForSelector('[data-test=calibration-chart] canvas', { timeout: 60_000 });
+    await page.locator('[data-test=auto-calibration] input[type=number]').fill('15');
+    await page.click('[data-test=auto-start]');
+    await page.waitForSelector('[data-test=auto-result]', { timeout: 90_000 });
+    expect(await page.textContent('[data-test=auto-scores]')).toMatch(/Calibration period, after/);
+    await page.screenshot({ path: 'test-results/lab-auto-calibration.png', fullPage: true });
     await page.close();
   });
 
