@@ -106,6 +106,8 @@ describe('seats and team in the browser', () => {
     const page = await browser.newPage();
     const email = org.users.scientist.email;
     await page.goto(`${h.baseUrl}/sign-in`);
+    await page.waitForSelector('[data-test=forgot-password]');
+    await shot(page, 'sign-in');
     await page.click('[data-test=forgot-password]');
     await page.fill('[data-test=reset-email]', email);
     await page.click('[data-test=reset-send]');
