@@ -13,6 +13,7 @@ import { loadConfig } from '../../server/config';
 import { createContext } from '../../server/context';
 import { createDb } from '../../server/db';
 import { createDemoCatchment } from '../../tests/support/lab-catchment';
+import { grantActivePlan } from '../../tests/support/paid-plan';
 
 const PASSWORD = 'bench-only password 1';
 const SEASON = { from: '2022-05-01', to: '2022-09-30' };
@@ -29,6 +30,7 @@ async function main(): Promise<void> {
   try {
     const email = `bench.${Date.now()}@bench.invalid`;
     await db('users').insert({ organisation_id: organisationId, email, name: 'Benchmark', role: 'scientist', status: 'active', password_hash: bcrypt.hashSync(PASSWORD, 4) });
+    await grantActivePlan(db, organisationId);
     const catchmentId = await createDemoCatchment(db, organisationId);
     const signIn = await fetch(`${base}/auth/sign-in`, { method: 'POST', headers: { 'Content-Type': 'application/json' }, body: JSON.stringify({ email, password: PASSWORD }) });
     const cookie = (signIn.headers.get('set-cookie') ?? '').split(';')[0];

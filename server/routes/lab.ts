@@ -3,6 +3,7 @@ import type { AppContext } from '../context';
 import { bandQuerySchema } from '../../shared/schemas/lab';
 import { authOf, requireAuth } from '../middleware/require-auth';
 import { requireRole } from '../middleware/require-role';
+import { requireActiveSubscription } from '../middleware/require-active-subscription';
 import { idParam, parseWith } from '../middleware/validate';
 
 /** Who reaches the lab (DESIGN.md: scientists, and the consultants and admins who run the work). */
@@ -43,12 +44,13 @@ export function labRoutes(ctx: AppContext): Router {
     res.status(201).json(await ctx.lab.saveCalibration(scope, user, idParam(req), req.body));
   });
 
-  router.post(`${base}/sweeps`, async (req, res) => {
+  // Sweeps and automatic calibrations are paid work, like runs; reading and scoring stay open.
+  router.post(`${base}/sweeps`, requireActiveSubscription(ctx), async (req, res) => {
     const { scope, user } = authOf(req);
     res.status(202).json(await ctx.lab.startSweep(scope, user, idParam(req), req.body));
   });
 
-  router.post(`${base}/calibrations`, async (req, res) => {
+  router.post(`${base}/calibrations`, requireActiveSubscription(ctx), async (req, res) => {
     const { scope, user } = authOf(req);
     res.status(202).json(await ctx.lab.startCalibration(scope, user, idParam(req), req.body));
   });

@@ -3,6 +3,7 @@ import type { Express } from 'express';
 import { createTestApp, type TestApp } from '../support/test-app';
 import { createOrganisation, signedInAgent, type TestOrg } from '../support/factories';
 import { createDemoCatchment } from '../support/lab-catchment';
+import { grantActivePlan } from '../support/paid-plan';
 import { calibrationHistorySchema, labJobSchema, skillReplySchema, stakeSkillReplySchema, surfaceResponseSchema, sweepResultSchema, calibrationResultSchema, type LabJob } from '../../shared/schemas/lab';
 import { nse } from '../../shared/melt/index';
 
@@ -30,6 +31,7 @@ beforeAll(async () => {
   app = t.app;
   org = await createOrganisation(t.db);
   other = await createOrganisation(t.db);
+  await grantActivePlan(t.db, org.organisationId);
   catchmentId = await createDemoCatchment(t.db, org.organisationId);
   otherCatchmentId = await createDemoCatchment(t.db, other.organisationId, { withDischarge: false });
 });
@@ -154,6 +156,15 @@ describe('jobs: sweeps and automatic calibration', () => {
     const result = sweepResultSchema.parse(job.result);
     expect(result.addedMeltMm).toHaveLength(3);
     expect(result.addedMeltMm[2][1]).toBeGreaterThan(result.addedMeltMm[0][0]);
+  });
+  it('needs an active seat plan to start a sweep or an automatic calibration (402)', async () => {
+    const unpaid = await createOrganisation(t.db);
+    const ownCatchment = await createDemoCatchment(t.db, unpaid.organisationId, { withDischarge: false });
+    const scientist = await signedInAgent(app, unpaid.users.scientist.email);
+    const sweep = await scientist.post(`/api/lab/catchments/${ownCatchment}/sweeps`).send({ period: season, axes: [{ variable: 'temperatureDeltaC', from: 0, to: 1, steps: 2 }] });
+    expect(sweep.status).toBe(402);
+    expect((await scientist.post(`/api/lab/catchments/${ownCatchment}/calibrations`).send({ keys: ['transmissivity'], period: season })).status).toBe(402);
+    expect((await scientist.get(`/api/lab/catchments/${ownCatchment}/reference-models?${query}`)).status).toBe(200);
   });
   it('refuses a grid larger than 20 × 20', async () => {
     const scientist = await signedInAgent(app, org.users.scientist.email);

@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { seed as seedOrganisation } from '../../seeds/01_demo_organisation';
 import { seed as seedCatchment } from '../../seeds/02_demo_catchment';
+import { seed as seedSubscription } from '../../seeds/02_demo_subscription';
 import { DEMO_ACCOUNTS } from '../../seeds/data/demo-accounts';
 import { DEMO_CATCHMENT } from '../../seeds/data/demo-catchment';
 import { openBrowser, signInThroughForm, type BrowserSession } from '../support/browser';
@@ -14,6 +15,7 @@ beforeAll(async () => {
   b = await openBrowser();
   await seedOrganisation(b.t.db);
   await seedCatchment(b.t.db);
+  await seedSubscription(b.t.db);
   catchmentId = (await b.t.db('catchments').where({ name: DEMO_CATCHMENT.name }).orderBy('id', 'desc').first('id')).id;
 });
 afterAll(async () => {
