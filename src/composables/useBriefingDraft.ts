@@ -27,8 +27,9 @@ export function useBriefingDraft(): BriefingDraftForm {
   const errors = ref<Record<string, string>>({});
   let nextKey = 0;
 
+  /** A deep copy: the draft may be a reactive proxy, which structuredClone refuses. */
   function load(draft: Draft): void {
-    form.value = { title: draft.title, summary: draft.summary, selection: { runIds: [...draft.selection.runIds] }, sections: structuredClone(draft.sections) };
+    form.value = { title: draft.title, summary: draft.summary, selection: { runIds: [...draft.selection.runIds] }, sections: JSON.parse(JSON.stringify(draft.sections)) as DraftSection[] };
     keys.value = draft.sections.map(() => nextKey++);
     errors.value = {};
   }
