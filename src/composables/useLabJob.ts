@@ -51,6 +51,16 @@ export function useLabJob<S extends z.ZodType>(options: { resultSchema: S }) {
     timer = setTimeout(() => void poll(), POLL_MS);
   }
 
+  /** Shows the newest job of this kind for the catchment (following it if it still runs), e.g. after coming back to the page. */
+  async function resume(catchmentId: number, kind: LabJob['kind']): Promise<void> {
+    clearTimeout(timer);
+    const newest = (await labApi.jobs(catchmentId)).jobs.find((j) => j.kind === kind);
+    job.value = newest ?? null;
+    result.value = null;
+    error.value = null;
+    if (newest && newest.status !== 'cancelled') await poll();
+  }
+
   async function cancel(): Promise<void> {
     if (!job.value || !running()) return;
     clearTimeout(timer);
@@ -59,5 +69,5 @@ export function useLabJob<S extends z.ZodType>(options: { resultSchema: S }) {
   }
 
   onBeforeUnmount(() => clearTimeout(timer));
-  return { job, result, error, start, cancel, running };
+  return { job, result, error, start, cancel, resume, running };
 }
