@@ -35,7 +35,8 @@ describe('darkening scenarios in the browser', () => {
     await page.click('[data-test=new-scenario]');
     await page.waitForSelector('[data-test=scenario-form]');
     await page.fill('[data-test=scenario-name]', name);
-    await page.fill('[data-test=bc-snow-value]', '500');
+    // A value of its own: an identical earlier run (same inputs) would be reused instead of run again.
+    await page.fill('[data-test=bc-snow-value]', String(400 + (Date.now() % 300)));
     await page.fill('[data-test=bc-ice-value]', '2000');
     // The in-browser preview: the band with the most glacier, baseline against this variant.
     await page.waitForFunction(() => /[1-9]/.test(document.querySelector('[data-test=preview-added]')?.textContent ?? ''), null, { timeout: 30_000 });
@@ -57,6 +58,44 @@ describe('darkening scenarios in the browser', () => {
     const volume = await page.textContent('[data-test=total-addedVolumeMillionM3]');
     expect(Number(volume!.replace(/[^0-9.]/g, ''))).toBeGreaterThan(0);
     await page.screenshot({ path: 'test-results/runs-results.png', fullPage: true });
+
+    // A chart's table download carries the cautions too.
+    await page.click('[data-test=chart-bands-download]');
+    const [download] = await Promise.all([page.waitForEvent('download'), page.click('text=Table (CSV)')]);
+    const text = await new Response((await download.createReadStream()) as unknown as ReadableStream).text();
+    expect(text).toContain('These results are scenario estimates, not forecasts.');
+    expect(text).toContain('Band mean elevation (m)');
+    await page.close();
+  });
+
+  it('compares an attributed, uncertainty-banded variant with another', async () => {
+    const page = await b.newPage();
+    await signInThroughForm(page, b.baseUrl, consultant.email, consultant.password);
+    await page.goto(`${b.baseUrl}/catchments/${catchmentId}/scenarios/new`);
+    const name = unique('Dust and warming ');
+    await page.fill('[data-test=scenario-name]', name);
+    await page.fill('[data-test=dust-snow-value]', String(40 + (Date.now() % 50)));
+    await page.click('[data-test=warming-2]');
+    expect(await page.inputValue('[data-test=temperature-value]')).toBe('0.91');
+    await page.click('[data-test=save-scenario]');
+    await page.click(`[data-test="run-${name}"]`);
+    await page.click('[data-test=run-attribution]');
+    await page.fill('[data-test=run-ensemble]', '8');
+    await page.click('[data-test=start-run]');
+    const row = page.locator('[data-test=runs-table] tbody tr', { hasText: name }).first();
+    await row.locator('text=done').waitFor({ timeout: 90_000 });
+
+    // The started run is ticked already; tick the first variant's run too, then compare them.
+    expect(await row.locator('.q-checkbox[aria-checked=true]').count()).toBe(1);
+    await page.locator('[data-test=runs-table] tbody tr', { hasText: 'Soot' }).first().locator('.q-checkbox').click();
+    await page.click('[data-test=show-results]');
+
+    await page.waitForSelector('[data-test=chart-attribution] canvas', { timeout: 30_000 });
+    const header = await page.textContent('[data-test=totals-table] thead');
+    expect(header).toContain(name);
+    expect(header).toContain('Soot');
+    expect(await page.textContent('[data-test=total-addedVolumeM3]')).toContain('5–95 %');
+    await page.screenshot({ path: 'test-results/runs-compare.png', fullPage: true });
     await page.close();
   });
 });

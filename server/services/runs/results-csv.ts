@@ -1,15 +1,10 @@
 import type { RunResults } from '../../../shared/schemas/results';
 import type { SimulationSummary } from '../../../shared/analysis/simulation-summary';
 import { addDays } from '../../../shared/melt/calendar';
+import { csvLine } from '../../../shared/csv/csv-writing';
 
-/** One CSV field, quoted when it holds a separator, quote or line break (RFC 4180). */
-function field(value: string | number | null): string {
-  if (value === null) return '';
-  const text = typeof value === 'number' ? String(Number.isInteger(value) ? value : Number(value.toPrecision(8))) : value;
-  return /[",\r\n]/.test(text) ? `"${text.replace(/"/g, '""')}"` : text;
-}
-
-const line = (values: (string | number | null)[]) => values.map(field).join(',');
+/** Numbers to 8 significant digits: enough for the model, readable in a spreadsheet. */
+const line = (values: (string | number | null)[]) => csvLine(values.map((v) => (typeof v === 'number' && !Number.isInteger(v) ? Number(v.toPrecision(8)) : v)));
 
 /** The header block every export starts with: what was run, on what, with which engine, and the cautions. */
 export function headerBlock(results: RunResults, what: string): string[] {
