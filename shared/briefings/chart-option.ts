@@ -22,7 +22,8 @@ export function briefingChartOption(chart: ChartData, options: { animation?: boo
     }
   });
   return {
-    animation: options.animation ?? true,
+    // Left out unless asked for, so the page's own setting (none in browser tests) applies.
+    ...(options.animation === undefined ? {} : { animation: options.animation }),
     color: SERIES_COLOURS,
     grid: { left: 64, right: 16, top: 40, bottom: 48 },
     legend: { top: 4, type: 'scroll' },
