@@ -36,11 +36,7 @@ beforeAll(async () => {
   otherCatchmentId = await createDemoCatchment(t.db, other.organisationId, { withDischarge: false });
 });
 
-afterAll(async () => {
-  await t.ctx.lab.jobs.idle();
-  await t.ctx.lab.pool.close();
-  await t.close();
-});
+afterAll(() => t?.close());
 
 describe('who reaches the lab', () => {
   it('answers scientists, consultants and admins; refuses clients (403) and strangers (401)', async () => {

@@ -18,10 +18,7 @@ beforeAll(async () => {
   await seedSubscription(b.t.db);
   catchmentId = (await b.t.db('catchments').where({ name: DEMO_CATCHMENT.name }).orderBy('id', 'desc').first('id')).id;
 });
-afterAll(async () => {
-  await b?.t.ctx.lab.pool.close();
-  await b?.close();
-});
+afterAll(() => b?.close());
 
 describe('the lab in the browser', () => {
   it('shows a scientist the Østrem curve and the calibration chart for the demo catchment', async () => {

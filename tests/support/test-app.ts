@@ -27,6 +27,9 @@ export function createTestApp(overrides: Record<string, string> = {}, contextOpt
   const app = createApp(ctx, { clientDir: overrides.CLIENT_DIR });
   const close = async () => {
     ctx.mail.close();
+    // Lab jobs write to the database until they end; then their worker threads can go.
+    await ctx.lab.jobs.idle();
+    await ctx.lab.pool.close();
     await db.destroy();
   };
   return { app, ctx, db, config, close };
