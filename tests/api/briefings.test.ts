@@ -50,6 +50,7 @@ beforeAll(async () => {
 afterAll(async () => {
   await t.ctx.runExecutor.idle();
   await t.ctx.simulationPool.close();
+  await t.ctx.pdfPool.close();
   await t.close();
   await catcher?.close();
 });

@@ -1,6 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { PDFParse } from 'pdf-parse';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Run } from '../../shared/schemas/runs';
 import { CAUTIONS } from '../../shared/text/cautions';
 import { seed as seedOrganisation } from '../../seeds/01_demo_organisation';
 import { seed as seedCatchment } from '../../seeds/02_demo_catchment';
@@ -17,7 +18,7 @@ const client = DEMO_ACCOUNTS.find((a) => a.role === 'client')!;
 const SEASON = { from: '2022-05-01', to: '2022-09-30' };
 const VARIANT = 'Soot on snow and ice';
 /** The finished run's id and scenario name (a reused identical run keeps the name it was first run under). */
-let run: { id: number; scenarioName: string };
+let run: Run;
 
 beforeAll(async () => {
   b = await openBrowser();
@@ -41,6 +42,7 @@ beforeAll(async () => {
 afterAll(async () => {
   await b?.t.ctx.runExecutor.idle();
   await b?.t.ctx.simulationPool.close();
+  await b?.t.ctx.pdfPool.close();
   await b?.close();
 });
 

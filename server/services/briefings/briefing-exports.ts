@@ -5,7 +5,7 @@ import { recordEvent } from './briefing-audit';
 import { readableBriefing } from './briefing-access';
 import type { BriefingService } from './briefing-service';
 import { briefingCsv } from './csv-export';
-import { briefingPdf } from './pdf/briefing-pdf';
+import type { PdfPool } from './pdf/pdf-pool';
 
 export interface ExportFile { fileName: string; contentType: string; body: Buffer | string }
 
@@ -16,7 +16,10 @@ export class BriefingExports {
   // Published versions never change, so their PDFs can be kept; the oldest entry leaves first.
   private readonly pdfCache = new Map<string, Promise<Buffer>>();
 
-  constructor(private readonly briefings: BriefingService) {}
+  constructor(
+    private readonly briefings: BriefingService,
+    private readonly pdfs: PdfPool,
+  ) {}
 
   async pdf(scope: TenantScope, user: UserRow, id: number, version: number): Promise<ExportFile> {
     const b = await readableBriefing(scope, user, id);
@@ -24,7 +27,7 @@ export class BriefingExports {
     const key = `${scope.organisationId}:${id}:${snapshot.version}`;
     let pdf = this.pdfCache.get(key);
     if (!pdf) {
-      pdf = briefingPdf(snapshot);
+      pdf = this.pdfs.render(snapshot);
       this.pdfCache.set(key, pdf);
       pdf.catch(() => this.pdfCache.delete(key));
       if (this.pdfCache.size > PDF_CACHE_SIZE) this.pdfCache.delete(this.pdfCache.keys().next().value!);

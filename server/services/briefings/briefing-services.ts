@@ -4,6 +4,7 @@ import type { RunService } from '../runs/run-service';
 import { BriefingExports } from './briefing-exports';
 import { BriefingService } from './briefing-service';
 import { BriefingSharing } from './briefing-sharing';
+import { PdfPool } from './pdf/pdf-pool';
 import type { BriefingResultsSource } from './comparison';
 import { RunsResultsSource } from './runs-results-source';
 
@@ -12,6 +13,8 @@ export interface BriefingServices {
   briefings: BriefingService;
   briefingSharing: BriefingSharing;
   briefingExports: BriefingExports;
+  /** The worker thread that lays out PDFs; close it when the app stops. */
+  pdfPool: PdfPool;
 }
 
 export interface BriefingServicesOptions {
@@ -23,5 +26,6 @@ export function createBriefingServices(
   deps: { runs: RunService; results: ResultsService; invitations: InvitationService }, options: BriefingServicesOptions = {},
 ): BriefingServices {
   const briefings = new BriefingService(options.briefingResults ?? new RunsResultsSource(deps.runs, deps.results));
-  return { briefings, briefingSharing: new BriefingSharing(deps.invitations), briefingExports: new BriefingExports(briefings) };
+  const pdfPool = new PdfPool();
+  return { briefings, briefingSharing: new BriefingSharing(deps.invitations), briefingExports: new BriefingExports(briefings, pdfPool), pdfPool };
 }
