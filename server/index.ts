@@ -25,6 +25,7 @@ export async function startServer(options: ContextOptions = {}): Promise<{ close
       await new Promise<void>((resolve) => server.close(() => resolve()));
       await ctx.lab.pool.close();
       await ctx.simulationPool.close();
+      await ctx.pdfPool.close();
       await db.destroy();
     },
   };
