@@ -1,8 +1,9 @@
 import type { Knex } from 'knex';
 import { variableSpec, type Variable } from '../shared/schemas/dataset-variables';
-import { insertDatasetValues } from '../server/services/dataset-values';
+import { insertDatasetValues, insertStakeReadings } from '../server/services/dataset-values';
 import { DEMO_ACCOUNTS, DEMO_ORGANISATION } from './data/demo-accounts';
 import { DEMO_BANDS, DEMO_CATCHMENT } from './data/demo-catchment';
+import { syntheticStakeReadings } from './data/synthetic-stakes';
 import { syntheticStation } from './data/synthetic-station';
 
 /** Three hydrological years (October to September) of synthetic station data. */
@@ -11,7 +12,7 @@ const SOURCE = 'Synthetic demo series (seed script, invented station)';
 
 /**
  * The demo catchment of the demo consultancy, with its bands and synthetic temperature,
- * precipitation and discharge. Safe to re-run: the catchment is found by name and its bands
+ * precipitation, discharge and stake readings. Safe to re-run: the catchment is found by name and its bands
  * and seeded datasets are replaced in one transaction.
  */
 export async function seed(knex: Knex): Promise<void> {
@@ -42,20 +43,28 @@ export async function seed(knex: Knex): Promise<void> {
 
     const seeded = trx('datasets').where({ catchment_id: catchmentId, source: SOURCE }).select('id');
     await trx('dataset_values').whereIn('dataset_id', seeded.clone()).delete();
+    await trx('stake_readings').whereIn('dataset_id', seeded.clone()).delete();
     await trx('datasets').whereIn('id', seeded).delete();
 
-    const add = async (variable: Variable, step: 'hourly' | 'daily', series: { times: string[]; values: number[] }, accuracy: string, fileName: string) => {
+    const addDataset = async (variable: Variable, step: 'hourly' | 'daily', accuracy: string, fileName: string, range: { first: string; last: string; count: number }) => {
       const spec = variableSpec(variable);
       const [datasetId] = await trx('datasets').insert({
         organisation_id: organisationId, catchment_id: catchmentId, variable, kind: spec.kind, unit: spec.storedUnit, original_unit: spec.storedUnit,
         time_step: step, time_zone: c.timeZone, source: SOURCE, accuracy, file_name: fileName,
         uploaded_by: user?.id ?? null, uploaded_by_name: user?.name ?? 'Demo seed',
-        first_at: series.times[0], last_at: series.times[series.times.length - 1], value_count: series.values.length,
+        first_at: range.first, last_at: range.last, value_count: range.count,
       });
-      await insertDatasetValues(trx, { datasetId, organisationId }, series.times, series.values);
+      return { datasetId: datasetId as number, organisationId };
+    };
+    const add = async (variable: Variable, step: 'hourly' | 'daily', series: { times: string[]; values: number[] }, accuracy: string, fileName: string) => {
+      const range = { first: series.times[0], last: series.times[series.times.length - 1], count: series.values.length };
+      await insertDatasetValues(trx, await addDataset(variable, step, accuracy, fileName, range), series.times, series.values);
     };
     await add('temperature', 'hourly', station.hourlyTemperature, '±0.3 °C (invented)', 'kolvi-camp-temperature-hourly.csv');
     await add('precipitation', 'daily', station.dailyPrecipitation, '±10 %, undercatch of snow not corrected (invented)', 'kolvi-camp-precipitation-daily.csv');
     await add('discharge', 'daily', station.dailyDischarge, '±15 % at high flows (invented)', 'sarvel-gauge-discharge-daily.csv');
+    const stakes = syntheticStakeReadings();
+    const stakeRange = { first: stakes[0].from, last: stakes[stakes.length - 1].to, count: stakes.length };
+    await insertStakeReadings(trx, await addDataset('pointBalance', 'daily', '±0.2 m w.e. (invented)', 'sarvel-stakes.csv', stakeRange), stakes);
   });
 }

@@ -25,6 +25,10 @@ export function catchmentDatasetRoutes(ctx: AppContext): Router {
     res.json(await ctx.datasets.monthly(...ids(req)));
   });
 
+  router.get(`${base}/datasets/:datasetId/readings`, async (req, res) => {
+    res.json({ readings: await ctx.datasets.stakeReadings(...ids(req)) });
+  });
+
   router.get(`${base}/datasets/:datasetId/csv`, async (req, res) => {
     const { fileName, text } = await ctx.datasets.csv(...ids(req));
     res.attachment(fileName).type('text/csv').send(text);

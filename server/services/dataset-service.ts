@@ -1,9 +1,10 @@
-import { variableSpec, type Variable } from '../../shared/schemas/dataset-variables';
+import { STAKE_VARIABLE, variableSpec, type Variable } from '../../shared/schemas/dataset-variables';
+import type { StakeReading } from '../../shared/schemas/stakes';
 import type { Dataset, MonthlySummary, Series } from '../../shared/schemas/datasets';
 import { notFound } from '../errors';
 import { csvDocument } from '../../shared/csv/csv-writing';
 import { parseTimestamp, STEP_MINUTES } from './csv/timestamps';
-import { readDatasetValues } from './dataset-values';
+import { readDatasetValues, readStakeReadings } from './dataset-values';
 import { stepsBetween, valuesOnGrid } from './series-grid';
 import type { TenantScope } from './tenant-scope';
 
@@ -28,7 +29,8 @@ export interface DatasetRow {
 }
 
 export function toDataset(row: DatasetRow): Dataset {
-  const expected = row.first_at && row.last_at ? stepsBetween(row.first_at, row.last_at, row.time_step) : 0;
+  // Stake readings cover irregular periods, so they have no expected count and are complete as read.
+  const expected = row.variable === STAKE_VARIABLE ? row.value_count : row.first_at && row.last_at ? stepsBetween(row.first_at, row.last_at, row.time_step) : 0;
   const shorten = (t: string | null) => (t && row.time_step === 'daily' ? t.slice(0, 10) : t);
   return {
     id: row.id,
@@ -96,8 +98,18 @@ export class DatasetService {
     };
   }
 
+  async stakeReadings(scope: TenantScope, catchmentId: number, datasetId: number): Promise<StakeReading[]> {
+    const row = await this.row(scope, catchmentId, datasetId);
+    return row.variable === STAKE_VARIABLE ? readStakeReadings(scope.db, { datasetId, organisationId: scope.organisationId }) : [];
+  }
+
   async csv(scope: TenantScope, catchmentId: number, datasetId: number): Promise<{ fileName: string; text: string }> {
     const row = await this.row(scope, catchmentId, datasetId);
+    if (row.variable === STAKE_VARIABLE) {
+      const readings = await readStakeReadings(scope.db, { datasetId, organisationId: scope.organisationId });
+      const text = csvDocument(['stake', 'elevation_m', 'from', 'to', 'balance_m_we'], readings.map((r) => [r.stake, r.elevationM, r.from, r.to, r.balanceMWe]));
+      return { fileName: `${row.variable}-${row.id}.csv`, text };
+    }
     const values = await readDatasetValues(scope.db, { datasetId, organisationId: scope.organisationId });
     const time = row.time_step === 'daily' ? (t: string) => t.slice(0, 10) : (t: string) => t;
     const header = [row.time_step === 'daily' ? 'date' : 'time', `${row.variable} (${row.unit})`];
@@ -109,6 +121,7 @@ export class DatasetService {
     await this.row(scope, catchmentId, datasetId);
     await scope.transaction(async (s) => {
       await s.from('dataset_values').where('dataset_id', datasetId).delete();
+      await s.from('stake_readings').where('dataset_id', datasetId).delete();
       await s.from('datasets').where('id', datasetId).delete();
     });
   }

@@ -1,4 +1,5 @@
 import type { Knex } from 'knex';
+import type { StakeReading } from '../../shared/schemas/stakes';
 
 /** Rows per INSERT: 4 placeholders each keeps a statement far below MySQL's 65,535-placeholder limit. */
 export const INSERT_CHUNK_ROWS = 10_000;
@@ -33,4 +34,25 @@ export async function readDatasetValues(
   if (range.from) query.where('dataset_values.t', '>=', range.from);
   if (range.to) query.where('dataset_values.t', '<=', range.to);
   return query;
+}
+
+/** Inserts stake readings (few rows per file: one statement). */
+export async function insertStakeReadings(
+  db: Knex | Knex.Transaction,
+  ids: { datasetId: number; organisationId: number },
+  readings: readonly StakeReading[],
+): Promise<void> {
+  await db('stake_readings').insert(readings.map((r) => ({
+    dataset_id: ids.datasetId, organisation_id: ids.organisationId, stake: r.stake, elevation_m: r.elevationM,
+    period_start: r.from, period_end: r.to, balance_m_we: r.balanceMWe,
+  })));
+}
+
+/** Stake readings of a dataset, by elevation and period. */
+export async function readStakeReadings(db: Knex | Knex.Transaction, ids: { datasetId: number; organisationId: number }): Promise<StakeReading[]> {
+  return db('stake_readings')
+    .where({ dataset_id: ids.datasetId, organisation_id: ids.organisationId })
+    .select('stake', { elevationM: 'elevation_m' }, { balanceMWe: 'balance_m_we' },
+      db.raw("DATE_FORMAT(period_start, '%Y-%m-%d') as `from`"), db.raw("DATE_FORMAT(period_end, '%Y-%m-%d') as `to`"))
+    .orderBy([{ column: 'elevation_m' }, { column: 'period_start' }]);
 }

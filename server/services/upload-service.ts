@@ -1,13 +1,14 @@
 import { randomBytes } from 'node:crypto';
 import { gunzipSync, gzipSync } from 'node:zlib';
-import { variableSpec } from '../../shared/schemas/dataset-variables';
+import { STAKE_VARIABLE, variableSpec } from '../../shared/schemas/dataset-variables';
 import { datasetUploadFieldsSchema, type Dataset, type UploadPreview } from '../../shared/schemas/datasets';
 import { AppError, notFound, validationFailed } from '../errors';
 import { parseWith } from '../middleware/validate';
-import { readSeriesFile } from './csv/series-file';
+import { readSeriesFile, type SeriesFileOptions } from './csv/series-file';
+import { readStakeFile } from './csv/stake-file';
 import { decodeCsvText } from './csv/read-table';
 import { toDataset, type DatasetRow } from './dataset-service';
-import { insertDatasetValues } from './dataset-values';
+import { insertDatasetValues, insertStakeReadings } from './dataset-values';
 import type { TenantScope } from './tenant-scope';
 
 /** How long a preview waits for confirmation. */
@@ -44,7 +45,7 @@ export class UploadService {
     await scope.findOr404('catchments', catchmentId, 'Catchment');
     const fields = parseWith(datasetUploadFieldsSchema, rawFields);
     const text = decodeCsvText(file.buffer);
-    const read = readSeriesFile(text, fields);
+    const read = readUpload(text, fields);
     await scope.from('pending_uploads').where('expires_at', '<', new Date()).delete();
     const token = randomBytes(24).toString('base64url');
     const expiresAt = new Date(Date.now() + PENDING_MINUTES * 60_000);
@@ -64,7 +65,7 @@ export class UploadService {
   async confirm(scope: TenantScope, catchmentId: number, token: string, user: Uploader): Promise<Dataset> {
     const pending = await this.pending(scope, catchmentId, token);
     const fields = parseWith(datasetUploadFieldsSchema, JSON.parse(pending.fields));
-    const read = readSeriesFile(gunzipSync(pending.content_gz).toString('utf8'), fields);
+    const read = readUpload(gunzipSync(pending.content_gz).toString('utf8'), fields);
     if (!read.preview.canConfirm) {
       throw validationFailed('The file has problems that must be fixed before it can be stored; nothing was stored.', 'file', { problems: read.preview.problems });
     }
@@ -83,11 +84,13 @@ export class UploadService {
         file_name: pending.file_name,
         uploaded_by: user.id,
         uploaded_by_name: user.name,
-        first_at: read.times[0],
-        last_at: read.times[read.times.length - 1],
-        value_count: read.values.length,
+        first_at: read.stakes ? read.preview.first : read.times[0],
+        last_at: read.stakes ? read.preview.last : read.times[read.times.length - 1],
+        value_count: read.preview.valueCount,
       });
-      await insertDatasetValues(s.db, { datasetId: id, organisationId: s.organisationId }, read.times, read.values);
+      const ids = { datasetId: id, organisationId: s.organisationId };
+      if (read.stakes) await insertStakeReadings(s.db, ids, read.stakes);
+      else await insertDatasetValues(s.db, ids, read.times, read.values);
       await s.from('pending_uploads').where('id', pending.id).delete();
       return id;
     });
@@ -110,4 +113,11 @@ export class UploadService {
     }
     return row;
   }
+}
+
+/** Stake readings have their own columns; every other variable is a time series. */
+function readUpload(text: string, fields: SeriesFileOptions) {
+  if (fields.variable !== STAKE_VARIABLE) return { ...readSeriesFile(text, fields), stakes: undefined };
+  const read = readStakeFile(text, fields.unit);
+  return { ...read, stakes: read.readings };
 }

@@ -76,7 +76,18 @@ export const VARIABLES = {
     ],
     headerTokens: ['discharge', 'runoff', 'q', 'flow'],
   },
+  pointBalance: {
+    label: 'Stake mass balance', kind: 'observation', storedUnit: 'm w.e.', steps: ['daily'], min: -20, max: 10, monthly: 'total',
+    units: [
+      { unit: 'm w.e.', headerTokens: ['m', 'mwe', 'm_we', 'we'], toStored: same },
+      { unit: 'mm w.e.', headerTokens: ['mm', 'mmwe'], toStored: (v) => v / 1000 },
+    ],
+    headerTokens: ['balance', 'mb', 'b'],
+  },
 } as const satisfies Record<string, VariableSpec>;
+
+/** Variables read as stake readings (stake, elevation, period, balance) rather than as a time series. */
+export const STAKE_VARIABLE = 'pointBalance';
 
 export type Variable = keyof typeof VARIABLES;
 export const VARIABLE_NAMES = Object.keys(VARIABLES) as Variable[];

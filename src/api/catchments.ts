@@ -6,6 +6,7 @@ import { bandFileReplySchema, bandTableReplySchema, type BandRow } from '@shared
 import {
   datasetListSchema, datasetReplySchema, monthlySummarySchema, seriesSchema, uploadPreviewSchema, type DatasetUploadFields,
 } from '@shared/schemas/datasets';
+import { stakeReadingsSchema } from '@shared/schemas/stakes';
 import { api } from './http';
 
 export interface CatchmentListParams {
@@ -48,6 +49,7 @@ export const catchmentsApi = {
   datasets: (id: number) => api.get(`${base(id)}/datasets`, datasetListSchema),
   series: (id: number, datasetId: number) => api.get(`${base(id)}/datasets/${datasetId}/series`, seriesSchema),
   monthly: (id: number, datasetId: number) => api.get(`${base(id)}/datasets/${datasetId}/monthly`, monthlySummarySchema),
+  stakeReadings: (id: number, datasetId: number) => api.get(`${base(id)}/datasets/${datasetId}/readings`, stakeReadingsSchema),
   datasetCsvUrl: (id: number, datasetId: number) => `${base(id)}/datasets/${datasetId}/csv`,
   removeDataset: (id: number, datasetId: number) => api.delete(`${base(id)}/datasets/${datasetId}`),
 

@@ -184,3 +184,28 @@ describe('reading stored data back', () => {
     expect(csv.text.split('\r\n')[1]).toBe('2024-01-01,0');
   });
 });
+
+describe('stake readings', () => {
+  it('stores point mass balance readings and reads them back by elevation', async () => {
+    const id = await newCatchment();
+    const preview = await uploadSeries(agent, id, fixture('stakes.csv'), { variable: 'pointBalance' });
+    expect(preview.body).toMatchObject({ canConfirm: true, valueCount: 4, unit: 'm w.e.', first: '2023-10-01', last: '2024-09-30' });
+    const { dataset } = (await agent.post(`/api/catchments/${id}/uploads/${preview.body.token}/confirm`)).body;
+    expect(dataset).toMatchObject({ variable: 'pointBalance', kind: 'observation', valueCount: 4, completeness: 1 });
+    const readings = await agent.get(`/api/catchments/${id}/datasets/${dataset.id}/readings`);
+    expect(readings.body.readings[0]).toEqual({ stake: 'A1', elevationM: 4050, from: '2023-10-01', to: '2024-09-30', balanceMWe: -2.35 });
+    const csv = await agent.get(`/api/catchments/${id}/datasets/${dataset.id}/csv`);
+    expect(csv.text.split('\r\n')[1]).toBe('A1,4050,2023-10-01,2024-09-30,-2.35');
+  });
+
+  it('lists every bad reading by line and column and stores nothing', async () => {
+    const id = await newCatchment();
+    const res = await uploadSeries(agent, id, fixture('stakes-bad.csv'), { variable: 'pointBalance' });
+    expect(res.body.canConfirm).toBe(false);
+    expect(res.body.problems.map((p: { kind: string; row: number; column: string }) => [p.kind, p.row, p.column])).toEqual([
+      ['duplicate', 3, 'stake'], ['out_of_order', 4, 'to'], ['not_a_number', 5, 'elevation_m'], ['implausible', 6, 'balance_m_we'],
+    ]);
+    expect((await agent.post(`/api/catchments/${id}/uploads/${res.body.token}/confirm`)).status).toBe(422);
+    expect(await storedCounts(id)).toEqual({ datasets: 0, values: 0 });
+  });
+});

@@ -1,4 +1,5 @@
 import path from 'node:path';
+import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { seed as seedOrganisation } from '../../seeds/01_demo_organisation';
 import { seed as seedCatchment } from '../../seeds/02_demo_catchment';
@@ -11,6 +12,9 @@ let b: BrowserSession;
 const consultant = DEMO_ACCOUNTS.find((a) => a.role === 'consultant')!;
 const client = DEMO_ACCOUNTS.find((a) => a.role === 'client')!;
 const GAP_FILE = path.join(import.meta.dirname, '..', 'fixtures', 'csv', 'temperature-hourly-gap.csv');
+
+/** Charts draw on the next animation frame after their canvas appears; wait for it before a screenshot. */
+const settle = (page: Page) => page.waitForTimeout(400);
 
 beforeAll(async () => {
   b = await openBrowser();
@@ -28,14 +32,17 @@ describe('catchments in the browser', () => {
     const row = page.locator('[data-test=catchment-table] tbody tr', { hasText: DEMO_CATCHMENT.name });
     await row.waitFor();
     await page.waitForFunction(() => document.querySelectorAll('[data-test=catchment-table] tbody tr').length === 1);
+    await settle(page);
     await page.screenshot({ path: 'test-results/catchments-list.png' });
     await row.click();
     await page.waitForSelector(`[data-test=catchment-title]:has-text("${DEMO_CATCHMENT.name}")`);
+    await settle(page);
     await page.screenshot({ path: 'test-results/catchment-details.png' });
 
     await page.click('[data-test=tab-bands]');
     await page.waitForSelector('[data-test=hypsometry-chart] canvas');
     expect(await page.locator('[data-test=band-table] tbody tr').count()).toBe(21);
+    await settle(page);
     await page.screenshot({ path: 'test-results/catchment-bands.png', fullPage: true });
 
     await page.click('[data-test=tab-climate]');
@@ -43,12 +50,18 @@ describe('catchments in the browser', () => {
     await page.waitForSelector('[data-test=series-chart]:has-text("Air temperature") canvas');
     await page.waitForSelector('[data-test=monthly-table]');
     expect(await page.textContent('[data-test=completeness-temperature]')).toBe('99.98 % complete');
+    await settle(page);
     await page.screenshot({ path: 'test-results/catchment-climate.png', fullPage: true });
 
     await page.click('[data-test=tab-observations]');
     await page.waitForSelector('[data-test=dataset-discharge]');
     await page.waitForSelector('[data-test=series-chart] canvas');
+    await settle(page);
     await page.screenshot({ path: 'test-results/catchment-observations.png', fullPage: true });
+    await page.click('[data-test=dataset-pointBalance]');
+    await page.waitForSelector('[data-test=stake-chart] canvas');
+    await settle(page);
+    await page.screenshot({ path: 'test-results/catchment-stakes.png', fullPage: true });
     await page.close();
   });
 
@@ -75,11 +88,13 @@ describe('catchments in the browser', () => {
     const problems = await page.textContent('[data-test=preview-problems]');
     expect(problems).toContain('no values from 2024-01-02 06:00 to 2024-01-02 11:00 (6 hours)');
     expect(await page.textContent('[data-test=preview-unit]')).toContain('°C');
+    await settle(page);
     await page.screenshot({ path: 'test-results/upload-preview.png', fullPage: true });
 
     await page.click('[data-test=upload-confirm]');
     await page.waitForSelector('[data-test=series-chart] canvas');
     expect(await page.textContent('[data-test=completeness-temperature]')).toContain('91.67 %');
+    await settle(page);
     await page.screenshot({ path: 'test-results/upload-chart.png', fullPage: true });
     await page.close();
   });
