@@ -1,4 +1,4 @@
-import { readFileSync } from 'node:fs';
+import { readFileSync, writeFileSync } from 'node:fs';
 import { PDFParse } from 'pdf-parse';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Run } from '../../shared/schemas/runs';
@@ -99,6 +99,7 @@ describe('briefings in the browser', () => {
 
     const [download] = await Promise.all([page.waitForEvent('download'), page.click('[data-test=download-pdf]')]);
     const pdf = readFileSync((await download.path())!);
+    writeFileSync('test-results/briefing-client.pdf', pdf);
     expect(pdf.subarray(0, 5).toString()).toBe('%PDF-');
     const parser = new PDFParse({ data: new Uint8Array(pdf) });
     const text = (await parser.getText()).text.replace(/\s+/g, ' ');
