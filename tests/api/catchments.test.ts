@@ -58,6 +58,25 @@ describe('creating and editing catchments', () => {
   });
 });
 
+describe('a catchment with runs', () => {
+  it('is archived, not deleted, so its runs stay reproducible', async () => {
+    const agent = await signedInAgent(t.app, orgA.users.consultant.email);
+    const id = (await agent.post('/api/catchments').send(catchmentFields())).body.catchment.id;
+    const [scenarioId] = await t.db('scenarios').insert({ organisation_id: orgA.organisationId, catchment_id: id, name: 'Baseline', description: '', is_baseline: true, schema_version: 1, changes: '{}' });
+    await t.db('runs').insert({
+      organisation_id: orgA.organisationId, catchment_id: id, scenario_id: scenarioId, scenario_name: 'Baseline', is_baseline: true,
+      changes: '{}', engine_version: 'test', input_hash: 'x'.repeat(64),
+    });
+    const res = await agent.delete(`/api/catchments/${id}`);
+    expect(res.body.outcome).toBe('archived');
+    const kept = await agent.get(`/api/catchments/${id}`);
+    expect(kept.status).toBe(200);
+    expect(kept.body.catchment.archived).toBe(true);
+    const listed = await agent.get('/api/catchments').query({ archived: 'true', search: kept.body.catchment.name });
+    expect(listed.body.catchments.map((c: { id: number }) => c.id)).toEqual([id]);
+  });
+});
+
 describe('the catchment list', () => {
   it('pages, sorts and searches on the server and caps the page size', async () => {
     const agent = await signedInAgent(t.app, orgA.users.consultant.email);

@@ -58,6 +58,13 @@ describe('a good hourly temperature file', () => {
     expect(res.body.firstRows[0].value).toBeCloseTo(-5, 6);
   });
 
+  it('suggests kelvin when values read as °C are far too warm', async () => {
+    const id = await newCatchment();
+    const res = await uploadSeries(agent, id, Buffer.from('time,temperature\n2024-01-01 00:00,268.15\n2024-01-01 01:00,270.15\n'));
+    expect(res.body.unitNote).toBe('No unit in the column name "temperature"; assumed °C.');
+    expect(res.body.problems[0].message).toBe('268.15 °C is outside the plausible range -60 to 50 °C (kelvin? choose K as the unit)');
+  });
+
   it('says which unit it assumed when the header names none', async () => {
     const id = await newCatchment();
     const res = await uploadSeries(agent, id, Buffer.from('date,precipitation\n2024-01-01,1.5\n2024-01-02,0\n'), { variable: 'precipitation' });
@@ -167,6 +174,18 @@ describe('pending uploads belong to their organisation', () => {
     const scientist = await signedInAgent(t.app, org.users.scientist.email);
     expect((await scientist.get(`/api/catchments/${id}/datasets/${dataset.id}/series`)).status).toBe(200);
     expect((await scientist.delete(`/api/catchments/${id}/datasets/${dataset.id}`)).status).toBe(403);
+  });
+});
+
+describe('an expired preview', () => {
+  it('answers 410 and stores nothing', async () => {
+    const id = await newCatchment();
+    const preview = await uploadSeries(agent, id, fixture('temperature-hourly.csv'));
+    await t.db('pending_uploads').where('token', preview.body.token).update({ expires_at: new Date(Date.now() - 60_000) });
+    const res = await agent.post(`/api/catchments/${id}/uploads/${preview.body.token}/confirm`);
+    expect(res.status).toBe(410);
+    expect(res.body.error.message).toContain('expired');
+    expect(await storedCounts(id)).toEqual({ datasets: 0, values: 0 });
   });
 });
 

@@ -86,6 +86,18 @@ describe('building engine inputs from stored data', () => {
     expect(() => requireReadyInputs(built)).toThrow(/temperature \(dataset \d+\) has no values from 2024-07-01 05:00 to 2024-07-01 12:00/);
   });
 
+  it('builds daily forcing from daily minimum and maximum temperature', async () => {
+    const id = (await agent.post('/api/catchments').send(catchmentFields())).body.catchment.id;
+    await agent.put(`/api/catchments/${id}/bands`).send({ bands: BANDS });
+    await store(id, Buffer.from('date,tmin_c\n2024-07-01,-1.5\n2024-07-02,-0.5\n'), 'temperatureMin');
+    await store(id, Buffer.from('date,tmax_c\n2024-07-01,8.5\n2024-07-02,9\n'), 'temperatureMax');
+    await store(id, Buffer.from('date,precipitation_mm\n2024-07-01,0\n2024-07-02,12\n'), 'precipitation');
+    const built = await buildSimulationInputs(scope, bands, id, { from: '2024-07-01', to: '2024-07-02' });
+    expect(built.ready).toBe(true);
+    expect(built.input.forcing).toEqual({ timeStep: 'daily', start: '2024-07-01', tMinC: [-1.5, -0.5], tMaxC: [8.5, 9], precipitationMm: [0, 12], precipitationStep: 'daily' });
+    expect(simulationInputSchema.safeParse(built.input).success).toBe(true);
+  });
+
   it('names missing bands and datasets', async () => {
     const id = (await agent.post('/api/catchments').send(catchmentFields())).body.catchment.id;
     const built = await buildSimulationInputs(scope, bands, id, { from: '2024-07-01', to: '2024-07-02' });

@@ -68,7 +68,8 @@ export function readSeriesFile(text: string, options: SeriesFileOptions): ReadSe
       } else {
         value = unit.option.toStored(read);
         if (value < spec.min || value > spec.max) {
-          report({ kind: 'implausible', severity: 'error', row: line, column: valueName, message: `${round(value)} ${spec.storedUnit} is outside the plausible range ${spec.min} to ${spec.max} ${spec.storedUnit}` });
+          const hint = spec.storedUnit === '°C' && unit.option.unit === '°C' && read > 200 ? ' (kelvin? choose K as the unit)' : '';
+          report({ kind: 'implausible', severity: 'error', row: line, column: valueName, message: `${round(value)} ${spec.storedUnit} is outside the plausible range ${spec.min} to ${spec.max} ${spec.storedUnit}${hint}` });
         }
       }
     }
