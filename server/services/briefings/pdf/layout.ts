@@ -68,12 +68,14 @@ export function table(doc: Doc, full: TableData): void {
   const width = contentWidth(doc);
   const size = data.columns.length > 8 ? 6.5 : data.columns.length > 5 ? 7.5 : 9;
   const colWidth = width / data.columns.length;
+  // Numbers line up on the right, words on the left.
+  const numeric = data.columns.map((_, i) => data.rows.some((r) => typeof r[i] === 'number'));
   const drawRow = (cells: string[], bold: boolean) => {
     doc.font(bold ? FONTS.bold.name : FONTS.regular.name).fontSize(size);
     const height = Math.max(...cells.map((c) => doc.heightOfString(c, { width: colWidth - 4 }))) + 4;
     ensureRoom(doc, height + 2);
     const top = doc.y;
-    cells.forEach((c, i) => doc.fillColor(INK).text(c, PAGE_MARGIN + i * colWidth + 2, top + 2, { width: colWidth - 4, align: i === 0 ? 'left' : 'right' }));
+    cells.forEach((c, i) => doc.fillColor(INK).text(c, PAGE_MARGIN + i * colWidth + 2, top + 2, { width: colWidth - 4, align: numeric[i] ? 'right' : 'left' }));
     doc.moveTo(PAGE_MARGIN, top + height).lineTo(PAGE_MARGIN + width, top + height).lineWidth(0.4).strokeColor('#c4ccd2').stroke();
     doc.x = PAGE_MARGIN;
     doc.y = top + height;
