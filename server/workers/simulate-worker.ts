@@ -1,9 +1,9 @@
 import type { MessagePort } from 'node:worker_threads';
-import { simulate } from '../../shared/melt/simulate';
-import { summariseSimulation, type SimulationSummary } from '../../shared/analysis/simulation-summary';
+import type { SimulationSummary } from '../../shared/analysis/simulation-summary';
+import { simulateSummary, type MemberInput } from '../../shared/analysis/simulate-summary';
 
 export interface SimulateTask {
-  input: unknown;
+  input: MemberInput;
   /** Receives the fraction simulated (0 … 1) after each month. */
   progress: MessagePort;
 }
@@ -11,7 +11,7 @@ export interface SimulateTask {
 /** Runs one simulation in a worker thread and returns what a run stores. */
 export default function simulateTask({ input, progress }: SimulateTask): SimulationSummary {
   try {
-    return summariseSimulation(simulate(input, { onProgress: (p) => progress.postMessage(p.fraction) }));
+    return simulateSummary(input, (fraction) => progress.postMessage(fraction));
   } finally {
     progress.close();
   }

@@ -36,6 +36,21 @@ export type ParameterOverrides = z.infer<typeof parameterOverridesSchema>;
 export const WARMING_LEVELS = ['1.5', '2', '3', '4'] as const;
 
 /**
+ * Impurity loads for the bands whose mean elevation lies in [fromM, toM); a load left out keeps
+ * the scenario-wide value. Where ranges overlap, the first one listed applies.
+ */
+export const elevationRangeImpuritiesSchema = z.object({
+  fromM: number('lower elevation of the range', -500, 9000, 'm'),
+  toM: number('upper elevation of the range', -500, 9000, 'm'),
+  blackCarbonSnowNgG: monthly('black carbon in snow', 0, 50_000, 'ng/g').optional(),
+  blackCarbonIceNgG: monthly('black carbon on ice', 0, 50_000, 'ng/g').optional(),
+  dustSnowUgG: monthly('dust in snow', 0, 5_000, 'µg/g').optional(),
+  dustIceUgG: monthly('dust on ice', 0, 5_000, 'µg/g').optional(),
+}).strict().refine((r) => r.toM > r.fromM, { path: ['toM'], message: 'must be above the lower elevation of the range' });
+export type ElevationRangeImpurities = z.infer<typeof elevationRangeImpuritiesSchema>;
+export const IMPURITY_FIELDS = ['blackCarbonSnowNgG', 'blackCarbonIceNgG', 'dustSnowUgG', 'dustIceUgG'] as const;
+
+/**
  * The changes a scenario applies to the station record, stored as JSON with its schema version.
  * Maps onto the engine's scenario, parameters and period (see shared/analysis/engine-input.ts).
  */
@@ -51,6 +66,8 @@ export const scenarioChangesSchema = z.object({
   blackCarbonIceNgG: monthly('black carbon on ice', 0, 50_000, 'ng/g').default(0),
   dustSnowUgG: monthly('dust in snow', 0, 5_000, 'µg/g').default(0),
   dustIceUgG: monthly('dust on ice', 0, 5_000, 'µg/g').default(0),
+  /** Loads that differ by elevation; bands outside every range keep the values above. */
+  impuritiesByElevation: z.array(elevationRangeImpuritiesSchema).max(10, 'at most 10 elevation ranges').default([]),
   debrisThicknessChangeM: number('debris thickness change', -10, 10, 'm').default(0),
   debrisExtentChange: number('debris extent change', 0, 1, '(fraction of clean glacier area)').default(0),
   parameters: parameterOverridesSchema.default({}),

@@ -11,6 +11,7 @@ export function scenarioSummary(c: ScenarioChanges): string {
   if (nonZero(c.blackCarbonIceNgG)) parts.push(`on ice ${value(c.blackCarbonIceNgG, 'ng/g')}`);
   if (nonZero(c.dustSnowUgG)) parts.push(`Dust in snow ${value(c.dustSnowUgG, 'µg/g')}`);
   if (nonZero(c.dustIceUgG)) parts.push(`on ice ${value(c.dustIceUgG, 'µg/g')}`);
+  if (c.impuritiesByElevation.length > 0) parts.push(`impurities in ${c.impuritiesByElevation.length} elevation range(s)`);
   if (c.debrisThicknessChangeM !== 0) parts.push(`Debris ${c.debrisThicknessChangeM > 0 ? '+' : ''}${c.debrisThicknessChangeM} m`);
   if (c.debrisExtentChange !== 0) parts.push(`Debris extent +${Math.round(c.debrisExtentChange * 100)} %`);
   if (nonZero(c.temperatureDeltaC)) parts.push(`Warming ${value(c.temperatureDeltaC, '°C')}`);

@@ -184,6 +184,23 @@ describe('run lifecycle', () => {
   });
 });
 
+describe('impurities by elevation range', () => {
+  it('darken only the bands in the range', async () => {
+    const scenarioId = await createScenario(consultant, 'Soot on the upper bands', {
+      period: SEASON, impuritiesByElevation: [{ fromM: 3000, toM: 4500, blackCarbonSnowNgG: 800, blackCarbonIceNgG: 2000 }],
+    });
+    const started = await consultant.post(`/api/catchments/${catchmentId}/runs`).send({ scenarioId, attribution: true });
+    expect(started.status).toBe(202);
+    expect((await waitForRun(consultant, catchmentId, started.body.run.id)).status).toBe('done');
+    const { results } = (await consultant.get(`/api/catchments/${catchmentId}/runs/${started.body.run.id}/results`)).body;
+    // Invented valley bands have mean elevations of about 2533, 3200 and 3867 m.
+    const added = results.bandAddedMm.map((b: Record<string, number>) => b.snow + b.ice + b.debrisIce + b.rain);
+    expect(added[0]).toBeCloseTo(0, 9);
+    expect(added[1] + added[2]).toBeGreaterThan(0);
+    expect(results.attribution.terms.map((t: { label: string }) => t.label)).toEqual(['Black carbon']);
+  });
+});
+
 describe('attribution and ensembles', () => {
   it('splits added melt among drivers whose contributions add up to the full change', async () => {
     const scenarioId = await createScenario(consultant, 'Three drivers', { ...SOOT, debrisExtentChange: 0.2 });

@@ -76,6 +76,9 @@ describe('darkening scenarios in the browser', () => {
     await page.fill('[data-test=scenario-name]', name);
     await page.fill('[data-test=dust-snow-value]', String(40 + (Date.now() % 50)));
     await page.click('[data-test=warming-2]');
+    // Black carbon on the ice of the bands from 4000 to 4500 m only.
+    await page.click('[data-test=add-range]');
+    await page.fill('[data-test=range-0-blackCarbonIceNgG]', '1500');
     expect(await page.inputValue('[data-test=temperature-value]')).toBe('0.91');
     await page.click('[data-test=save-scenario]');
     await page.click(`[data-test="run-${name}"]`);

@@ -1,5 +1,4 @@
-import { changedDrivers } from '../../../shared/analysis/drivers';
-import { engineInputOf } from '../../../shared/analysis/engine-input';
+import { attributionDrivers } from '../../../shared/analysis/run-plan';
 import { runResults } from '../../../shared/analysis/run-results';
 import type { RunResults } from '../../../shared/schemas/results';
 import { conflict } from '../../errors';
@@ -33,9 +32,8 @@ export class ResultsService {
     if (row.status !== 'done') throw conflict(`This run is ${row.status}; results exist once it is done.`);
     const catchment = await scope.findOr404<{ name: string }>('catchments', catchmentId, 'Catchment');
     const members = await loadMembers(scope, runId);
-    const drivers = row.baseline_changes
-      ? changedDrivers(engineInputOf(readChanges(row.baseline_changes)).scenario, engineInputOf(readChanges(row.changes)).scenario)
-      : [];
+    const bandElevations = members[0]?.summary.bands.map((b) => b.elevationM) ?? [];
+    const drivers = row.baseline_changes ? attributionDrivers(readChanges(row.changes), readChanges(row.baseline_changes), bandElevations) : [];
     return { results: runResults(toRun(row), catchment.name, members, drivers), members };
   }
 }

@@ -1,6 +1,7 @@
 import { setMaxListeners } from 'node:events';
 import type { Knex } from 'knex';
 import type { MemberPlan } from '../../../shared/analysis/run-plan';
+import type { MemberInput } from '../../../shared/analysis/simulate-summary';
 import type { SimulationSummary } from '../../../shared/analysis/simulation-summary';
 import { TenantScope } from '../tenant-scope';
 import type { SimulationPool } from './simulation-pool';
@@ -10,7 +11,7 @@ import { storeMembers } from './run-store';
 export interface RunJob {
   runId: number;
   organisationId: number;
-  members: { plan: MemberPlan; input: unknown }[];
+  members: { plan: MemberPlan; input: MemberInput }[];
 }
 
 /** How often progress is written to the run row while simulating. */

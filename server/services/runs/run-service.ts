@@ -75,19 +75,21 @@ export class RunService {
     const scenario = await this.scenarios.get(scope, catchmentId, request.scenarioId);
     if (scenario.archived) throw validationFailed('This scenario is archived; restore it before running it.', 'scenarioId');
     const baseline = scenario.isBaseline ? null : await this.scenarios.ensureBaseline(scope, catchmentId);
+    // The variant's period, else the baseline's (as planRun decides).
+    const period = scenario.changes.period ?? baseline?.changes.period ?? null;
+    const stored = await this.inputs(scope, catchmentId, period);
+    const bandElevations = stored.catchment.bands.map((b) => (b.lowerM + b.upperM) / 2);
     let plan;
     try {
-      plan = planRun({ changes: scenario.changes, baselineChanges: baseline?.changes ?? null, ...request });
+      plan = planRun({ changes: scenario.changes, baselineChanges: baseline?.changes ?? null, ...request }, bandElevations);
     } catch (error) {
       if (error instanceof RunPlanError) throw validationFailed(error.message, 'attribution');
       throw error;
     }
-    const period = plan.members[0].input.period ?? null;
-    const stored = await this.inputs(scope, catchmentId, period);
     const members = plan.members.map((m) => ({ plan: m, input: { ...stored, ...m.input } }));
     try {
       // The first member checks what all share (catchment, forcing, period); the rest differ only in validated changes.
-      parseSimulationInput(members[0].input);
+      parseSimulationInput({ ...members[0].input, parts: undefined });
     } catch (error) {
       if (error instanceof SimulationInputError) throw validationFailed(`The inputs cannot be simulated: ${error.issues[0].path}: ${error.issues[0].message}`, error.issues[0].path, { issues: error.issues });
       throw error;

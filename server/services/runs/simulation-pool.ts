@@ -2,6 +2,7 @@ import { MessageChannel } from 'node:worker_threads';
 import { Piscina } from 'piscina';
 import type { SimulationSummary } from '../../../shared/analysis/simulation-summary';
 import type { SimulateTask } from '../../workers/simulate-worker';
+import type { MemberInput } from '../../../shared/analysis/simulate-summary';
 
 const WORKER = new URL('../../workers/simulate-worker.ts', import.meta.url);
 const TSX_LOADER = /tsx/;
@@ -28,7 +29,7 @@ export class SimulationPool {
   }
 
   /** Simulates one engine input; rejects with an AbortError when `signal` aborts. */
-  async simulate(input: unknown, onProgress: (fraction: number) => void, signal?: AbortSignal): Promise<SimulationSummary> {
+  async simulate(input: MemberInput, onProgress: (fraction: number) => void, signal?: AbortSignal): Promise<SimulationSummary> {
     const { port1, port2 } = new MessageChannel();
     port1.on('message', (fraction: number) => onProgress(fraction));
     try {
