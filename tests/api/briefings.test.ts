@@ -5,7 +5,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { CAUTIONS } from '../../shared/text/cautions';
 import { SECTIONS, catchmentWithRun } from '../support/briefings';
 import { createOrganisation, signedInAgent, unique, type TestOrg } from '../support/factories';
-import { giveActivePlan, inventedValleyInputs } from '../support/runs';
+import { giveActivePlan, inventedValleyInputs, waitForRun } from '../support/runs';
 import { startMailCatcher, type MailCatcher } from '../../server/services/mail/mail-catcher';
 import { createTestApp, type TestApp } from '../support/test-app';
 
@@ -65,12 +65,20 @@ describe('briefing drafts', () => {
     expect((await consultant.get(`/api/briefings/${briefingId}/draft`)).body.briefing.sections).toHaveLength(3);
   });
 
-  it('refuse to assemble from a run that is not in the catchment', async () => {
+  it('refuse runs that are not finished variant runs of the catchment, by field, keeping what is stored', async () => {
     const draft = (await consultant.get(`/api/briefings/${briefingId}/draft`)).body.briefing;
-    const missing = await consultant.put(`/api/briefings/${briefingId}/draft`).send({ ...draft, selection: { runIds: [999999] } });
-    expect(missing.status).toBe(200);
-    expect((await consultant.get(`/api/briefings/${briefingId}/preview`)).status).toBe(404);
-    await consultant.put(`/api/briefings/${briefingId}/draft`).send({ ...draft, selection: { runIds: [runId] } });
+    const missing = await consultant.put(`/api/briefings/${briefingId}/draft`).send({ ...draft, selection: { runIds: [runId, 999999] } });
+    expect(missing.status).toBe(422);
+    expect(missing.body.error).toMatchObject({ field: 'selection.runIds.1', message: 'Run #999999 is not a run of this catchment.' });
+    const created = await consultant.post('/api/briefings').send({ catchmentId, title: 'Other', selection: { runIds: [999999] } });
+    expect(created.status).toBe(422);
+    const baselineScenario = (await consultant.get(`/api/catchments/${catchmentId}/scenarios`)).body.scenarios[0];
+    const started = await consultant.post(`/api/catchments/${catchmentId}/runs`).send({ scenarioId: baselineScenario.id });
+    const baselineRun = await waitForRun(consultant, catchmentId, started.body.run.id);
+    const baseline = await consultant.put(`/api/briefings/${briefingId}/draft`).send({ ...draft, selection: { runIds: [baselineRun.id] } });
+    expect(baseline.status).toBe(422);
+    expect(baseline.body.error.message).toMatch(/is a baseline run; choose variant runs/);
+    expect((await consultant.get(`/api/briefings/${briefingId}/draft`)).body.briefing.selection).toEqual({ runIds: [runId] });
   });
 });
 

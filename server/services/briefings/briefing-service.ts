@@ -41,6 +41,7 @@ export class BriefingService {
 
   async create(scope: TenantScope, user: UserRow, request: z.output<typeof createBriefingSchema>): Promise<Draft> {
     await scope.findOr404('catchments', request.catchmentId, 'Catchment');
+    await this.source.check(scope, request.catchmentId, request.selection);
     const id = await scope.transaction(async (s) => {
       const briefingId = await s.insert('briefings', {
         catchment_id: request.catchmentId, title: request.title, summary: request.summary,
@@ -72,6 +73,8 @@ export class BriefingService {
 
   /** Replaces title, summary, chosen runs and the ordered sections in one go. */
   async saveDraft(scope: TenantScope, user: UserRow, id: number, request: z.output<typeof saveDraftSchema>): Promise<Draft> {
+    const briefing = await scope.findOr404<BriefingRow>('briefings', id, 'Briefing');
+    await this.source.check(scope, briefing.catchment_id, request.selection);
     await scope.transaction(async (s) => {
       await s.findOr404('briefings', id, 'Briefing');
       await s.from('briefings').where({ id }).update({

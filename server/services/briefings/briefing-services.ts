@@ -1,6 +1,5 @@
 import type { InvitationService } from '../members/invitation-service';
 import type { ResultsService } from '../runs/results-service';
-import type { RunService } from '../runs/run-service';
 import { BriefingExports } from './briefing-exports';
 import { BriefingService } from './briefing-service';
 import { BriefingSharing } from './briefing-sharing';
@@ -23,9 +22,9 @@ export interface BriefingServicesOptions {
 }
 
 export function createBriefingServices(
-  deps: { runs: RunService; results: ResultsService; invitations: InvitationService }, options: BriefingServicesOptions = {},
+  deps: { results: ResultsService; invitations: InvitationService }, options: BriefingServicesOptions = {},
 ): BriefingServices {
-  const briefings = new BriefingService(options.briefingResults ?? new RunsResultsSource(deps.runs, deps.results));
+  const briefings = new BriefingService(options.briefingResults ?? new RunsResultsSource(deps.results));
   const pdfPool = new PdfPool();
   return { briefings, briefingSharing: new BriefingSharing(deps.invitations), briefingExports: new BriefingExports(briefings, pdfPool), pdfPool };
 }

@@ -20,5 +20,7 @@ export interface ComparisonForBriefing {
 
 /** Reads the chosen runs of a catchment; throws an AppError for runs that are missing, not finished or not comparable. */
 export interface BriefingResultsSource {
+  /** Refuses, by field, runs that are missing, not finished or baseline runs (cheap: no results are read). */
+  check(scope: TenantScope, catchmentId: number, selection: RunSelection): Promise<void>;
   load(scope: TenantScope, catchmentId: number, selection: RunSelection): Promise<ComparisonForBriefing>;
 }

@@ -2,7 +2,7 @@ import { parameterValues, scenarioValues } from '../../../shared/briefings/scena
 import type { RunSelection } from '../../../shared/schemas/briefings';
 import { validationFailed } from '../../errors';
 import type { ResultsService } from '../runs/results-service';
-import type { RunService } from '../runs/run-service';
+import type { RunRow } from '../runs/run-service';
 import { BASELINE_NAME, readChanges } from '../scenario-service';
 import type { TenantScope } from '../tenant-scope';
 import type { BriefingResultsSource, ComparisonForBriefing } from './comparison';
@@ -11,19 +11,31 @@ interface DatasetRow { variable: string; kind: string; source: string; accuracy:
 
 /** Briefing numbers from finished runs, through the results service (so briefings and results screens agree). */
 export class RunsResultsSource implements BriefingResultsSource {
-  constructor(
-    private readonly runs: RunService,
-    private readonly results: ResultsService,
-  ) {}
+  constructor(private readonly results: ResultsService) {}
+
+  async check(scope: TenantScope, catchmentId: number, selection: RunSelection): Promise<void> {
+    await this.variantRows(scope, catchmentId, selection);
+  }
+
+  private async variantRows(scope: TenantScope, catchmentId: number, selection: RunSelection): Promise<RunRow[]> {
+    const rows: RunRow[] = [];
+    for (const [i, runId] of selection.runIds.entries()) {
+      const field = `selection.runIds.${i}`;
+      const row = await scope.from('runs').where({ id: runId, catchment_id: catchmentId }).first() as RunRow | undefined;
+      if (!row) throw validationFailed(`Run #${runId} is not a run of this catchment.`, field);
+      if (row.status !== 'done') throw validationFailed(`Run #${runId} is ${row.status}; only finished runs can be reported.`, field);
+      if (row.is_baseline || !row.baseline_changes) {
+        throw validationFailed(`Run #${runId} is a baseline run; choose variant runs (each carries its baseline).`, field);
+      }
+      rows.push(row);
+    }
+    return rows;
+  }
 
   async load(scope: TenantScope, catchmentId: number, selection: RunSelection): Promise<ComparisonForBriefing> {
     const picked = [];
-    for (const [i, runId] of selection.runIds.entries()) {
-      const row = await this.runs.row(scope, catchmentId, runId);
-      if (row.is_baseline || !row.baseline_changes) {
-        throw validationFailed(`Run #${runId} is a baseline run; choose variant runs (each carries its baseline).`, `selection.runIds.${i}`);
-      }
-      picked.push({ row, results: await this.results.results(scope, catchmentId, runId) });
+    for (const row of await this.variantRows(scope, catchmentId, selection)) {
+      picked.push({ row, results: await this.results.results(scope, catchmentId, row.id) });
     }
     const first = picked[0];
     const mismatch = picked.find((p) => p.results.startDate !== first.results.startDate || p.results.dayCount !== first.results.dayCount);
