@@ -47,6 +47,6 @@ export function createContext(config: AppConfig, db: Knex, options: ContextOptio
     uploads: new UploadService(),
     lab: new LabService(db, new BandService(), new LabPool(options.labThreads)),
     ...runServices,
-    ...createBriefingServices({ runs: runServices.runs, results: runServices.results, invitations: team.invitations }, options),
+    ...createBriefingServices({ results: runServices.results, invitations: team.invitations }, options),
   };
 }
