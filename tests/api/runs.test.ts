@@ -1,6 +1,12 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type TestAgent from 'supertest/lib/agent';
 import { CAUTIONS } from '../../shared/text/cautions';
+import { planRun } from '../../shared/analysis/run-plan';
+import type { MemberInput } from '../../shared/analysis/simulate-summary';
+import { scenarioChangesSchema } from '../../shared/schemas/scenarios';
+import { RunExecutor } from '../../server/services/runs/run-executor';
+import type { SimulationPool } from '../../server/services/runs/simulation-pool';
+import { TenantScope } from '../../server/services/tenant-scope';
 import { createOrganisation, signedInAgent, type TestOrg } from '../support/factories';
 import { createTestApp, type TestApp } from '../support/test-app';
 import { createCatchment, giveActivePlan, inventedValleyInputs, SEASON, waitForRun } from '../support/runs';
@@ -107,7 +113,13 @@ describe('roles and organisations', () => {
     const foreignScenario = await outsider.post(`/api/catchments/${own}/runs`).send({ scenarioId: baselineId });
     expect(foreignScenario.status).toBe(404);
     const runs = await consultant.get(`/api/catchments/${catchmentId}/runs`);
-    expect((await outsider.get(`/api/catchments/${catchmentId}/runs/${runs.body.runs[0].id}`)).status).toBe(404);
+    const runId = runs.body.runs[0].id;
+    for (const path of ['', '/results', '/export/bands.csv', '/export/daily.csv']) {
+      expect((await outsider.get(`/api/catchments/${catchmentId}/runs/${runId}${path}`)).status).toBe(404);
+    }
+    expect((await outsider.post(`/api/catchments/${catchmentId}/runs/${runId}/cancel`)).status).toBe(404);
+    // Their own catchment with our run's id is no way in either.
+    expect((await outsider.get(`/api/catchments/${own}/runs/${runId}`)).status).toBe(404);
   });
 
   it('refuse to start runs without an active seat plan', async () => {
@@ -161,6 +173,22 @@ describe('run lifecycle', () => {
     expect(run.status).toBe('cancelled');
     expect((await consultant.get(`/api/catchments/${catchmentId}/runs/${run.id}/results`)).status).toBe(409);
     expect((await consultant.post(`/api/catchments/${catchmentId}/runs/${run.id}/cancel`)).status).toBe(409);
+  });
+
+  it('ends failed and keeps the error message when a simulation fails', async () => {
+    const failingPool = { threads: 1, simulate: async () => { throw new Error('the engine stopped: no energy balance closure'); } } as unknown as SimulationPool;
+    const executor = new RunExecutor(t.db, failingPool, 1);
+    const scenarioId = await createScenario(consultant, 'Bound to fail', { ...SOOT, dustIceUgG: 5 });
+    const scope = new TenantScope(t.db, org.organisationId);
+    const runId = await scope.insert('runs', {
+      catchment_id: catchmentId, scenario_id: scenarioId, scenario_name: 'Bound to fail', is_baseline: false, changes: '{}',
+      engine_version: '1.0.0', input_hash: 'f'.repeat(64), status: 'queued', simulation_count: 1,
+    });
+    executor.enqueue({ runId, organisationId: org.organisationId, members: [{ plan: planRun({ changes: scenarioChangesSchema.parse(SOOT), baselineChanges: null, attribution: false, ensembleSize: 0, ensembleSeed: 1 }, [3000]).members[0], input: {} as MemberInput }] });
+    await executor.idle();
+    const run = await waitForRun(consultant, catchmentId, runId);
+    expect(run).toMatchObject({ status: 'failed', errorMessage: 'the engine stopped: no energy balance closure' });
+    expect(run.finishedAt).not.toBeNull();
   });
 
   it('refuses a run whose catchment data are missing, naming what is missing', async () => {

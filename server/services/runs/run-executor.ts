@@ -41,7 +41,7 @@ export class RunExecutor {
   /** Marks runs left queued or running by an earlier process as failed (their inputs were in its memory). */
   async recover(): Promise<void> {
     await this.db('runs').whereIn('status', ['queued', 'running'])
-      .update({ status: 'failed', error_message: RESTART_MESSAGE, finished_at: this.db.fn.now() });
+      .update({ status: 'failed', error_message: RESTART_MESSAGE, finished_at: this.db.fn.now(3) });
   }
 
   enqueue(job: RunJob): void {
@@ -86,7 +86,7 @@ export class RunExecutor {
 
   private async execute(job: RunJob, signal: AbortSignal): Promise<void> {
     const { runId } = job;
-    await this.db('runs').where({ id: runId }).update({ status: 'running', started_at: this.db.fn.now(), progress: 0 });
+    await this.db('runs').where({ id: runId }).update({ status: 'running', started_at: this.db.fn.now(3), progress: 0 });
     const fractions = new Float64Array(job.members.length);
     let lastWrite = 0;
     const reportProgress = (i: number, fraction: number) => {
@@ -128,7 +128,7 @@ export class RunExecutor {
 
   private async finish(runId: number, status: 'done' | 'failed' | 'cancelled', message: string | null): Promise<void> {
     await this.db('runs').where({ id: runId }).update({
-      status, error_message: message, finished_at: this.db.fn.now(), ...(status === 'done' ? { progress: 1 } : {}),
+      status, error_message: message, finished_at: this.db.fn.now(3), ...(status === 'done' ? { progress: 1 } : {}),
     });
   }
 }

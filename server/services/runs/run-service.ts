@@ -138,7 +138,7 @@ export class RunService {
     if (row.status !== 'queued' && row.status !== 'running') throw conflict(`This run is already ${row.status}.`);
     if (!(await this.executor.cancel(id))) {
       // Not held by this process (e.g. left over from before a restart): close it here.
-      await scope.from('runs').where('id', id).update({ status: 'cancelled', finished_at: scope.db.fn.now() });
+      await scope.from('runs').where('id', id).update({ status: 'cancelled', finished_at: scope.db.fn.now(3) });
     }
     return this.get(scope, catchmentId, id);
   }
