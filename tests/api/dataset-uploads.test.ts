@@ -167,7 +167,7 @@ describe('pending uploads belong to their organisation', () => {
     const preview = await uploadSeries(agent, id, fixture('discharge-daily.csv'), { variable: 'discharge' });
     const { dataset } = (await agent.post(`/api/catchments/${id}/uploads/${preview.body.token}/confirm`)).body;
     const stranger = await signedInAgent(t.app, other.users.admin.email);
-    for (const suffix of ['series', 'monthly', 'csv']) {
+    for (const suffix of ['series', 'monthly', 'csv', 'readings']) {
       expect((await stranger.get(`/api/catchments/${id}/datasets/${dataset.id}/${suffix}`)).status).toBe(404);
     }
     expect((await stranger.delete(`/api/catchments/${id}/datasets/${dataset.id}`)).status).toBe(404);

@@ -11,7 +11,10 @@ import { unique } from '../support/factories';
 let b: BrowserSession;
 const consultant = DEMO_ACCOUNTS.find((a) => a.role === 'consultant')!;
 const client = DEMO_ACCOUNTS.find((a) => a.role === 'client')!;
-const GAP_FILE = path.join(import.meta.dirname, '..', 'fixtures', 'csv', 'temperature-hourly-gap.csv');
+const FIXTURES = path.join(import.meta.dirname, '..', 'fixtures', 'csv');
+const GAP_FILE = path.join(FIXTURES, 'temperature-hourly-gap.csv');
+const GOOD_BANDS = path.join(FIXTURES, 'bands.csv');
+const BAD_BANDS = path.join(FIXTURES, 'bands-overlap.csv');
 
 /** Charts draw on the next animation frame after their canvas appears; wait for it before a screenshot. */
 const settle = (page: Page) => page.waitForTimeout(400);
@@ -96,6 +99,38 @@ describe('catchments in the browser', () => {
     expect(await page.textContent('[data-test=completeness-temperature]')).toContain('91.67 %');
     await settle(page);
     await page.screenshot({ path: 'test-results/upload-chart.png', fullPage: true });
+
+    const [svg] = await Promise.all([page.waitForEvent('download'), page.click('[data-test=series-chart-download]').then(() => page.click('text=Drawing (SVG)'))]);
+    expect(svg.suggestedFilename()).toMatch(/^temperature-\d+\.svg$/);
+    await page.click('[data-test=series-chart-view] >> text=Table');
+    await page.waitForSelector('[data-test=series-chart] table >> text=2024-01-01 00:00');
+
+    await page.click('[data-test=tab-bands]');
+    await page.setInputFiles('[data-test=band-file]', BAD_BANDS);
+    await page.waitForSelector('[data-test=band-problems] >> text=Row 4, glacierFraction');
+    await page.setInputFiles('[data-test=band-file]', GOOD_BANDS);
+    await page.waitForSelector('[data-test=band-problems]', { state: 'detached' });
+    await page.click('[data-test=band-save]');
+    await page.waitForSelector('[data-test=hypsometry-chart] canvas');
+    await page.waitForSelector('[data-test=tab-bands] >> text=Bands (5)');
+    await settle(page);
+    await page.screenshot({ path: 'test-results/bands-from-file.png', fullPage: true });
+    await page.close();
+  });
+
+  it('shows a scientist the data without any way to change it', async () => {
+    const scientist = DEMO_ACCOUNTS.find((a) => a.role === 'scientist')!;
+    const page = await b.newPage();
+    await signInThroughForm(page, b.baseUrl, scientist.email, scientist.password);
+    const [{ id }] = await b.t.db('catchments').where('name', DEMO_CATCHMENT.name).select('id');
+    await page.goto(`${b.baseUrl}/catchments/${id}?tab=climate`);
+    await page.waitForSelector('[data-test=series-chart] canvas');
+    expect(await page.locator('[data-test=upload-climate]').count()).toBe(0);
+    await page.click('[data-test=tab-bands]');
+    await page.waitForSelector('[data-test=band-table] >> text=6800');
+    expect(await page.locator('[data-test=band-save]').count()).toBe(0);
+    expect(await page.locator('[data-test=band-table] input').count()).toBe(0);
+    expect(await page.locator('[data-test=new-catchment]').count()).toBe(0);
     await page.close();
   });
 
