@@ -115,4 +115,22 @@ describe('briefings in the browser', () => {
     expect(await page.locator('text=Back to the draft').count()).toBe(0);
     await page.close();
   });
+
+  it('shows the consultant the comment from the client and the activity log', async () => {
+    const page = await b.newPage();
+    await signInThroughForm(page, b.baseUrl, consultant.email, consultant.password);
+    await page.click('[data-test=nav-briefings]');
+    await page.click(`[data-test=briefing-list] .q-item:has-text("${title}")`);
+    await page.click('[data-test=tab-comments]');
+    await page.waitForSelector('[data-test=comment]:has-text("Which gauge did you compare with?")');
+    await page.click('[data-test=tab-activity]');
+    const log = page.locator('[data-test=briefing-audit]');
+    await log.locator(`tr:has-text("${client.email}"):has-text("downloaded the PDF")`).waitFor();
+    expect(await log.textContent()).toContain('published');
+    await page.screenshot({ path: 'test-results/briefing-activity.png', fullPage: true });
+    await page.click('[data-test=tab-preview]');
+    await page.waitForSelector('[data-test=briefing-headlines]');
+    await page.screenshot({ path: 'test-results/briefing-preview.png' });
+    await page.close();
+  });
 });
