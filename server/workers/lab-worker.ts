@@ -3,9 +3,10 @@ import { surfaceResponse } from '../../shared/lab/surface-response';
 import { compareMeltModels } from '../../shared/lab/reference-models';
 import { evaluateDischarge, splitSample, calibrate } from '../../shared/lab/calibrate';
 import { baselineMelt, cellMelt, prepareSweep, type SweepPlan, type SweepSetup } from '../../shared/lab/sweep';
-import type { CalibrationKey, CalibrationSet } from '../../shared/lab/calibration-set';
+import { siteWith, type CalibrationKey, type CalibrationSet } from '../../shared/lab/calibration-set';
 import type { DatedValue } from '../../shared/lab/paired-series';
 import { compareStakes, type StakeObservation } from '../../shared/lab/stake-balance';
+import { calibrateToStakes, readingsWithin } from '../../shared/lab/stake-calibration';
 import type { BandSite, LabSite, Period } from '../../shared/lab/site';
 
 /** The lab's computations, each run in a worker thread so the API keeps answering. */
@@ -18,6 +19,10 @@ export type LabTask =
   | { kind: 'sweepCells'; setup: SweepSetup; cells: number[][] }
   | {
     kind: 'calibrate'; site: LabSite; observed: DatedValue[]; keys: CalibrationKey[]; start: CalibrationSet;
+    period: Period; validationPeriod?: Period; maxEvaluations: number; seed: number;
+  }
+  | {
+    kind: 'calibrateStakes'; site: LabSite; observed: StakeObservation[]; keys: CalibrationKey[]; start: CalibrationSet;
     period: Period; validationPeriod?: Period; maxEvaluations: number; seed: number;
   };
 
@@ -52,12 +57,24 @@ function run(task: LabTask, report: (fraction: number) => void): unknown {
         keys: task.keys, period: task.period, start: task.start, maxEvaluations: task.maxEvaluations, seed: task.seed,
         onProgress: (p: { evaluations: number; maxEvaluations: number }) => report(Math.min(1, p.evaluations / p.maxEvaluations)),
       };
-      if (!task.validationPeriod) return { calibration: calibrate(task.site, task.observed, options), validation: null };
+      if (!task.validationPeriod) return { target: 'discharge', ...calibrate(task.site, task.observed, options), validation: null };
       const outcome = splitSample(task.site, task.observed, { ...options, validationPeriod: task.validationPeriod });
       return {
-        calibration: outcome.calibration,
+        target: 'discharge',
+        ...outcome.calibration,
         validation: { period: task.validationPeriod, before: outcome.validationBefore, after: outcome.validationAfter },
       };
+    }
+    case 'calibrateStakes': {
+      const outcome = calibrateToStakes(task.site, task.observed, {
+        keys: task.keys, period: task.period, start: task.start, maxEvaluations: task.maxEvaluations, seed: task.seed,
+        onProgress: (p) => report(Math.min(1, p.evaluations / p.maxEvaluations)),
+      });
+      const held = task.validationPeriod ? readingsWithin(task.observed, task.validationPeriod) : [];
+      const validation = task.validationPeriod && held.length > 0
+        ? { period: task.validationPeriod, before: compareStakes(siteWith(task.site, task.start), held), after: compareStakes(siteWith(task.site, outcome.set), held) }
+        : null;
+      return { target: 'stakes', ...outcome, validation };
     }
   }
 }

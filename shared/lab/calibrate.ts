@@ -62,25 +62,24 @@ export interface CalibrationOutcome {
   converged: boolean;
 }
 
-/** Objective: daily KGE; a set the skill cannot be computed for scores −∞. */
-function dailyKge(site: LabSite, observed: readonly DatedValue[], period: Period): number {
+/** The objective, or −∞ for a set the skill cannot be computed for (the search moves away from it). */
+export function orMinusInfinity(score: () => number): number {
   try {
-    return evaluateDischarge(site, observed, period).daily.kge;
+    return score();
   } catch {
     return -Infinity;
   }
 }
 
 /**
- * Automatic calibration: a bounded Nelder–Mead search over 1–4 parameters maximising the daily
- * Kling–Gupta efficiency of discharge over the period (KGE as objective: Gupta et al. 2009).
+ * A bounded Nelder–Mead search over 1–4 parameters of a calibration set, maximising `objective`
+ * of the site run with each candidate set.
  */
-export function calibrate(site: LabSite, observed: readonly DatedValue[], options: CalibrateOptions): CalibrationOutcome {
+export function searchSet(site: LabSite, objective: (candidate: LabSite) => number, options: Omit<CalibrateOptions, 'period'>): { set: CalibrationSet; keys: CalibrationKey[]; evaluations: number; converged: boolean } {
   const keys = [...options.keys];
   if (keys.length < 1 || keys.length > 4 || new Set(keys).size !== keys.length) throw new RangeError('calibrate: choose one to four different parameters');
   const specs = keys.map(keySpec);
-  const startScores = evaluateDischarge(siteWith(site, options.start), observed, options.period);
-  const result = maximise((values) => dailyKge(siteWith(site, withValues(options.start, keys, values)), observed, options.period), {
+  const result = maximise((values) => orMinusInfinity(() => objective(siteWith(site, withValues(options.start, keys, values)))), {
     lower: specs.map((s) => s.min),
     upper: specs.map((s) => s.max),
     start: keys.map((k) => valueOf(options.start, k)),
@@ -90,8 +89,17 @@ export function calibrate(site: LabSite, observed: readonly DatedValue[], option
     signal: options.signal,
     onProgress: options.onProgress,
   });
-  const set = withValues(options.start, keys, result.best);
-  return { set, keys, startScores, scores: evaluateDischarge(siteWith(site, set), observed, options.period), evaluations: result.evaluations, converged: result.converged };
+  return { set: withValues(options.start, keys, result.best), keys, evaluations: result.evaluations, converged: result.converged };
+}
+
+/**
+ * Automatic calibration: a bounded Nelder–Mead search over 1–4 parameters maximising the daily
+ * Kling–Gupta efficiency of discharge over the period (KGE as objective: Gupta et al. 2009).
+ */
+export function calibrate(site: LabSite, observed: readonly DatedValue[], options: CalibrateOptions): CalibrationOutcome {
+  const startScores = evaluateDischarge(siteWith(site, options.start), observed, options.period);
+  const found = searchSet(site, (candidate) => evaluateDischarge(candidate, observed, options.period).daily.kge, options);
+  return { ...found, startScores, scores: evaluateDischarge(siteWith(site, found.set), observed, options.period) };
 }
 
 export interface SplitSampleOutcome {

@@ -39,6 +39,8 @@ export const stakeSkillRequestSchema = z.object({ set: calibrationSetSchema.opti
 export const saveCalibrationSchema = z.object({ period: labPeriodSchema, set: calibrationSetSchema, note: z.string().trim().max(500).default('') });
 
 export const calibrateRequestSchema = z.object({
+  /** What the search fits: daily discharge (KGE) or stake balances (KGE over the readings). */
+  target: z.enum(['discharge', 'stakes']).default('discharge'),
   keys: z.array(z.enum(CALIBRATION_KEYS)).min(1, 'choose at least one parameter').max(4, 'choose at most four parameters')
     .refine((k) => new Set(k).size === k.length, { message: 'each parameter may be chosen once' }),
   period: labPeriodSchema,
@@ -82,16 +84,14 @@ const setReplySchema = z.object({ parameters: z.record(z.string(), z.number()), 
 
 export const skillReplySchema = z.object({ set: setReplySchema, evaluation: dischargeEvaluationSchema });
 
-export const stakeSkillReplySchema = z.object({
-  set: setReplySchema,
-  comparison: z.object({
-    readings: z.array(z.object({ stake: z.string(), elevationM: z.number(), from: z.string(), to: z.string(), balanceMWe: z.number(), bandIndex: z.number(), simulatedMWe: z.number() })),
-    outsideRecord: z.number(),
-    scores: skillScoresSchema.nullable(),
-    meanErrorMWe: z.number(),
-    rmseMWe: z.number(),
-  }),
+const stakeComparisonSchema = z.object({
+  readings: z.array(z.object({ stake: z.string(), elevationM: z.number(), from: z.string(), to: z.string(), balanceMWe: z.number(), bandIndex: z.number(), simulatedMWe: z.number() })),
+  outsideRecord: z.number(),
+  scores: skillScoresSchema.nullable(),
+  meanErrorMWe: z.number(),
+  rmseMWe: z.number(),
 });
+export const stakeSkillReplySchema = z.object({ set: setReplySchema, comparison: stakeComparisonSchema });
 export type StakeSkillReply = z.infer<typeof stakeSkillReplySchema>;
 
 export const savedCalibrationSchema = z.object({
@@ -139,15 +139,29 @@ export const sweepResultSchema = z.object({
 });
 export type SweepResultReply = z.infer<typeof sweepResultSchema>;
 
-export const calibrationResultSchema = z.object({
-  keys: z.array(z.string()),
-  set: setReplySchema,
-  startScores: dischargeEvaluationSchema,
-  scores: dischargeEvaluationSchema,
-  evaluations: z.number(),
-  converged: z.boolean(),
-  validation: z.object({ period: z.object({ from: z.string(), to: z.string() }), before: dischargeEvaluationSchema, after: dischargeEvaluationSchema }).nullable(),
-});
+const periodReply = z.object({ from: z.string(), to: z.string() });
+export const calibrationResultSchema = z.discriminatedUnion('target', [
+  z.object({
+    target: z.literal('discharge'),
+    keys: z.array(z.string()),
+    set: setReplySchema,
+    startScores: dischargeEvaluationSchema,
+    scores: dischargeEvaluationSchema,
+    evaluations: z.number(),
+    converged: z.boolean(),
+    validation: z.object({ period: periodReply, before: dischargeEvaluationSchema, after: dischargeEvaluationSchema }).nullable(),
+  }),
+  z.object({
+    target: z.literal('stakes'),
+    keys: z.array(z.string()),
+    set: setReplySchema,
+    start: stakeComparisonSchema,
+    result: stakeComparisonSchema,
+    evaluations: z.number(),
+    converged: z.boolean(),
+    validation: z.object({ period: periodReply, before: stakeComparisonSchema, after: stakeComparisonSchema }).nullable(),
+  }),
+]);
 export type CalibrationResultReply = z.infer<typeof calibrationResultSchema>;
 
 export const LAB_JOB_KINDS = ['sweep', 'calibration'] as const;

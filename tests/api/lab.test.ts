@@ -177,8 +177,23 @@ describe('jobs: sweeps and automatic calibration', () => {
     const job = await waitForJob(scientist, res.body.id);
     expect(job.status).toBe('done');
     const result = calibrationResultSchema.parse(job.result);
+    if (result.target !== 'discharge') throw new Error('expected a discharge calibration');
     expect(result.scores.daily.kge).toBeGreaterThanOrEqual(result.startScores.daily.kge);
     expect(result.validation!.after.series.dates[0]).toBe('2023-06-01');
+  });
+  it('calibrates against stake balances, validated on the next balance year', async () => {
+    const scientist = await signedInAgent(app, org.users.scientist.email);
+    const res = await scientist.post(`/api/lab/catchments/${catchmentId}/calibrations`).send({
+      target: 'stakes', keys: ['lapseRateCPerKm'], period: { from: '2021-10-01', to: '2022-09-30' }, validationPeriod: { from: '2022-10-01', to: '2023-09-30' }, maxEvaluations: 10,
+    });
+    expect(res.status).toBe(202);
+    const job = await waitForJob(scientist, res.body.id);
+    expect(job.status).toBe('done');
+    const result = calibrationResultSchema.parse(job.result);
+    if (result.target !== 'stakes') throw new Error('expected a stake calibration');
+    expect(result.result.readings).toHaveLength(8);
+    expect(result.result.scores!.kge).toBeGreaterThanOrEqual(result.start.scores!.kge);
+    expect(result.validation!.after.readings.every((r) => r.from === '2022-10-01')).toBe(true);
   });
   it('can be cancelled', async () => {
     const scientist = await signedInAgent(app, org.users.scientist.email);

@@ -73,6 +73,14 @@ describe('the lab in the browser', () => {
     await page.waitForSelector('[data-test=auto-result]', { timeout: 90_000 });
     expect(await page.textContent('[data-test=auto-scores]')).toMatch(/Calibration period, after/);
     await page.screenshot({ path: 'test-results/lab-auto-calibration.png', fullPage: true });
+
+    await page.click('[data-test=auto-target]');
+    await page.click('.q-menu .q-item:has-text("Stake balances")');
+    await page.fill('[data-test=auto-from]', '2021-10-01');
+    await page.fill('[data-test=auto-to]', '2022-09-30');
+    await page.click('[data-test=auto-start]');
+    await page.waitForSelector('[data-test=auto-scores]:has-text("Stake balances")', { timeout: 90_000 });
+    await page.screenshot({ path: 'test-results/lab-auto-calibration-stakes.png', fullPage: true });
     await page.close();
   });
 

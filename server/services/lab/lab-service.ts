@@ -1,6 +1,7 @@
 import type { Knex } from 'knex';
 import { DEFAULT_CALIBRATION_SET, type CalibrationSet } from '../../../shared/lab/calibration-set';
-import type { DischargeEvaluation, CalibrationOutcome } from '../../../shared/lab/calibrate';
+import type { DischargeEvaluation } from '../../../shared/lab/calibrate';
+import type { LabTask } from '../../workers/lab-worker';
 import type { ReferenceComparison } from '../../../shared/lab/reference-models';
 import type { SurfaceResponseResult } from '../../../shared/lab/surface-response';
 import type { StakeComparison } from '../../../shared/lab/stake-balance';
@@ -125,15 +126,15 @@ export class LabService {
     const periods = [request.period, ...(request.validationPeriod ? [request.validationPeriod] : [])];
     const span = { from: periods.reduce((a, p) => (p.from < a ? p.from : a), request.period.from), to: periods.reduce((a, p) => (p.to > a ? p.to : a), request.period.to) };
     const site = await this.data.site(scope, catchmentId, span, start);
-    const observed = await this.data.observedDischarge(scope, catchmentId, span);
-    return this.jobs.start(scope, user, catchmentId, 'calibration', request, async (signal, report) => {
-      const outcome = await this.pool.run<{ calibration: CalibrationOutcome; validation: unknown }>(
-        { kind: 'calibrate', site, observed, keys: request.keys, start, period: request.period, validationPeriod: request.validationPeriod, maxEvaluations: request.maxEvaluations, seed: request.seed },
-        (fraction) => report(fraction, `${Math.round(fraction * request.maxEvaluations)} of at most ${request.maxEvaluations} model runs`),
-        signal,
-      );
-      return { ...outcome.calibration, validation: outcome.validation };
-    });
+    const common = { site, keys: request.keys, start, period: request.period, validationPeriod: request.validationPeriod, maxEvaluations: request.maxEvaluations, seed: request.seed };
+    const task: LabTask = request.target === 'stakes'
+      ? { kind: 'calibrateStakes', ...common, observed: await this.data.observedStakes(scope, catchmentId) }
+      : { kind: 'calibrate', ...common, observed: await this.data.observedDischarge(scope, catchmentId, span) };
+    return this.jobs.start(scope, user, catchmentId, 'calibration', request, (signal, report) => this.pool.run(
+      task,
+      (fraction) => report(fraction, `${Math.round(fraction * request.maxEvaluations)} of at most ${request.maxEvaluations} model runs`),
+      signal,
+    ));
   }
 
   private async evaluate(scope: TenantScope, catchmentId: number, period: { from: string; to: string }, set: CalibrationSet): Promise<DischargeEvaluation> {
