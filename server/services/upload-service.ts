@@ -55,7 +55,7 @@ export class UploadService {
       token,
       file_name: file.originalname.slice(0, 255),
       fields: JSON.stringify(fields),
-      content_gz: gzipSync(text),
+      content_gz: gzipSync(text, { level: 1 }),
       expires_at: expiresAt,
     });
     return { token, expiresAt: expiresAt.toISOString(), fileName: file.originalname, ...read.preview };

@@ -34,11 +34,21 @@ export function decodeCsvText(buffer: Buffer): string {
  * blank lines are skipped. A file with a header and no data rows is refused.
  */
 export function readCsvTable(text: string): CsvTable {
-  const parsed = Papa.parse<string[]>(text, { delimiter: '', delimitersToGuess: [',', ';', '\t'], skipEmptyLines: 'greedy' });
-  const [header, ...rows] = parsed.data;
+  const delimiter = guessDelimiter(text);
+  const parsed = Papa.parse<string[]>(text, { delimiter, skipEmptyLines: true });
+  const [header, ...lines] = parsed.data;
   if (!header || header.every((cell) => cell.trim() === '')) throw badRequest('The file is empty.', 'file');
+  const rows = lines.filter((cells) => cells.some((cell) => cell.trim() !== ''));
   if (rows.length === 0) throw validationFailed('The file has a header but no data rows.', 'file');
-  return { header: header.map((h) => h.trim()), rows, delimiter: parsed.meta.delimiter };
+  return { header: header.map((h) => h.trim()), rows, delimiter };
+}
+
+/** The delimiter that splits the header line most often: comma, semicolon or tab (comma when none does). */
+function guessDelimiter(text: string): string {
+  const firstLine = text.slice(0, text.search(/\r?\n|$/));
+  const counts = [',', ';', '\t'].map((d) => [d, firstLine.split(d).length - 1] as const);
+  const [best, count] = counts.reduce((a, b) => (b[1] > a[1] ? b : a));
+  return count > 0 ? best : ',';
 }
 
 /** Lower-case words of a column header, keeping unit marks such as °C, %, m3/s. */

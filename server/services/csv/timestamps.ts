@@ -9,12 +9,20 @@ const PATTERN = /^(\d{4})[-/](\d{1,2})[-/](\d{1,2})(?:[T ](\d{1,2}):(\d{2})(?::(
 export function parseTimestamp(cell: string): number | null {
   const m = PATTERN.exec(cell);
   if (!m) return null;
-  const [year, month, day, hour = 0, minute = 0, second = 0] = m.slice(1).map((v) => (v === undefined ? 0 : Number(v)));
-  if (month < 1 || month > 12 || day < 1 || hour > 24 || minute > 59 || second > 59) return null;
-  const ms = Date.UTC(year, month - 1, day, hour, minute, second);
-  const check = new Date(Date.UTC(year, month - 1, day));
-  if (check.getUTCDate() !== day || check.getUTCMonth() !== month - 1) return null;
-  return ms / 60_000;
+  const year = +m[1];
+  const month = +m[2];
+  const day = +m[3];
+  const hour = m[4] === undefined ? 0 : +m[4];
+  const minute = m[5] === undefined ? 0 : +m[5];
+  const second = m[6] === undefined ? 0 : +m[6];
+  if (month < 1 || month > 12 || day < 1 || day > daysInMonth(year, month) || hour > 24 || minute > 59 || second > 59) return null;
+  return Date.UTC(year, month - 1, day, hour, minute, second) / 60_000;
+}
+
+const DAYS_IN_MONTH = [31, 28, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31];
+function daysInMonth(year: number, month: number): number {
+  const leap = (year % 4 === 0 && year % 100 !== 0) || year % 400 === 0;
+  return month === 2 && leap ? 29 : DAYS_IN_MONTH[month - 1];
 }
 
 /** '2024-03-01 13:00' for hourly, '2024-03-01' for daily. */
