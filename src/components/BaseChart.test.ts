@@ -1,0 +1,46 @@
+import { mount } from '@vue/test-utils';
+import { Quasar } from 'quasar';
+import { describe, expect, it, vi } from 'vitest';
+import BaseChart from './BaseChart.vue';
+
+vi.mock('vue-echarts', () => ({ default: { name: 'Echarts', props: ['option', 'autoresize'], template: '<div class="chart-stub" />' } }));
+vi.mock('src/boot/echarts', () => ({ chartsAnimated: false, renderSvg: () => '<svg />' }));
+const saved = vi.hoisted(() => [] as { text: string; fileName: string }[]);
+vi.mock('src/composables/useDownload', async (original) => ({
+  ...(await original<typeof import('src/composables/useDownload')>()),
+  downloadText: (text: string, fileName: string) => saved.push({ text, fileName }),
+}));
+
+const table = {
+  columns: [{ name: 'time', label: 'Time' }, { name: 'value', label: 'Temperature (°C)' }],
+  rows: [{ time: '2024-01-01 00:00', value: -3.5 }, { time: '2024-01-01 01:00', value: null }] as { time: string; value: number | null }[],
+};
+
+function mountChart() {
+  return mount(BaseChart, {
+    props: { title: 'Air temperature', option: { series: [] }, table, fileName: 'temperature' },
+    global: { plugins: [Quasar] },
+  });
+}
+
+describe('BaseChart', () => {
+  it('shows the chart first and the same numbers as a table on request, gaps as empty cells', async () => {
+    const wrapper = mountChart();
+    expect(wrapper.find('.chart-stub').exists()).toBe(true);
+    const tableButton = wrapper.findAll('button').find((b) => b.text() === 'Table')!;
+    await tableButton.trigger('click');
+    expect(wrapper.find('.chart-stub').exists()).toBe(false);
+    // Virtual scrolling adds one-cell spacer rows around the data rows.
+    const cells = wrapper.findAll('tbody tr').map((tr) => tr.findAll('td').map((td) => td.text())).filter((row) => row.length === 2);
+    expect(cells).toEqual([['2024-01-01 00:00', '-3.5'], ['2024-01-01 01:00', '']]);
+  });
+
+  it('downloads the table as CSV with formula-like text escaped', async () => {
+    const wrapper = mount(BaseChart, {
+      props: { title: 'Stakes', option: {}, fileName: 'stakes', table: { columns: [{ name: 'stake', label: 'Stake' }], rows: [{ stake: '=HYPERLINK("x")' }] } },
+      global: { plugins: [Quasar] },
+    });
+    (wrapper.vm as unknown as { downloadTable(): void }).downloadTable();
+    expect(saved.at(-1)).toEqual({ fileName: 'stakes.csv', text: 'Stake\r\n"\'=HYPERLINK(""x"")"\r\n' });
+  });
+});
