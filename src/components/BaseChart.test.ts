@@ -1,13 +1,14 @@
 import { mount } from '@vue/test-utils';
 import { Quasar } from 'quasar';
 import { describe, expect, it, vi } from 'vitest';
+import type * as DownloadModule from 'src/composables/useDownload';
 import BaseChart from './BaseChart.vue';
 
 vi.mock('vue-echarts', () => ({ default: { name: 'Echarts', props: ['option', 'autoresize'], template: '<div class="chart-stub" />' } }));
 vi.mock('src/boot/echarts', () => ({ chartsAnimated: false, renderSvg: () => '<svg />' }));
 const saved = vi.hoisted(() => [] as { text: string; fileName: string }[]);
 vi.mock('src/composables/useDownload', async (original) => ({
-  ...(await original<typeof import('src/composables/useDownload')>()),
+  ...(await original<typeof DownloadModule>()),
   downloadText: (text: string, fileName: string) => saved.push({ text, fileName }),
 }));
 
