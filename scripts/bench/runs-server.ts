@@ -1,0 +1,35 @@
+/**
+ * The API for bench:runs in a process of its own, so the benchmark's client does not share its
+ * event loop. Prints {"port": …} once listening; on SIGTERM prints how long its event loop was
+ * held up ({"loopP99Ms", "loopMaxMs", "busyShare"}) and exits. Does not touch other runs.
+ */
+import type { AddressInfo } from 'node:net';
+import { monitorEventLoopDelay, performance } from 'node:perf_hooks';
+import { createApp } from '../../server/app';
+import { loadConfig } from '../../server/config';
+import { createContext } from '../../server/context';
+import { createDb } from '../../server/db';
+
+const db = createDb(loadConfig().db);
+const ctx = createContext(loadConfig(), db);
+ctx.simulationPool.warm();
+// As at server start: the worker threads load the engine before the first run arrives.
+await new Promise((r) => setTimeout(r, 3000));
+const server = createApp(ctx).listen(0, '127.0.0.1');
+await new Promise<void>((resolve) => server.once('listening', () => resolve()));
+
+const loopDelay = monitorEventLoopDelay({ resolution: 10 });
+loopDelay.enable();
+const utilisationAtStart = performance.eventLoopUtilization();
+console.log(JSON.stringify({ port: (server.address() as AddressInfo).port, threads: ctx.simulationPool.threads }));
+
+process.once('SIGTERM', () => {
+  loopDelay.disable();
+  console.log(JSON.stringify({
+    loopP99Ms: loopDelay.percentile(99) / 1e6,
+    loopMaxMs: loopDelay.max / 1e6,
+    busyShare: performance.eventLoopUtilization(utilisationAtStart).utilization,
+  }));
+  server.close();
+  void ctx.runExecutor.idle().then(() => ctx.simulationPool.close()).then(() => db.destroy()).then(() => process.exit(0));
+});
