@@ -1,5 +1,8 @@
 import type { Ranged } from '../schemas/briefings';
 
+/** What the timing shift measures (shared/analysis/added-melt-totals.ts), in the reader's words. */
+export const TIMING_NOTE = 'shift of the date by which half of the melt has run off; negative = earlier';
+
 /** A number for reading: grouped thousands, `digits` significant decimals, a real minus sign. */
 export function formatNumber(value: number | null, digits = 2): string {
   if (value === null || !Number.isFinite(value)) return '–';

@@ -1,6 +1,6 @@
 import PDFDocument from 'pdfkit';
 import type { BriefingSnapshot, Headline } from '../../../../shared/schemas/briefings';
-import { formatNumber, formatRanged, scaleRanged } from '../../../../shared/briefings/format';
+import { TIMING_NOTE, formatNumber, formatRanged, scaleRanged } from '../../../../shared/briefings/format';
 import { CAUTIONS_HEADING } from '../../../../shared/text/cautions';
 import { chartSvg } from './chart-svg';
 import { FONTS } from './fonts';
@@ -39,7 +39,7 @@ function headlineBlock(doc: Doc, h: Headline): void {
     ['Added melt volume', `${formatRanged(scaleRanged(h.addedVolumeM3, 1e-6), 2)} million m³`],
     [`Added discharge in the melt season (${h.meltSeason})`, `${formatRanged(h.addedMeltSeasonDischargeM3s, 3)} m³/s`],
     ['Share of seasonal runoff', `${formatRanged(h.shareOfSeasonalRunoffPct, 1)} %`],
-    ['Timing shift', `${formatRanged(h.timingShiftDays, 1)} days`],
+    [`Timing shift (${TIMING_NOTE})`, `${formatRanged(h.timingShiftDays, 1)} days`],
   ];
   for (const [label, value] of lines) labelledLine(doc, label, value, { labelWidth: 250, indent: 10, bold: true });
   doc.moveDown(0.5);
