@@ -43,6 +43,8 @@ export interface AssembledInputs {
   missing: { variable: string; message: string }[];
   gaps: SeriesGap[];
   datasets: { variable: Variable; datasetId: number; timeStep: TimeStep }[];
+  /** Things the caller should show but that do not stop a run (e.g. a dataset kept in another time zone). */
+  notes: string[];
 }
 
 type Forcing = SimulationInput['forcing'];
@@ -124,7 +126,11 @@ export async function buildSimulationInputs(
     period: { from: p.from, to: p.to },
   };
   const ready = missing.length === 0 && gaps.every((g) => g.bridged);
-  return { input, ready, missing, gaps, datasets: used };
+  // The engine reads forcing hours as the catchment's local standard time; a dataset logged in another zone is used as written.
+  const notes = rows
+    .filter((r) => used.some((u) => u.datasetId === r.id) && r.time_zone !== catchment.time_zone)
+    .map((r) => `${r.variable} (dataset ${r.id}) is kept in ${r.time_zone}, the catchment in ${catchment.time_zone}; its times are used as written.`);
+  return { input, ready, missing, gaps, datasets: used, notes };
 }
 
 /** The engine's input, or a 422 that lists what is missing and every gap too long to bridge. */

@@ -63,6 +63,15 @@ describe('building engine inputs from stored data', () => {
     expect(forcing.temperatureC).toHaveLength(48);
     expect(forcing.temperatureC[47]).toBeCloseTo(6.7, 6);
     expect(simulationInputSchema.safeParse(requireReadyInputs(built)).success).toBe(true);
+    expect(built.notes).toEqual([]);
+  });
+
+  it('notes a dataset kept in another time zone than the catchment', async () => {
+    const id = await catchmentWith([]);
+    await t.db('datasets').where({ catchment_id: id, variable: 'temperature' }).update({ time_zone: 'UTC' });
+    const built = await buildSimulationInputs(scope, bands, id, { from: '2024-07-01', to: '2024-07-02' });
+    expect(built.ready).toBe(true);
+    expect(built.notes).toEqual([expect.stringMatching(/^temperature \(dataset \d+\) is kept in UTC, the catchment in Asia\/Kolkata/)]);
   });
 
   it('bridges a short gap by interpolation and says so', async () => {
