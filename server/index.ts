@@ -14,6 +14,7 @@ export async function startServer(options: ContextOptions = {}): Promise<{ close
   // Runs left queued or running by an earlier process cannot resume: their inputs were in its memory.
   await ctx.runExecutor.recover();
   ctx.simulationPool.warm();
+  ctx.pdfPool.warm();
   const app = createApp(ctx, { clientDir: 'dist' });
   const server = app.listen(config.port, config.host);
   await new Promise<void>((resolve, reject) => server.once('listening', resolve).once('error', reject));
