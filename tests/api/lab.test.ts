@@ -204,4 +204,13 @@ describe('jobs: sweeps and automatic calibration', () => {
     expect(cancelled.body.status).toBe('cancelled');
     expect((await scientist.post(`/api/lab/jobs/${res.body.id}/cancel`)).status).toBe(409);
   });
+  it('closes a job row that no running process holds when it is cancelled', async () => {
+    const scientist = await signedInAgent(app, org.users.scientist.email);
+    const [id] = await t.db('lab_jobs').insert({
+      organisation_id: org.organisationId, catchment_id: catchmentId, kind: 'sweep', status: 'running', request: '{}', created_by_name: 'gone',
+    });
+    const res = await scientist.post(`/api/lab/jobs/${id}/cancel`);
+    expect(res.status).toBe(200);
+    expect(res.body.status).toBe('cancelled');
+  });
 });

@@ -17,6 +17,9 @@ beforeAll(async () => {
   await seedCatchment(b.t.db);
   await seedSubscription(b.t.db);
   catchmentId = (await b.t.db('catchments').where({ name: DEMO_CATCHMENT.name }).orderBy('id', 'desc').first('id')).id;
+  // The demo catchment is re-used by every run of the seeds: start from no lab history.
+  await b.t.db('lab_jobs').where('catchment_id', catchmentId).delete();
+  await b.t.db('calibrated_parameters').where('catchment_id', catchmentId).delete();
 });
 afterAll(() => b?.close());
 

@@ -82,10 +82,15 @@ export class LabJobs {
 
   async cancel(scope: TenantScope, id: number): Promise<LabJob> {
     const job = await this.get(scope, id);
+    if (job.status !== 'running') throw conflict(`This job has already ${job.status === 'done' ? 'finished' : job.status === 'failed' ? 'failed' : 'been cancelled'}.`);
     const controller = this.active.get(id);
-    if (job.status !== 'running' || !controller) throw conflict(`This job has already ${job.status === 'done' ? 'finished' : job.status}.`);
-    controller.abort(new Error('Cancelled.'));
-    await this.idleJob(id);
+    if (controller) {
+      controller.abort(new Error('Cancelled.'));
+      await this.idleJob(id);
+    } else {
+      // Running in a process that no longer holds it (e.g. another server instance that stopped): just close the row.
+      await scope.from('lab_jobs').where('id', id).update({ status: 'cancelled', error_message: 'Cancelled by a member of the organisation.', finished_at: scope.db.fn.now() });
+    }
     return this.get(scope, id);
   }
 
