@@ -3,7 +3,8 @@
  * a 20 × 20 sweep of one melt season and a 3-parameter automatic calibration, each as a lab job
  * on the worker pool, while /api/health is called every 100 ms. Prints seconds for each and the
  * slowest health answer. Uses the database in the environment (DB_* variables, as the server),
- * inside a throw-away organisation that is removed afterwards.
+ * inside a throw-away organisation that is removed afterwards. BENCH_TRACE=1 also prints when each
+ * job starts and every health answer slower than 100 ms, to see what the API was doing then.
  */
 import type { AddressInfo } from 'node:net';
 import { monitorEventLoopDelay } from 'node:perf_hooks';
