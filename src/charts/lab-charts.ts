@@ -18,7 +18,11 @@ export function ostremChart(r: SurfaceResponse): LabChart {
   const { present, warmer, darker } = r.ostrem;
   const curves = [present, ...warmer, darker];
   const marks = {
-    markPoint: { symbol: 'pin', data: [{ name: 'Peak', coord: [present.peak.thicknessM, present.peak.meltMm], value: `Peak ${cm(present.peak.thicknessM)}` }], label: { fontSize: 10 } },
+    markPoint: {
+      symbol: 'circle', symbolSize: 10,
+      data: [{ name: 'Peak', coord: [present.peak.thicknessM, present.peak.meltMm], value: `Peak ${cm(present.peak.thicknessM)}, ${round(present.peak.meltMm, 0)} mm` }],
+      label: { position: 'right', offset: [2, -14], fontWeight: 'bold' },
+    },
     markLine: {
       symbol: 'none',
       data: [
@@ -33,7 +37,7 @@ export function ostremChart(r: SurfaceResponse): LabChart {
       legend,
       grid,
       xAxis: { type: 'log', name: 'Debris thickness (m)', nameLocation: 'middle', nameGap: 30, min: 0.005, max: 1 },
-      yAxis: { type: 'value', name: 'Ice melt (mm w.e.)', max: Math.ceil((Math.max(...curves.map((c) => c.peak.meltMm)) * 1.12) / 100) * 100 },
+      yAxis: { type: 'value', name: 'Ice melt (mm w.e.)', boundaryGap: [0, '15%'] },
       series: curves.map((c, i) => ({
         name: c.label, type: 'line', showSymbol: false, data: c.points.map((p) => [p.thicknessM, round(p.meltMm)]),
         lineStyle: i === 0 ? { width: 3 } : { width: 1.5, type: i === curves.length - 1 ? 'dashed' : 'solid' },
