@@ -48,7 +48,7 @@ export function timingShift(items: ResultItem[]): ChartSpec {
   const labels = items.map((it) => it.label);
   return {
     option: {
-      tooltip: { trigger: 'axis', axisPointer: { type: 'shadow' } }, grid: GRID, xAxis: axis('Variant', 'category', labels), yAxis: axis('Timing shift of half melt (days; − = earlier)', 'value'),
+      tooltip: { trigger: 'axis', axisPointer: { type: 'shadow' } }, grid: { ...GRID, bottom: 90 }, xAxis: { ...axis('Variant', 'category', labels), nameGap: 60, axisLabel: { interval: 0, width: 140, overflow: 'break' } }, yAxis: axis('Timing shift of half melt (days; − = earlier)', 'value'),
       series: [{ name: 'Timing shift', type: 'bar', barMaxWidth: 60, data: items.map((it) => it.results.totals.timingShiftDays), itemStyle: { color: '#0072B2', decal: { symbol: 'line' } } }],
     },
     table: {
