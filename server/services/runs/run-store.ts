@@ -69,10 +69,9 @@ export interface StoredMember {
 const isoDate = (v: string | Date) => (v instanceof Date ? v.toISOString().slice(0, 10) : String(v).slice(0, 10));
 const parsed = <T>(v: string | T): T => (typeof v === 'string' ? (JSON.parse(v) as T) : v);
 
-/** Reads a run's members back; `withMonths: false` skips band × month rows (ensemble hydrographs need only daily series). */
-export async function loadMembers(scope: TenantScope, runId: number, filter: (kind: MemberPlan['kind']) => boolean = () => true): Promise<StoredMember[]> {
-  const all: MemberRow[] = await scope.from<MemberRow>('run_members').where('run_id', runId).orderBy('id');
-  const rows = all.filter((r) => filter(r.kind));
+/** Reads every member of a run back, with its band × month rows and daily series. */
+export async function loadMembers(scope: TenantScope, runId: number): Promise<StoredMember[]> {
+  const rows: MemberRow[] = await scope.from<MemberRow>('run_members').where('run_id', runId).orderBy('id');
   if (rows.length === 0) return [];
   const ids = rows.map((r) => r.id);
   const monthRows = await scope.from('run_band_months').whereIn('member_id', ids).orderBy(['member_id', 'band_index', 'month']);
