@@ -83,6 +83,8 @@ describe('darkening scenarios in the browser', () => {
     await page.click('[data-test=save-scenario]');
     await page.click(`[data-test="run-${name}"]`);
     await page.click('[data-test=run-attribution]');
+    await page.click('[data-test=run-ensemble-on]');
+    expect(await page.inputValue('[data-test=run-ensemble]')).toBe('50');
     await page.fill('[data-test=run-ensemble]', '8');
     await page.click('[data-test=start-run]');
     const row = page.locator('[data-test=runs-table] tbody tr', { hasText: name }).first();
