@@ -19,7 +19,7 @@ export async function up(knex: Knex): Promise<void> {
     t.integer('saved_by').unsigned().nullable().references('users.id').onDelete('SET NULL');
     t.string('saved_by_name', 120).notNullable();
     t.timestamp('saved_at', { precision: 3 }).notNullable().defaultTo(knex.fn.now(3));
-    t.index(['organisation_id', 'catchment_id', 'saved_at']);
+    t.index(['organisation_id', 'catchment_id', 'saved_at'], 'calibrated_parameters_catchment_saved_index');
   });
 }
 
