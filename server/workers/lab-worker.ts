@@ -1,4 +1,4 @@
-import type { MessagePort } from 'node:worker_threads';
+import type { PooledTask } from '../services/thread-pool';
 import { surfaceResponse } from '../../shared/lab/surface-response';
 import { compareMeltModels } from '../../shared/lab/reference-models';
 import { evaluateDischarge, splitSample, calibrate } from '../../shared/lab/calibrate';
@@ -25,12 +25,6 @@ export type LabTask =
     kind: 'calibrateStakes'; site: LabSite; observed: StakeObservation[]; keys: CalibrationKey[]; start: CalibrationSet;
     period: Period; validationPeriod?: Period; maxEvaluations: number; seed: number;
   };
-
-export interface LabTaskMessage {
-  task: LabTask;
-  /** Receives a fraction 0 … 1 as work proceeds. */
-  progress: MessagePort;
-}
 
 function run(task: LabTask, report: (fraction: number) => void): unknown {
   switch (task.kind) {
@@ -79,7 +73,7 @@ function run(task: LabTask, report: (fraction: number) => void): unknown {
   }
 }
 
-export default function labTask({ task, progress }: LabTaskMessage): unknown {
+export default function labTask({ task, progress }: PooledTask<LabTask>): unknown {
   try {
     return run(task, (fraction) => progress.postMessage(fraction));
   } finally {
