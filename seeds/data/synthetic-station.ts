@@ -1,3 +1,4 @@
+import { seededRandom } from '../../shared/analysis/random';
 /**
  * Synthetic station record for the demo catchment, generated (never copied) from a documented
  * seasonal cycle plus seeded pseudo-random noise, so every run gives the same numbers.
@@ -20,18 +21,6 @@ export interface SyntheticStation {
   dailyDischarge: { times: string[]; values: number[] };
 }
 
-/** mulberry32: a small, well-known deterministic pseudo-random generator. */
-function generator(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
-
 /** Standard normal from two uniforms (Box–Muller). */
 function normal(random: () => number): number {
   return Math.sqrt(-2 * Math.log(1 - random())) * Math.cos(2 * Math.PI * random());
@@ -40,7 +29,7 @@ function normal(random: () => number): number {
 const DAY_MS = 86_400_000;
 
 export function syntheticStation(options: { start: string; days: number; seed: number }): SyntheticStation {
-  const random = generator(options.seed);
+  const random = seededRandom(options.seed);
   const startMs = Date.parse(`${options.start}T00:00:00Z`);
   const out: SyntheticStation = {
     hourlyTemperature: { times: [], values: [] },

@@ -1,3 +1,4 @@
+import { seededRandom } from '../analysis/random';
 /**
  * Bounded Nelder–Mead search for a maximum (Nelder & Mead 1965, Comput. J. 7:308; coefficients
  * reflection 1, expansion 2, contraction ½, shrink ½ as in Lagarias et al. 1998, SIAM J. Optim.
@@ -30,18 +31,6 @@ export interface SearchResult {
   bestValue: number;
   evaluations: number;
   converged: boolean;
-}
-
-/** mulberry32: a small deterministic pseudo-random generator. */
-export function seededRandom(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
 }
 
 const clamp01 = (v: number) => (v < 0 ? 0 : v > 1 ? 1 : v);
