@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { periodSchema, scenarioCreateSchema, scenarioUpdateSchema } from '../../shared/schemas/scenarios';
+import { periodSchema, scenarioCreateSchema, scenarioUpdateSchema, type ScenarioSetup } from '../../shared/schemas/scenarios';
 import { defaultSeason } from '../../shared/analysis/default-season';
 import { daysBetween } from '../../shared/melt/calendar';
 import { climateRecord } from '../services/runs/climate-record';
@@ -28,7 +28,12 @@ export function scenarioRoutes(ctx: AppContext): Router {
     const { scope } = authOf(req);
     const catchment = await scope.findOr404<{ latitude_deg: number }>('catchments', idParam(req, 'catchmentId'), 'Catchment');
     const record = await climateRecord(scope, idParam(req, 'catchmentId'));
-    res.json({ record, defaultPeriod: record ? defaultSeason(record, catchment.latitude_deg) : null });
+    const saved = await ctx.lab.calibrations.current(scope, idParam(req, 'catchmentId'));
+    const calibration = saved
+      ? { parameters: saved.set.parameters, precipitationFactor: saved.set.precipitationFactor, savedBy: saved.savedBy, savedAt: saved.savedAt }
+      : null;
+    const reply: ScenarioSetup = { record, defaultPeriod: record ? defaultSeason(record, catchment.latitude_deg) : null, calibration };
+    res.json(reply);
   });
 
   router.get('/catchments/:catchmentId/preview-input', async (req, res) => {

@@ -111,5 +111,12 @@ export const scenarioReplySchema = z.object({ scenario: scenarioSchema });
 export const scenarioSetupSchema = z.object({
   record: z.object({ from: z.string(), to: z.string() }).nullable(),
   defaultPeriod: z.object({ from: z.string(), to: z.string() }).nullable(),
+  /** The catchment's newest saved calibration, which new scenarios start from; null when none was saved. */
+  calibration: z.object({
+    parameters: z.record(z.string(), z.number()),
+    precipitationFactor: z.number(),
+    savedBy: z.string(),
+    savedAt: z.string(),
+  }).nullable(),
 });
 export type ScenarioSetup = z.infer<typeof scenarioSetupSchema>;

@@ -117,6 +117,11 @@ describe('skill scores and saved calibration', () => {
     const { TenantScope } = await import('../../server/services/tenant-scope');
     expect(await t.ctx.lab.calibratedParameters(new TenantScope(t.db, org.organisationId), catchmentId)).toEqual(set);
     await expect(t.ctx.lab.calibratedParameters(new TenantScope(t.db, other.organisationId), catchmentId)).rejects.toMatchObject({ status: 404 });
+    // The scenario builder starts new scenarios from this set.
+    const consultant = await signedInAgent(app, org.users.consultant.email);
+    const setup = await consultant.get(`/api/catchments/${catchmentId}/scenario-setup`);
+    expect(setup.status).toBe(200);
+    expect(setup.body.calibration).toMatchObject({ ...set, savedBy: history.current!.savedBy });
   });
   it('compares simulated with measured stake balances inside the climate record', async () => {
     const scientist = await signedInAgent(app, org.users.scientist.email);
