@@ -76,6 +76,11 @@ describe('role changes and removal', () => {
     const listed = (await admin.get('/api/members')).body.members.find((m: { id: number }) => m.id === org.users.consultant.id);
     expect(listed.status).toBe('disabled');
     expect((await admin.delete(`/api/members/${org.users.admin.id}`)).status).toBe(403);
+    // A removed member can be invited back: the same account returns as an invitation.
+    const back = await admin.post('/api/invitations').send({ email: org.users.consultant.email, name: 'Back Again', role: 'scientist' });
+    expect(back.status).toBe(201);
+    expect(back.body.member).toMatchObject({ id: org.users.consultant.id, status: 'invited', role: 'scientist' });
+    expect((await signedInAgent(h.t.app, org.users.consultant.email).catch((e: Error) => e)) instanceof Error).toBe(true);
   });
 
   it('removes a pending invitation entirely', async () => {
@@ -112,5 +117,33 @@ describe('who may manage members', () => {
     expect((await admin.post(`/api/invitations/${pending.body.member.id}/resend`)).status).toBe(404);
     const untouched = await h.t.db('users').where({ id: theirs.users.consultant.id }).first('status');
     expect(untouched.status).toBe('active');
+  });
+});
+
+describe('an organisation keeps an admin', () => {
+  it('lets only one of two admins demote the other when both try at once', async () => {
+    const org = await createOrganisation(h.t.db);
+    await h.t.db('users').where({ id: org.users.consultant.id }).update({ role: 'admin' });
+    const first = await signedInAgent(h.t.app, org.users.admin.email);
+    const second = await signedInAgent(h.t.app, org.users.consultant.email);
+    const answers = await Promise.all([
+      first.patch(`/api/members/${org.users.consultant.id}`).send({ role: 'scientist' }),
+      second.patch(`/api/members/${org.users.admin.id}`).send({ role: 'scientist' }),
+    ]);
+    expect(answers.map((a) => a.status).sort()).toEqual([200, 403]);
+    const admins = await h.t.db('users').where({ organisation_id: org.organisationId, role: 'admin', status: 'active' });
+    expect(admins).toHaveLength(1);
+  });
+
+  it('a demoted admin\'s open session can no longer remove members', async () => {
+    const org = await createOrganisation(h.t.db);
+    await h.t.db('users').where({ id: org.users.consultant.id }).update({ role: 'admin' });
+    const first = await signedInAgent(h.t.app, org.users.admin.email);
+    const second = await signedInAgent(h.t.app, org.users.consultant.email);
+    expect((await first.patch(`/api/members/${org.users.consultant.id}`).send({ role: 'consultant' })).status).toBe(200);
+    // The demoted admin's open page can no longer act as admin.
+    const late = await second.delete(`/api/members/${org.users.admin.id}`);
+    expect(late.status).toBe(403);
+    expect((await h.t.db('users').where({ id: org.users.admin.id }).first()).status).toBe('active');
   });
 });

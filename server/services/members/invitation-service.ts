@@ -30,9 +30,13 @@ export class InvitationService {
       const trx = s.db as Knex.Transaction;
       await lockOrganisation(trx, s.organisationId);
       if (takesSeat(request.role)) await assertFreeSeats(trx, s.organisationId, 1);
-      if (await trx('users').where({ email: request.email }).first('id')) {
-        throw conflict(EMAIL_TAKEN, 'email');
+      const existing = await trx('users').where({ email: request.email }).first('id', 'organisation_id', 'status');
+      if (existing && existing.organisation_id === s.organisationId && existing.status === 'disabled') {
+        // A removed member invited again: the same account comes back as a fresh invitation.
+        await s.from('users').where({ id: existing.id }).update({ name: request.name, role: request.role, status: 'invited', password_hash: null, updated_at: new Date() });
+        return { id: existing.id as number, token: await this.issueToken(trx, s.organisationId, existing.id, inviter.id) };
       }
+      if (existing) throw conflict(EMAIL_TAKEN, 'email');
       const userId = await s
         .insert('users', { email: request.email, name: request.name, role: request.role, status: 'invited' })
         .catch((error: unknown) => {

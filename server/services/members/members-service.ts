@@ -28,8 +28,10 @@ export class MembersService {
     return scope.transaction(async (s) => {
       const trx = s.db as Knex.Transaction;
       await lockOrganisation(trx, s.organisationId);
+      await assertStillAdmin(s, actor.id);
       const member = await s.findOr404<UserRow>('users', id, 'Member');
       if (member.status === 'disabled') throw forbidden('This member has been removed.');
+      if (member.role === 'admin' && role !== 'admin') await assertAnotherAdmin(s, id);
       if (!takesSeat(member.role) && takesSeat(role)) await assertFreeSeats(trx, s.organisationId, 1);
       await s.from('users').where({ id }).update({ role, updated_at: new Date() });
       return toMember(await s.findOr404('users', id, 'Member'));
@@ -43,7 +45,10 @@ export class MembersService {
   async remove(scope: TenantScope, actor: UserRow, id: number): Promise<void> {
     if (id === actor.id) throw forbidden('You cannot remove yourself; ask another admin.');
     await scope.transaction(async (s) => {
+      await lockOrganisation(s.db as Knex.Transaction, s.organisationId);
+      await assertStillAdmin(s, actor.id);
       const member = await s.findOr404<UserRow>('users', id, 'Member');
+      if (member.role === 'admin' && member.status === 'active') await assertAnotherAdmin(s, id);
       if (member.status === 'invited') {
         await s.from('users').where({ id }).delete();
         return;
@@ -51,4 +56,19 @@ export class MembersService {
       await s.from('users').where({ id }).update({ status: 'disabled', token_version: member.token_version + 1, updated_at: new Date() });
     });
   }
+}
+
+/**
+ * Inside the organisation lock: the acting admin may have been demoted or removed by another
+ * admin a moment ago, after this request was authorised.
+ */
+async function assertStillAdmin(scope: TenantScope, actorId: number): Promise<void> {
+  const actor = await scope.from<UserRow>('users').where({ id: actorId }).first('role', 'status');
+  if (!actor || actor.role !== 'admin' || actor.status !== 'active') throw forbidden('You are no longer an admin of this organisation.');
+}
+
+/** Inside the organisation lock: an organisation always keeps at least one active admin. */
+async function assertAnotherAdmin(scope: TenantScope, leavingId: number): Promise<void> {
+  const others = await scope.from('users').where({ role: 'admin', status: 'active' }).whereNot({ id: leavingId }).count<{ n: number }[]>({ n: '*' });
+  if (Number(others[0]?.n ?? 0) === 0) throw forbidden('The organisation must keep at least one active admin.');
 }
