@@ -205,7 +205,7 @@ describe('run lifecycle', () => {
       expect(again.status).toBe(422);
       expect(again.body.error.message).toMatch(/elevation bands|precipitation|temperature/);
       const setup = await agent.get(`/api/catchments/${id}/scenario-setup`);
-      expect(setup.body).toEqual({ record: null, defaultPeriod: null });
+      expect(setup.body).toEqual({ record: null, defaultPeriod: null, calibration: null });
     } finally {
       await plain.close();
     }
