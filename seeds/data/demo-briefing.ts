@@ -17,8 +17,8 @@ export const DEMO_BRIEFING: { title: string; summary: string; sections: DraftSec
       kind: 'text', heading: 'What this means for Duskwater',
       bodyMarkdown:
         'Darker snow and ice absorb more sunlight, so they melt sooner and faster. For the intake below the Sarvel this means:\n\n' +
-        '- more water in **July and August**, when the bare glacier ice is exposed;\n' +
-        '- an earlier end to the snow cover on the lower glacier.\n\n' +
+        '- more water over the **whole melt season**, most of it in the months with the tallest bars in the chart above;\n' +
+        '- the melt water arriving earlier in the year (the timing shift in the headline numbers says by how many days).\n\n' +
         'These are scenario estimates from synthetic demo data, not a forecast. We suggest checking them against the gauge ' +
         'record before planning on the extra water.',
     },
