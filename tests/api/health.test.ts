@@ -1,5 +1,6 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { tcpSwitch } from '../support/tcp-switch';
 import { createTestApp, type TestApp } from '../support/test-app';
 
 let t: TestApp;
@@ -26,6 +27,25 @@ describe('GET /api/health', () => {
       expect(again.status).toBe(503);
     } finally {
       await down.close();
+    }
+  });
+
+  it('recovers by itself when the database comes back', async () => {
+    const link = await tcpSwitch(t.config.db.host, t.config.db.port);
+    const flaky = createTestApp({ DB_PORT: String(link.port) });
+    try {
+      expect((await request(flaky.app).get('/api/health')).status).toBe(200);
+      link.cut();
+      const down = await request(flaky.app).get('/api/health');
+      expect(down.status).toBe(503);
+      expect(down.body.db).toBe('down');
+      link.restore();
+      const up = await request(flaky.app).get('/api/health');
+      expect(up.status).toBe(200);
+      expect(up.body).toEqual({ status: 'ok', db: 'up' });
+    } finally {
+      await flaky.close();
+      await link.close();
     }
   });
 
