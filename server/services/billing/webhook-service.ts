@@ -52,9 +52,11 @@ export class WebhookService {
     const organisationId = first ? await this.knownOrganisation(organisationIdOf(first)) : null;
     try {
       await this.db.transaction(async (trx) => {
+        // Lock first: inserting the event (its foreign key) would otherwise take a shared lock on the
+        // organisation row and then need to upgrade it, deadlocking against a seat change waiting there.
+        if (ref && organisationId) await lockOrganisation(trx, organisationId);
         await trx('payment_events').insert({ id: event.id, type: event.type, organisation_id: organisationId });
         if (!ref || !organisationId) return;
-        await lockOrganisation(trx, organisationId);
         const current = await this.retrieve(ref);
         if (current) await applySubscription(trx, organisationId, current);
       });
