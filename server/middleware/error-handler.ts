@@ -23,6 +23,10 @@ function describe(err: unknown): { status: number; body: { code: string; message
     return { status: err.status, body };
   }
   const e = (err ?? {}) as HttpLikeError;
+  // MariaDB rolled the whole transaction back, so nothing was stored; the same request may simply be sent again.
+  if (e.code === 'ER_LOCK_DEADLOCK' || e.code === 'ER_LOCK_WAIT_TIMEOUT') {
+    return { status: 503, body: { code: 'busy', message: 'Another change to the same records was being saved at that moment; nothing was changed. Please try again.' } };
+  }
   if (e.type === 'entity.too.large') return { status: 413, body: { code: 'too_large', message: 'The request body is too large.' } };
   if (e.type === 'entity.parse.failed') return { status: 400, body: { code: 'bad_json', message: 'The request body is not valid JSON.' } };
   if (typeof e.status === 'number' && e.status >= 400 && e.status < 500) {
