@@ -1,26 +1,18 @@
 import { addDays } from '../melt/calendar';
-import { summariseByMonth } from '../melt/monthly';
+import { summariseByMonth, type BandMonthSummary } from '../melt/monthly';
 import { SOURCES, type SimulationResult, type Source } from '../melt/result';
 
 /** One band in one calendar month of one simulation: what a run stores (depths mm w.e. over the band). */
-export interface BandMonthRow {
-  bandIndex: number;
-  /** YYYY-MM */
-  month: string;
-  days: number;
-  snowMeltMm: number;
-  iceMeltMm: number;
-  debrisIceMeltMm: number;
-  rainMm: number;
-  snowfallMm: number;
-  /** Shortwave-weighted mean albedo of snow and ice; null without sunlit snow or ice. */
-  meanAlbedo: number | null;
+export type BandMonthRow = Pick<
+  BandMonthSummary,
+  'bandIndex' | 'month' | 'days' | 'snowMeltMm' | 'iceMeltMm' | 'debrisIceMeltMm' | 'rainMm' | 'snowfallMm' | 'meanAlbedo'
+> & {
   /** Daily means, W m⁻² (see SimulationResult.bandDay). */
   absorbedShortwaveWm2: number;
   netShortwaveWm2: number;
   netLongwaveWm2: number;
   sensibleHeatWm2: number;
-}
+};
 
 /** The stored form of one simulation: bands, band × month rows and catchment daily volumes (m³) by source. */
 export interface SimulationSummary {
@@ -36,19 +28,27 @@ const ENERGY_FIELDS = ['netShortwaveWm2', 'netLongwaveWm2', 'sensibleHeatWm2'] a
 /** Reduces an engine result to what a run stores. */
 export function summariseSimulation(result: SimulationResult): SimulationSummary {
   const { dayCount: nd, bandDay, startDate } = result;
+  // Energy components are not in the monthly summary: sum them per band and month in one pass over the days.
   const monthOf = Array.from({ length: nd }, (_, d) => addDays(startDate, d).slice(0, 7));
-  const months = summariseByMonth(result).map((row): BandMonthRow => {
-    // Energy components are not in the monthly summary: mean them over the same days.
-    const energy = { netShortwaveWm2: 0, netLongwaveWm2: 0, sensibleHeatWm2: 0 };
+  const sums = new Map<string, Record<(typeof ENERGY_FIELDS)[number], number>>();
+  for (let b = 0; b < result.bandCount; b++) {
     for (let d = 0; d < nd; d++) {
-      if (monthOf[d] !== row.month) continue;
-      for (const field of ENERGY_FIELDS) energy[field] += bandDay[field][row.bandIndex * nd + d] / row.days;
+      const key = `${b}:${monthOf[d]}`;
+      let sum = sums.get(key);
+      if (!sum) sums.set(key, (sum = { netShortwaveWm2: 0, netLongwaveWm2: 0, sensibleHeatWm2: 0 }));
+      for (const field of ENERGY_FIELDS) sum[field] += bandDay[field][b * nd + d];
     }
+  }
+  const months = summariseByMonth(result).map((row): BandMonthRow => {
+    const sum = sums.get(`${row.bandIndex}:${row.month}`)!;
     return {
       bandIndex: row.bandIndex, month: row.month, days: row.days,
       snowMeltMm: row.snowMeltMm, iceMeltMm: row.iceMeltMm, debrisIceMeltMm: row.debrisIceMeltMm,
       rainMm: row.rainMm, snowfallMm: row.snowfallMm, meanAlbedo: row.meanAlbedo,
-      absorbedShortwaveWm2: row.meanAbsorbedShortwaveWm2, ...energy,
+      absorbedShortwaveWm2: row.meanAbsorbedShortwaveWm2,
+      netShortwaveWm2: sum.netShortwaveWm2 / row.days,
+      netLongwaveWm2: sum.netLongwaveWm2 / row.days,
+      sensibleHeatWm2: sum.sensibleHeatWm2 / row.days,
     };
   });
   return {
