@@ -1,0 +1,78 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createOrganisation, signedInAgent } from '../support/factories';
+import { grantActivePlan } from '../support/paid-plan';
+import { createTestApp, type TestApp } from '../support/test-app';
+
+/**
+ * Malformed ids, queries and bodies sent to every kind of route must get a clear 4xx in the
+ * error shape, never a 500 or a stack trace.
+ */
+let t: TestApp;
+let catchmentId: number;
+let agent: Awaited<ReturnType<typeof signedInAgent>>;
+
+beforeAll(async () => {
+  t = createTestApp();
+  const org = await createOrganisation(t.db);
+  await grantActivePlan(t.db, org.organisationId);
+  agent = await signedInAgent(t.app, org.users.admin.email);
+  const created = await agent.post('/api/catchments').send({
+    name: 'Junk probe', description: '', latitudeDeg: 34, longitudeDeg: 79, timeZone: 'Asia/Kolkata',
+    stationName: 'Probe', stationElevationM: 3400, outletDescription: '',
+  });
+  catchmentId = created.body.catchment?.id ?? created.body.id;
+  if (!(catchmentId > 0)) throw new Error(`catchment not created: ${created.status} ${JSON.stringify(created.body)}`);
+});
+afterAll(async () => {
+  await t.ctx.simulationPool.close();
+  await t.close();
+});
+
+const ID_JUNK = ['abc', '-1', '0', '1.5', '99999999999999999999', '%00'];
+const BODY_JUNK: unknown[] = [null, [], 'text', 42, { id: { $gt: 1 } }];
+
+const c = () => `/api/catchments/${catchmentId}`;
+const readPaths = () => [
+  ...ID_JUNK.map((id) => `/api/catchments/${id}`),
+  ...ID_JUNK.map((id) => `${c()}/datasets/${id}/series`),
+  ...ID_JUNK.map((id) => `${c()}/runs/${id}/results`),
+  ...ID_JUNK.map((id) => `${c()}/scenarios/${id}`),
+  ...ID_JUNK.map((id) => `/api/briefings/${id}/versions/${id}`),
+  ...ID_JUNK.map((id) => `/api/lab/jobs/${id}`),
+  ...ID_JUNK.map((id) => `/api/members/${id}`),
+  '/api/catchments?page=abc&pageSize=-5&sortBy=password_hash&descending=maybe',
+  `${c()}/preview-input?from=zzz&to=2022-13-45`,
+  `/api/lab/catchments/${catchmentId}/surface-response?band=abc&from=x&to=y`,
+  `/api/lab/catchments/${catchmentId}/reference-models?band=-3`,
+  '/api/invitations/preview?token[]=a',
+];
+
+const writeCalls = () => [
+  ['post', '/api/catchments'], ['put', `${c()}`], ['put', `${c()}/bands`], ['post', `${c()}/scenarios`],
+  ['post', `${c()}/runs`], ['post', '/api/briefings'], ['post', `/api/lab/catchments/${catchmentId}/skill`],
+  ['post', `/api/lab/catchments/${catchmentId}/sweeps`], ['put', `/api/lab/catchments/${catchmentId}/calibration`],
+  ['post', '/api/invitations'], ['put', '/api/billing/seats'], ['post', '/api/billing/checkout'],
+  ['patch', '/api/members/1'], ['post', '/api/auth/sign-in'], ['post', '/api/password-reset/complete'],
+] as const;
+
+describe('junk input never gives a 500', () => {
+  it('answers malformed ids and queries with a 4xx in the error shape', async () => {
+    for (const path of readPaths()) {
+      const res = await agent.get(path);
+      expect(res.status, path).toBeGreaterThanOrEqual(400);
+      expect(res.status, path).toBeLessThan(500);
+      expect(res.body.error?.message, path).toEqual(expect.any(String));
+    }
+  });
+
+  it('answers bodies of the wrong type with a 4xx in the error shape', async () => {
+    for (const [method, path] of writeCalls()) {
+      for (const body of BODY_JUNK) {
+        const res = await agent[method](path).set('Content-Type', 'application/json').send(JSON.stringify(body));
+        expect(res.status, `${method} ${path} ${JSON.stringify(body)}`).toBeGreaterThanOrEqual(400);
+        expect(res.status, `${method} ${path} ${JSON.stringify(body)}`).toBeLessThan(500);
+        expect(JSON.stringify(res.body)).not.toMatch(/at .+\.ts:\d+/);
+      }
+    }
+  });
+});
