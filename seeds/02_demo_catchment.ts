@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
 import { variableSpec, type Variable } from '../shared/schemas/dataset-variables';
-import { insertDatasetValues, insertStakeReadings } from '../server/services/dataset-values';
+import { insertDatasetValues, insertStakeReadings } from '../server/services/catchments/dataset-values';
 import { DEMO_ACCOUNTS, DEMO_ORGANISATION } from './data/demo-accounts';
 import { DEMO_BANDS, DEMO_CATCHMENT } from './data/demo-catchment';
 import { syntheticStakeReadings } from './data/synthetic-stakes';

@@ -1,11 +1,11 @@
 import type { Knex } from 'knex';
 import type { AppConfig } from './config';
-import { AuthService } from './services/auth-service';
+import { AuthService } from './services/auth/auth-service';
 import { createTeamServices, type TeamServices, type TeamServicesOptions } from './services/team-services';
-import { BandService } from './services/band-service';
-import { CatchmentService } from './services/catchment-service';
-import { DatasetService } from './services/dataset-service';
-import { UploadService } from './services/upload-service';
+import { BandService } from './services/catchments/band-service';
+import { CatchmentService } from './services/catchments/catchment-service';
+import { DatasetService } from './services/catchments/dataset-service';
+import { UploadService } from './services/catchments/upload-service';
 import { LabService } from './services/lab/lab-service';
 import { LabPool } from './services/lab/lab-pool';
 import { createRunServices, type RunServices, type RunServicesOptions } from './services/runs/run-services';

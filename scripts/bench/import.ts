@@ -7,7 +7,7 @@
 import { loadConfig } from '../../server/config';
 import { createDb } from '../../server/db';
 import { TenantScope } from '../../server/services/tenant-scope';
-import { UploadService } from '../../server/services/upload-service';
+import { UploadService } from '../../server/services/catchments/upload-service';
 
 const HOURS = 87_600;
 

@@ -18,7 +18,7 @@ import { createInterface } from 'node:readline';
 import { availableParallelism, loadavg } from 'node:os';
 import { loadConfig } from '../../server/config';
 import { createDb } from '../../server/db';
-import { insertDatasetValues } from '../../server/services/dataset-values';
+import { insertDatasetValues } from '../../server/services/catchments/dataset-values';
 import { DEMO_BANDS, DEMO_CATCHMENT } from '../../seeds/data/demo-catchment';
 import { syntheticStation } from '../../seeds/data/synthetic-station';
 import type { Run } from '../../shared/schemas/runs';

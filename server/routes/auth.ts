@@ -4,8 +4,8 @@ import type { AppContext } from '../context';
 import { authOf, requireAuth, SESSION_COOKIE } from '../middleware/require-auth';
 import { signInLimits } from '../middleware/sign-in-limits';
 import { validateBody } from '../middleware/validate';
-import type { UserRow } from '../services/auth-service';
-import { signSessionToken } from '../services/session-tokens';
+import type { UserRow } from '../services/auth/auth-service';
+import { signSessionToken } from '../services/auth/session-tokens';
 
 /** /api/auth/* and /api/me: sign-up, sign-in, sign-out and the current user. */
 export function authRoutes(ctx: AppContext): Router {

@@ -4,9 +4,9 @@ import { csvUpload } from '../middleware/csv-upload';
 import { authOf, requireAuth } from '../middleware/require-auth';
 import { requireRole } from '../middleware/require-role';
 import { idParam } from '../middleware/validate';
-import { readBandFile } from '../services/csv/band-file';
+import { readBandFile } from '../services/catchments/csv/band-file';
 import { safeFileName } from '../../shared/csv/csv-writing';
-import { decodeCsvText } from '../services/csv/read-table';
+import { decodeCsvText } from '../services/catchments/csv/read-table';
 import { READERS, WRITERS } from './catchments';
 
 /** /api/catchments/:id/bands: the band table, as JSON or CSV; a CSV read into rows for the editor. */

@@ -1,7 +1,7 @@
 import type { Knex } from 'knex';
 import type Stripe from 'stripe';
 import type { AppConfig } from '../config';
-import type { AuthService } from './auth-service';
+import type { AuthService } from './auth/auth-service';
 import { BillingService } from './billing/billing-service';
 import { createPaymentsClient } from './billing/payments-client';
 import { WebhookService } from './billing/webhook-service';

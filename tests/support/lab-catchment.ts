@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
 import { variableSpec, type Variable } from '../../shared/schemas/dataset-variables';
-import { insertDatasetValues, insertStakeReadings } from '../../server/services/dataset-values';
+import { insertDatasetValues, insertStakeReadings } from '../../server/services/catchments/dataset-values';
 import { syntheticStakeReadings } from '../../seeds/data/synthetic-stakes';
 import { DEMO_BANDS, DEMO_CATCHMENT } from '../../seeds/data/demo-catchment';
 import { syntheticStation } from '../../seeds/data/synthetic-station';

@@ -1,4 +1,4 @@
-import type { UserRow } from '../auth-service';
+import type { UserRow } from '../auth/auth-service';
 import { notFound } from '../../errors';
 import type { TenantScope } from '../tenant-scope';
 

@@ -1,5 +1,5 @@
 import { safeFileName } from '../../../shared/csv/csv-writing';
-import type { UserRow } from '../auth-service';
+import type { UserRow } from '../auth/auth-service';
 import type { TenantScope } from '../tenant-scope';
 import { recordEvent } from './briefing-audit';
 import { readableBriefing } from './briefing-access';

@@ -4,7 +4,7 @@ import {
   type Reading, type createBriefingSchema, type saveDraftSchema,
 } from '../../../shared/schemas/briefings';
 import { notFound } from '../../errors';
-import type { UserRow } from '../auth-service';
+import type { UserRow } from '../auth/auth-service';
 import type { TenantScope } from '../tenant-scope';
 import { assembleSnapshot } from './assemble';
 import { recordEvent } from './briefing-audit';

@@ -1,6 +1,6 @@
 import type { CommentItem } from '../../../shared/schemas/briefings';
 import { conflict, notFound, validationFailed } from '../../errors';
-import type { UserRow } from '../auth-service';
+import type { UserRow } from '../auth/auth-service';
 import type { InvitationService } from '../members/invitation-service';
 import type { TenantScope } from '../tenant-scope';
 import { recordEvent } from './briefing-audit';

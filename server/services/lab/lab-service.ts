@@ -12,8 +12,8 @@ import {
 } from '../../../shared/schemas/lab';
 import { validationFailed } from '../../errors';
 import { parseWith } from '../../middleware/validate';
-import type { UserRow } from '../auth-service';
-import type { BandService } from '../band-service';
+import type { UserRow } from '../auth/auth-service';
+import type { BandService } from '../catchments/band-service';
 import type { TenantScope } from '../tenant-scope';
 import { CalibrationStore } from './calibration-store';
 import { LabData } from './lab-data';

@@ -2,7 +2,7 @@ import type { Knex } from 'knex';
 import type { Role } from '../../../shared/schemas/auth';
 import type { Member, MembersReply } from '../../../shared/schemas/members';
 import { forbidden } from '../../errors';
-import type { UserRow } from '../auth-service';
+import type { UserRow } from '../auth/auth-service';
 import { assertFreeSeats, lockOrganisation, seatUsage, takesSeat } from '../billing/seats';
 import type { TenantScope } from '../tenant-scope';
 

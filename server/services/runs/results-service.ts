@@ -2,7 +2,7 @@ import { attributionDrivers } from '../../../shared/analysis/run-plan';
 import { runResults } from '../../../shared/analysis/run-results';
 import type { RunResults } from '../../../shared/schemas/results';
 import { conflict } from '../../errors';
-import { readChanges } from '../scenario-service';
+import { readChanges } from './scenario-service';
 import type { TenantScope } from '../tenant-scope';
 import { bandMonthCsv, dailyCsv } from './results-csv';
 import { loadMembers, type StoredMember } from './run-store';

@@ -4,7 +4,7 @@ import { ENGINE_VERSION } from '../../../shared/melt/version';
 import { parseSimulationInput, SimulationInputError } from '../../../shared/melt/prepare';
 import type { Run, startRunSchema } from '../../../shared/schemas/runs';
 import { conflict, notFound, validationFailed } from '../../errors';
-import type { ScenarioService } from '../scenario-service';
+import type { ScenarioService } from './scenario-service';
 import type { TenantScope } from '../tenant-scope';
 import type { CatchmentInputs, CatchmentInputSource } from './catchment-inputs';
 import { inputHash } from './input-hash';

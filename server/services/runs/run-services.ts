@@ -1,7 +1,7 @@
 import type { Knex } from 'knex';
 import type { AppConfig } from '../../config';
-import type { BandService } from '../band-service';
-import { ScenarioService } from '../scenario-service';
+import type { BandService } from '../catchments/band-service';
+import { ScenarioService } from './scenario-service';
 import type { CatchmentInputSource } from './catchment-inputs';
 import { storedCatchmentInputs } from './stored-catchment-inputs';
 import { ResultsService } from './results-service';

@@ -1,5 +1,5 @@
 import type { Knex } from 'knex';
-import type { StakeReading } from '../../shared/schemas/stakes';
+import type { StakeReading } from '../../../shared/schemas/stakes';
 
 /** Rows per INSERT: 4 placeholders each keeps a statement far below MySQL's 65,535-placeholder limit. */
 export const INSERT_CHUNK_ROWS = 10_000;

@@ -1,7 +1,7 @@
-import { BAND_COLUMNS, bandIssuesToProblems, bandTableSchema, type BandRow } from '../../shared/schemas/catchment-bands';
-import { validationFailed } from '../errors';
-import { csvDocument } from '../../shared/csv/csv-writing';
-import type { TenantScope } from './tenant-scope';
+import { BAND_COLUMNS, bandIssuesToProblems, bandTableSchema, type BandRow } from '../../../shared/schemas/catchment-bands';
+import { validationFailed } from '../../errors';
+import { csvDocument } from '../../../shared/csv/csv-writing';
+import type { TenantScope } from '../tenant-scope';
 
 interface BandDbRow {
   lower_m: number;

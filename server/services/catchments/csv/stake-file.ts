@@ -1,7 +1,7 @@
-import { variableSpec } from '../../../shared/schemas/dataset-variables';
-import type { Problem } from '../../../shared/schemas/datasets';
-import { STAKE_COLUMNS, type StakeReading } from '../../../shared/schemas/stakes';
-import { validationFailed } from '../../errors';
+import { variableSpec } from '../../../../shared/schemas/dataset-variables';
+import type { Problem } from '../../../../shared/schemas/datasets';
+import { STAKE_COLUMNS, type StakeReading } from '../../../../shared/schemas/stakes';
+import { validationFailed } from '../../../errors';
 import { parseNumber, readCsvTable } from './read-table';
 import { chooseUnit } from './series-columns';
 import type { ReadSeries } from './series-file';

@@ -1,5 +1,5 @@
-import { variableSpec, type TimeStep, type Variable } from '../../../shared/schemas/dataset-variables';
-import type { Problem } from '../../../shared/schemas/datasets';
+import { variableSpec, type TimeStep, type Variable } from '../../../../shared/schemas/dataset-variables';
+import type { Problem } from '../../../../shared/schemas/datasets';
 import { formatMinutes, STEP_MINUTES } from './timestamps';
 
 type Report = (problem: Problem) => void;

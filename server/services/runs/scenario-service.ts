@@ -1,12 +1,12 @@
 import {
   SCENARIO_SCHEMA_VERSION, scenarioChangesSchema, type ScenarioChanges, type ScenarioRecord,
-} from '../../shared/schemas/scenarios';
+} from '../../../shared/schemas/scenarios';
 import type { z } from 'zod';
-import type { scenarioCreateSchema, scenarioUpdateSchema } from '../../shared/schemas/scenarios';
-import { conflict, notFound, validationFailed } from '../errors';
-import type { TenantScope } from './tenant-scope';
-import { climateRecord } from './runs/climate-record';
-import { defaultSeason } from '../../shared/analysis/default-season';
+import type { scenarioCreateSchema, scenarioUpdateSchema } from '../../../shared/schemas/scenarios';
+import { conflict, notFound, validationFailed } from '../../errors';
+import type { TenantScope } from '../tenant-scope';
+import { climateRecord } from './climate-record';
+import { defaultSeason } from '../../../shared/analysis/default-season';
 
 interface ScenarioRow {
   id: number;

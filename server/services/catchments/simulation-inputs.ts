@@ -1,17 +1,17 @@
 import { z } from 'zod';
-import { daysBetween, isIsoDate } from '../../shared/melt/calendar';
-import { fillShortGaps } from '../../shared/melt/fill-gaps';
-import type { SimulationInput } from '../../shared/melt/schema';
-import type { TimeStep, Variable } from '../../shared/schemas/dataset-variables';
-import { validationFailed } from '../errors';
-import { parseWith } from '../middleware/validate';
+import { daysBetween, isIsoDate } from '../../../shared/melt/calendar';
+import { fillShortGaps } from '../../../shared/melt/fill-gaps';
+import type { SimulationInput } from '../../../shared/melt/schema';
+import type { TimeStep, Variable } from '../../../shared/schemas/dataset-variables';
+import { validationFailed } from '../../errors';
+import { parseWith } from '../../middleware/validate';
 import type { BandService } from './band-service';
 import type { CatchmentRow } from './catchment-service';
 import { formatMinutes, parseTimestamp, STEP_MINUTES } from './csv/timestamps';
 import type { DatasetRow } from './dataset-service';
 import { readDatasetValues } from './dataset-values';
 import { valuesOnGrid } from './series-grid';
-import type { TenantScope } from './tenant-scope';
+import type { TenantScope } from '../tenant-scope';
 
 const isoDate = z.string().refine(isIsoDate, { message: 'must be a real date written YYYY-MM-DD' });
 export const simulationPeriodSchema = z.object({

@@ -1,5 +1,5 @@
-import { variableSpec, type UnitOption, type Variable } from '../../../shared/schemas/dataset-variables';
-import { validationFailed } from '../../errors';
+import { variableSpec, type UnitOption, type Variable } from '../../../../shared/schemas/dataset-variables';
+import { validationFailed } from '../../../errors';
 import { headerTokens, parseNumber } from './read-table';
 import { parseTimestamp } from './timestamps';
 

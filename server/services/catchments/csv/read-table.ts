@@ -1,5 +1,5 @@
 import Papa from 'papaparse';
-import { AppError, badRequest, validationFailed } from '../../errors';
+import { AppError, badRequest, validationFailed } from '../../../errors';
 
 /** The largest file an upload may be; stated in every refusal. */
 export const MAX_UPLOAD_BYTES = 10 * 1024 * 1024;

@@ -1,8 +1,8 @@
 import type { Knex } from 'knex';
-import type { Catchment, CatchmentFields, catchmentListQuerySchema } from '../../shared/schemas/catchments';
+import type { Catchment, CatchmentFields, catchmentListQuerySchema } from '../../../shared/schemas/catchments';
 import type { z } from 'zod';
-import { conflict } from '../errors';
-import type { TenantScope } from './tenant-scope';
+import { conflict } from '../../errors';
+import type { TenantScope } from '../tenant-scope';
 
 export interface CatchmentRow {
   id: number;

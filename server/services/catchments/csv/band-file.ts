@@ -1,5 +1,5 @@
-import { BAND_FIELDS, bandIssuesToProblems, bandTableSchema, type BandField, type BandFileReply } from '../../../shared/schemas/catchment-bands';
-import { validationFailed } from '../../errors';
+import { BAND_FIELDS, bandIssuesToProblems, bandTableSchema, type BandField, type BandFileReply } from '../../../../shared/schemas/catchment-bands';
+import { validationFailed } from '../../../errors';
 import { parseNumber, readCsvTable } from './read-table';
 
 /**

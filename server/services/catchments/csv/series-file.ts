@@ -1,7 +1,7 @@
-import type { TimeStep, Variable } from '../../../shared/schemas/dataset-variables';
-import { variableSpec } from '../../../shared/schemas/dataset-variables';
-import type { Problem, UploadPreview } from '../../../shared/schemas/datasets';
-import { validationFailed } from '../../errors';
+import type { TimeStep, Variable } from '../../../../shared/schemas/dataset-variables';
+import { variableSpec } from '../../../../shared/schemas/dataset-variables';
+import type { Problem, UploadPreview } from '../../../../shared/schemas/datasets';
+import { validationFailed } from '../../../errors';
 import { isMissingMark, parseNumber, readCsvTable } from './read-table';
 import { chooseUnit, findSeriesColumns } from './series-columns';
 import { checkSeriesTimes, detectTimeStep } from './series-times';

@@ -1,15 +1,15 @@
 import { randomBytes } from 'node:crypto';
 import { gunzipSync, gzipSync } from 'node:zlib';
-import { STAKE_VARIABLE, variableSpec } from '../../shared/schemas/dataset-variables';
-import { datasetUploadFieldsSchema, type Dataset, type UploadPreview } from '../../shared/schemas/datasets';
-import { AppError, notFound, validationFailed } from '../errors';
-import { parseWith } from '../middleware/validate';
+import { STAKE_VARIABLE, variableSpec } from '../../../shared/schemas/dataset-variables';
+import { datasetUploadFieldsSchema, type Dataset, type UploadPreview } from '../../../shared/schemas/datasets';
+import { AppError, notFound, validationFailed } from '../../errors';
+import { parseWith } from '../../middleware/validate';
 import { readSeriesFile, type SeriesFileOptions } from './csv/series-file';
 import { readStakeFile } from './csv/stake-file';
 import { decodeCsvText } from './csv/read-table';
 import { toDataset, type DatasetRow } from './dataset-service';
 import { insertDatasetValues, insertStakeReadings } from './dataset-values';
-import type { TenantScope } from './tenant-scope';
+import type { TenantScope } from '../tenant-scope';
 
 /** How long a preview waits for confirmation. */
 const PENDING_MINUTES = 60;

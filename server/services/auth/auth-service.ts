@@ -1,7 +1,7 @@
 import bcrypt from 'bcryptjs';
 import type { Knex } from 'knex';
-import type { MeResponse, Role, SignInRequest, SignUpRequest } from '../../shared/schemas/auth';
-import { AppError, conflict, unauthorized } from '../errors';
+import type { MeResponse, Role, SignInRequest, SignUpRequest } from '../../../shared/schemas/auth';
+import { AppError, conflict, unauthorized } from '../../errors';
 
 export interface UserRow {
   id: number;

@@ -1,4 +1,4 @@
-import type { TimeStep } from '../../shared/schemas/dataset-variables';
+import type { TimeStep } from '../../../shared/schemas/dataset-variables';
 import { formatMinutes, parseTimestamp, STEP_MINUTES } from './csv/timestamps';
 
 /**

@@ -1,12 +1,12 @@
-import { STAKE_VARIABLE, variableSpec, type Variable } from '../../shared/schemas/dataset-variables';
-import type { StakeReading } from '../../shared/schemas/stakes';
-import type { Dataset, MonthlySummary, Series } from '../../shared/schemas/datasets';
-import { notFound } from '../errors';
-import { csvDocument } from '../../shared/csv/csv-writing';
+import { STAKE_VARIABLE, variableSpec, type Variable } from '../../../shared/schemas/dataset-variables';
+import type { StakeReading } from '../../../shared/schemas/stakes';
+import type { Dataset, MonthlySummary, Series } from '../../../shared/schemas/datasets';
+import { notFound } from '../../errors';
+import { csvDocument } from '../../../shared/csv/csv-writing';
 import { parseTimestamp, STEP_MINUTES } from './csv/timestamps';
 import { readDatasetValues, readStakeReadings } from './dataset-values';
 import { stepsBetween, valuesOnGrid } from './series-grid';
-import type { TenantScope } from './tenant-scope';
+import type { TenantScope } from '../tenant-scope';
 
 export interface DatasetRow {
   id: number;
