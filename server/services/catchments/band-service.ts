@@ -1,7 +1,9 @@
-import { BAND_COLUMNS, bandIssuesToProblems, bandTableSchema, type BandRow } from '../../../shared/schemas/catchment-bands';
-import { validationFailed } from '../../errors';
-import { csvDocument } from '../../../shared/csv/csv-writing';
+import { BAND_COLUMNS, type BandFileReply, type BandRow } from '../../../shared/schemas/catchment-bands';
+import { csvDocument, safeFileName } from '../../../shared/csv/csv-writing';
+import { csvFile, type DownloadFile } from '../download-file';
 import type { TenantScope } from '../tenant-scope';
+import { readBandFile } from './csv/band-file';
+import { decodeCsvText } from './csv/read-table';
 
 interface BandDbRow {
   lower_m: number;
@@ -33,19 +35,12 @@ export class BandService {
     return rows.map(toBand);
   }
 
-  /** Checks the whole table (each band and contiguity) and replaces the stored one in one transaction. */
-  async replace(scope: TenantScope, catchmentId: number, bands: unknown): Promise<BandRow[]> {
+  /** Replaces the stored table (checked whole, contiguity included, by the band table schema) in one transaction. */
+  async replace(scope: TenantScope, catchmentId: number, bands: BandRow[]): Promise<BandRow[]> {
     await scope.findOr404('catchments', catchmentId, 'Catchment');
-    const parsed = bandTableSchema.safeParse(bands);
-    if (!parsed.success) {
-      const problems = bandIssuesToProblems(parsed.error.issues);
-      const first = problems[0];
-      const where = first.row > 0 ? `Row ${first.row}, ${first.column}: ` : 'Band table: ';
-      throw validationFailed(`${where}${first.message}`, first.row > 0 ? `bands.${first.row - 1}.${first.column}` : 'bands', { problems });
-    }
     await scope.transaction(async (s) => {
       await s.from('elevation_bands').where('catchment_id', catchmentId).delete();
-      await s.db('elevation_bands').insert(parsed.data.map((b, position) => ({
+      await s.db('elevation_bands').insert(bands.map((b, position) => ({
         organisation_id: s.organisationId,
         catchment_id: catchmentId,
         position,
@@ -60,11 +55,19 @@ export class BandService {
       })));
       await s.from('catchments').where('id', catchmentId).update({ updated_at: s.db.fn.now() });
     });
-    return parsed.data;
+    return bands;
   }
 
-  async csv(scope: TenantScope, catchmentId: number): Promise<string> {
+  /** The table as a CSV file named after the catchment, in the columns a band file is read with. */
+  async csvFile(scope: TenantScope, catchmentId: number): Promise<DownloadFile> {
+    const catchment = await scope.findOr404<{ name: string }>('catchments', catchmentId, 'Catchment');
     const bands = await this.list(scope, catchmentId);
-    return csvDocument(BAND_COLUMNS.map((c) => c.field), bands.map((b) => BAND_COLUMNS.map((c) => b[c.field])));
+    const text = csvDocument(BAND_COLUMNS.map((c) => c.field), bands.map((b) => BAND_COLUMNS.map((c) => b[c.field])));
+    return csvFile(`${safeFileName(catchment.name)}-bands.csv`, text);
+  }
+
+  /** Reads an uploaded band file into rows and problems without storing it: the editor shows them, then saves. */
+  readFile(file: { buffer: Buffer }): BandFileReply {
+    return readBandFile(decodeCsvText(file.buffer));
   }
 }

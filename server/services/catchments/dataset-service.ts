@@ -3,6 +3,7 @@ import type { StakeReading } from '../../../shared/schemas/stakes';
 import type { Dataset, MonthlySummary, Series } from '../../../shared/schemas/datasets';
 import { notFound } from '../../errors';
 import { csvDocument } from '../../../shared/csv/csv-writing';
+import { csvFile, type DownloadFile } from '../download-file';
 import { parseTimestamp, STEP_MINUTES } from './csv/timestamps';
 import { readDatasetValues, readStakeReadings } from './dataset-values';
 import { stepsBetween, valuesOnGrid } from './series-grid';
@@ -103,18 +104,17 @@ export class DatasetService {
     return row.variable === STAKE_VARIABLE ? readStakeReadings(scope.db, { datasetId, organisationId: scope.organisationId }) : [];
   }
 
-  async csv(scope: TenantScope, catchmentId: number, datasetId: number): Promise<{ fileName: string; text: string }> {
+  async csvFile(scope: TenantScope, catchmentId: number, datasetId: number): Promise<DownloadFile> {
     const row = await this.row(scope, catchmentId, datasetId);
+    const fileName = `${row.variable}-${row.id}.csv`;
     if (row.variable === STAKE_VARIABLE) {
       const readings = await readStakeReadings(scope.db, { datasetId, organisationId: scope.organisationId });
-      const text = csvDocument(['stake', 'elevation_m', 'from', 'to', 'balance_m_we'], readings.map((r) => [r.stake, r.elevationM, r.from, r.to, r.balanceMWe]));
-      return { fileName: `${row.variable}-${row.id}.csv`, text };
+      return csvFile(fileName, csvDocument(['stake', 'elevation_m', 'from', 'to', 'balance_m_we'], readings.map((r) => [r.stake, r.elevationM, r.from, r.to, r.balanceMWe])));
     }
     const values = await readDatasetValues(scope.db, { datasetId, organisationId: scope.organisationId });
     const time = row.time_step === 'daily' ? (t: string) => t.slice(0, 10) : (t: string) => t;
     const header = [row.time_step === 'daily' ? 'date' : 'time', `${row.variable} (${row.unit})`];
-    const text = csvDocument(header, values.map((v) => [time(v.t), v.value]));
-    return { fileName: `${row.variable}-${row.id}.csv`, text };
+    return csvFile(fileName, csvDocument(header, values.map((v) => [time(v.t), v.value])));
   }
 
   async remove(scope: TenantScope, catchmentId: number, datasetId: number): Promise<void> {

@@ -2,8 +2,8 @@ import { randomBytes } from 'node:crypto';
 import { gunzipSync, gzipSync } from 'node:zlib';
 import { STAKE_VARIABLE, variableSpec } from '../../../shared/schemas/dataset-variables';
 import { datasetUploadFieldsSchema, type Dataset, type UploadPreview } from '../../../shared/schemas/datasets';
+import type { z } from 'zod';
 import { AppError, notFound, validationFailed } from '../../errors';
-import { parseWith } from '../../middleware/validate';
 import { readSeriesFile, type SeriesFileOptions } from './csv/series-file';
 import { readStakeFile } from './csv/stake-file';
 import { decodeCsvText } from './csv/read-table';
@@ -18,6 +18,8 @@ export interface UploadedFile {
   originalname: string;
   buffer: Buffer;
 }
+
+export type UploadFields = z.output<typeof datasetUploadFieldsSchema>;
 
 export interface Uploader {
   id: number;
@@ -41,9 +43,8 @@ interface PendingRow {
  * stores dataset and values in one transaction, or nothing at all.
  */
 export class UploadService {
-  async preview(scope: TenantScope, catchmentId: number, file: UploadedFile, rawFields: unknown, user: Uploader): Promise<UploadPreview> {
+  async preview(scope: TenantScope, catchmentId: number, file: UploadedFile, fields: UploadFields, user: Uploader): Promise<UploadPreview> {
     await scope.findOr404('catchments', catchmentId, 'Catchment');
-    const fields = parseWith(datasetUploadFieldsSchema, rawFields);
     const text = decodeCsvText(file.buffer);
     const read = readUpload(text, fields);
     await scope.from('pending_uploads').where('expires_at', '<', new Date()).delete();
@@ -64,7 +65,8 @@ export class UploadService {
   /** Stores the previewed file as a dataset, all or nothing; refuses files with errors. */
   async confirm(scope: TenantScope, catchmentId: number, token: string, user: Uploader): Promise<Dataset> {
     const pending = await this.pending(scope, catchmentId, token);
-    const fields = parseWith(datasetUploadFieldsSchema, JSON.parse(pending.fields));
+    // Stored by `preview` after the same schema parsed them.
+    const fields = datasetUploadFieldsSchema.parse(JSON.parse(pending.fields));
     const read = readUpload(gunzipSync(pending.content_gz).toString('utf8'), fields);
     if (!read.preview.canConfirm) {
       throw validationFailed('The file has problems that must be fixed before it can be stored; nothing was stored.', 'file', { problems: read.preview.problems });
