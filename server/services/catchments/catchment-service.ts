@@ -3,6 +3,7 @@ import type { Catchment, CatchmentFields, catchmentListQuerySchema } from '../..
 import type { z } from 'zod';
 import { conflict } from '../../errors';
 import type { TenantScope } from '../tenant-scope';
+import { insertBaseline } from './baseline-scenario';
 
 export interface CatchmentRow {
   id: number;
@@ -83,9 +84,14 @@ export class CatchmentService {
     return { catchments: (rows as CatchmentRow[]).map(toCatchment), total: Number(total), page: query.page, perPage: query.perPage };
   }
 
+  /** A new catchment with its baseline scenario, in one transaction. */
   async create(scope: TenantScope, fields: CatchmentFields, userId: number): Promise<Catchment> {
     await this.assertNameFree(scope, fields.name);
-    const id = await scope.insert('catchments', { ...toColumns(fields), created_by: userId });
+    const id = await scope.transaction(async (s) => {
+      const catchmentId = await s.insert('catchments', { ...toColumns(fields), created_by: userId });
+      await insertBaseline(s, catchmentId, userId);
+      return catchmentId;
+    });
     return this.get(scope, id);
   }
 
@@ -127,9 +133,7 @@ function withCounts(query: Knex.QueryBuilder, db: Knex | Knex.Transaction): Knex
   );
 }
 
-/** Runs arrive with the scenarios feature; until its table exists no catchment has runs. */
 async function hasRuns(scope: TenantScope, catchmentId: number): Promise<boolean> {
-  if (!(await scope.db.schema.hasTable('runs'))) return false;
   const row = await scope.from('runs').where('catchment_id', catchmentId).first('id');
   return row !== undefined;
 }

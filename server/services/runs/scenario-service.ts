@@ -1,9 +1,10 @@
 import {
-  SCENARIO_SCHEMA_VERSION, scenarioChangesSchema, type ScenarioChanges, type ScenarioRecord,
+  SCENARIO_SCHEMA_VERSION, scenarioChangesSchema, type ScenarioChanges, type ScenarioRecord, type ScenarioSetup,
 } from '../../../shared/schemas/scenarios';
 import type { z } from 'zod';
 import type { scenarioCreateSchema, scenarioUpdateSchema } from '../../../shared/schemas/scenarios';
 import { conflict, notFound, validationFailed } from '../../errors';
+import type { CalibrationStore } from '../lab/calibration-store';
 import type { TenantScope } from '../tenant-scope';
 import { climateRecord } from './climate-record';
 import { defaultSeason } from '../../../shared/analysis/default-season';
@@ -20,8 +21,6 @@ interface ScenarioRow {
   created_at: Date;
   updated_at: Date;
 }
-
-export const BASELINE_NAME = 'Baseline';
 
 /** Stored changes of any schema version, read as the current version (version 1 is the only one so far). */
 export function readChanges(raw: string | object): ScenarioChanges {
@@ -42,11 +41,12 @@ function toScenario(row: ScenarioRow): ScenarioRecord {
   };
 }
 
-/** Scenarios of a catchment: a baseline (made on first use) and any number of variants. */
+/** Scenarios of a catchment: its baseline (made with the catchment) and any number of variants. */
 export class ScenarioService {
+  constructor(private readonly calibrations: CalibrationStore) {}
+
   async list(scope: TenantScope, catchmentId: number, includeArchived: boolean): Promise<ScenarioRecord[]> {
     await scope.findOr404('catchments', catchmentId, 'Catchment');
-    await this.ensureBaseline(scope, catchmentId);
     const query = scope.from<ScenarioRow>('scenarios').where('catchment_id', catchmentId).orderBy([{ column: 'is_baseline', order: 'desc' }, 'name']);
     if (!includeArchived) query.whereNull('archived_at');
     return (await query).map(toScenario);
@@ -58,26 +58,26 @@ export class ScenarioService {
     return toScenario(row);
   }
 
-  /** The catchment's baseline: no changes to the station record, created when first needed. */
-  async ensureBaseline(scope: TenantScope, catchmentId: number): Promise<ScenarioRecord> {
-    const existing = await scope.from<ScenarioRow>('scenarios').where({ catchment_id: catchmentId, is_baseline: true }).first();
-    if (existing) return toScenario(existing);
-    // It starts on the latest full melt season of the stored climate record, if there is one.
+  /** The catchment's baseline: no changes to the station record unless set; created with the catchment. */
+  async baseline(scope: TenantScope, catchmentId: number): Promise<ScenarioRecord> {
+    await scope.findOr404('catchments', catchmentId, 'Catchment');
+    const row = await scope.from<ScenarioRow>('scenarios').where({ catchment_id: catchmentId, is_baseline: true }).first();
+    if (!row) throw notFound('Baseline scenario');
+    return toScenario(row);
+  }
+
+  /**
+   * What the scenario builder starts from: the stored climate record, its latest full melt season
+   * and the catchment's newest saved calibration.
+   */
+  async setup(scope: TenantScope, catchmentId: number): Promise<ScenarioSetup> {
     const catchment = await scope.findOr404<{ latitude_deg: number }>('catchments', catchmentId, 'Catchment');
     const record = await climateRecord(scope, catchmentId);
-    const period = record ? defaultSeason(record, catchment.latitude_deg) : null;
-    try {
-      const id = await scope.insert('scenarios', {
-        catchment_id: catchmentId, name: BASELINE_NAME, description: 'The station record without changes.', is_baseline: true,
-        schema_version: SCENARIO_SCHEMA_VERSION, changes: JSON.stringify(scenarioChangesSchema.parse({ period })),
-      });
-      return this.get(scope, catchmentId, id);
-    } catch (error) {
-      // Two requests raced to make it: the other one won.
-      const row = await scope.from<ScenarioRow>('scenarios').where({ catchment_id: catchmentId, is_baseline: true }).first();
-      if (row) return toScenario(row);
-      throw error;
-    }
+    const saved = await this.calibrations.current(scope, catchmentId);
+    const calibration = saved
+      ? { parameters: saved.set.parameters, precipitationFactor: saved.set.precipitationFactor, savedBy: saved.savedBy, savedAt: saved.savedAt }
+      : null;
+    return { record, defaultPeriod: record ? defaultSeason(record, catchment.latitude_deg) : null, calibration };
   }
 
   async create(scope: TenantScope, catchmentId: number, body: z.output<typeof scenarioCreateSchema>, userId: number): Promise<ScenarioRecord> {
