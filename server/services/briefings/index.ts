@@ -1,30 +1,32 @@
 import type { InvitationService } from '../members/invitation-service';
 import type { ResultsService } from '../runs/results-service';
+import type { ThreadBudget } from '../thread-budget';
 import { BriefingExports } from './briefing-exports';
 import { BriefingService } from './briefing-service';
 import { BriefingSharing } from './briefing-sharing';
-import { PdfPool } from './pdf/pdf-pool';
 import type { BriefingResultsSource } from './comparison';
+import { PdfPool } from './pdf/pdf-pool';
 import { RunsResultsSource } from './runs-results-source';
 
-/** Briefings, their sharing and comments, and their exports: the part of the context they need. */
 export interface BriefingServices {
   briefings: BriefingService;
   briefingSharing: BriefingSharing;
   briefingExports: BriefingExports;
-  /** The worker thread that lays out PDFs; close it when the app stops. */
+  /** The worker thread that lays out PDFs, on the shared thread budget. */
   pdfPool: PdfPool;
 }
 
-export interface BriefingServicesOptions {
-  /** Where briefing numbers come from; finished runs unless a test gives its own. */
+export interface BriefingServicesDeps {
+  results: ResultsService;
+  invitations: InvitationService;
+  threads: ThreadBudget;
+  /** Where briefing numbers come from; finished runs unless given. */
   briefingResults?: BriefingResultsSource;
 }
 
-export function createBriefingServices(
-  deps: { results: ResultsService; invitations: InvitationService }, options: BriefingServicesOptions = {},
-): BriefingServices {
-  const briefings = new BriefingService(options.briefingResults ?? new RunsResultsSource(deps.results));
-  const pdfPool = new PdfPool();
+/** Briefings, their sharing and comments, and their PDF and CSV exports. */
+export function createBriefingServices(deps: BriefingServicesDeps): BriefingServices {
+  const briefings = new BriefingService(deps.briefingResults ?? new RunsResultsSource(deps.results));
+  const pdfPool = new PdfPool(deps.threads);
   return { briefings, briefingSharing: new BriefingSharing(deps.invitations), briefingExports: new BriefingExports(briefings, pdfPool), pdfPool };
 }
