@@ -3,6 +3,7 @@ import type { StakeReading } from '../../../shared/schemas/stakes';
 import type { Dataset, MonthlySummary, Series } from '../../../shared/schemas/datasets';
 import { notFound } from '../../errors';
 import { csvDocument } from '../../../shared/csv/csv-writing';
+import { roundTo } from '../../../shared/text/numbers';
 import { csvFile, type DownloadFile } from '../download-file';
 import { parseTimestamp, STEP_MINUTES } from './csv/timestamps';
 import { readDatasetValues, readStakeReadings } from './dataset-values';
@@ -94,7 +95,7 @@ export class DatasetService {
         const expected = expectedStepsInMonth(month, row.first_at!, row.last_at!, row.time_step);
         const count = Number(g?.count ?? 0);
         const value = g ? Number(statistic === 'mean' ? g.mean : g.total) : null;
-        return { month, value: value === null ? null : Math.round(value * 100) / 100, statistic, count, expected, completeness: expected > 0 ? count / expected : 0 };
+        return { month, value: value === null ? null : roundTo(value, 2), statistic, count, expected, completeness: expected > 0 ? count / expected : 0 };
       }),
     };
   }

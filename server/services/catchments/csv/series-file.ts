@@ -1,6 +1,7 @@
 import type { TimeStep, Variable } from '../../../../shared/schemas/dataset-variables';
 import { variableSpec } from '../../../../shared/schemas/dataset-variables';
 import type { Problem, UploadPreview } from '../../../../shared/schemas/datasets';
+import { roundTo } from '../../../../shared/text/numbers';
 import { validationFailed } from '../../../errors';
 import { isMissingMark, parseNumber, readCsvTable } from './read-table';
 import { chooseUnit, findSeriesColumns } from './series-columns';
@@ -69,11 +70,11 @@ export function readSeriesFile(text: string, options: SeriesFileOptions): ReadSe
         value = unit.option.toStored(read);
         if (value < spec.min || value > spec.max) {
           const hint = spec.storedUnit === '°C' && unit.option.unit === '°C' && read > 200 ? ' (kelvin? choose K as the unit)' : '';
-          report({ kind: 'implausible', severity: 'error', row: line, column: valueName, message: `${round(value)} ${spec.storedUnit} is outside the plausible range ${spec.min} to ${spec.max} ${spec.storedUnit}${hint}` });
+          report({ kind: 'implausible', severity: 'error', row: line, column: valueName, message: `${roundTo(value, 3)} ${spec.storedUnit} is outside the plausible range ${spec.min} to ${spec.max} ${spec.storedUnit}${hint}` });
         }
       }
     }
-    if (firstRows.length < PREVIEW_ROWS) firstRows.push({ row: line, time: timeCell, value: value === null ? null : round(value) });
+    if (firstRows.length < PREVIEW_ROWS) firstRows.push({ row: line, time: timeCell, value: value === null ? null : roundTo(value, 3) });
     if (value !== null) {
       rowMinutes.push(minutes);
       rowLines.push(line);
@@ -119,6 +120,3 @@ function clip(text: string): string {
   return text.length > 40 ? `${text.slice(0, 40)}…` : text;
 }
 
-function round(value: number): number {
-  return Math.round(value * 1000) / 1000;
-}

@@ -1,6 +1,6 @@
-import { SOURCES } from '@shared/melt/result';
-import { SOURCE_STYLES, lineStyle } from './chart-style';
-import { axis, GRID, LEGEND, round, type ChartSpec, type ResultItem } from './result-item';
+import { SOURCES } from '../melt/result';
+import { INK, SURFACE_STYLES, lineStyle, seriesColour } from './palette';
+import { axis, chartNumber, GRID, LEGEND, type ChartSpec, type ResultItem } from './chart-spec';
 
 const bandLabel = (elevationM: number) => `${Math.round(elevationM)} m`;
 
@@ -8,15 +8,15 @@ const bandLabel = (elevationM: number) => `${Math.round(elevationM)} m`;
 export function addedMeltByBand(items: ResultItem[]): ChartSpec {
   const bands = items[0].results.bands.map((b) => bandLabel(b.elevationM));
   const series = items.flatMap((it, i) => SOURCES.map((source) => ({
-    name: items.length > 1 ? `${it.label}: ${SOURCE_STYLES[source].label}` : SOURCE_STYLES[source].label,
-    type: 'bar', stack: `v${i}`, data: it.results.bandAddedMm.map((b) => round(b[source])),
-    itemStyle: { color: SOURCE_STYLES[source].colour, borderColor: '#333', borderWidth: 0.5, opacity: 1 - i * 0.12 },
+    name: items.length > 1 ? `${it.label}: ${SURFACE_STYLES[source].label}` : SURFACE_STYLES[source].label,
+    type: 'bar', stack: `v${i}`, data: it.results.bandAddedMm.map((b) => chartNumber(b[source])),
+    itemStyle: { color: SURFACE_STYLES[source].colour, borderColor: '#333', borderWidth: 0.5, opacity: 1 - i * 0.12 },
   })));
   return {
     option: { tooltip: { trigger: 'axis', axisPointer: { type: 'shadow' } }, legend: LEGEND, grid: GRID, xAxis: axis('Band mean elevation (m)', 'category', bands), yAxis: axis('Added melt (mm w.e. over the band)', 'value'), series },
     table: {
-      columns: [{ name: 'band', label: 'Band mean elevation (m)' }, ...items.flatMap((it, i) => SOURCES.map((s) => ({ name: `${i}-${s}`, label: `${it.label}: ${SOURCE_STYLES[s].label} (mm w.e.)` })))],
-      rows: bands.map((band, b) => Object.fromEntries([['band', band], ...items.flatMap((it, i) => SOURCES.map((s) => [`${i}-${s}`, round(it.results.bandAddedMm[b][s])]))])),
+      columns: [{ name: 'band', label: 'Band mean elevation (m)' }, ...items.flatMap((it, i) => SOURCES.map((s) => ({ name: `${i}-${s}`, label: `${it.label}: ${SURFACE_STYLES[s].label} (mm w.e.)` })))],
+      rows: bands.map((band, b) => Object.fromEntries([['band', band], ...items.flatMap((it, i) => SOURCES.map((s) => [`${i}-${s}`, chartNumber(it.results.bandAddedMm[b][s])]))])),
     },
   };
 }
@@ -31,14 +31,14 @@ const ENERGY = [
 export function energyComponents(item: ResultItem): ChartSpec {
   const { months, energy } = item.results;
   const series = ENERGY.flatMap(({ key, label }, k) => [
-    { name: `${label}, baseline`, type: 'bar', data: energy.baseline[key].map((v) => round(v)), itemStyle: { color: lineStyle(k).color, opacity: 0.45, decal: { symbol: 'line' } } },
-    { name: `${label}, ${item.label}`, type: 'bar', data: energy.variant[key].map((v) => round(v)), itemStyle: { color: lineStyle(k).color } },
+    { name: `${label}, baseline`, type: 'bar', data: energy.baseline[key].map((v) => chartNumber(v)), itemStyle: { color: lineStyle(k).color, opacity: 0.45, decal: { symbol: 'line' } } },
+    { name: `${label}, ${item.label}`, type: 'bar', data: energy.variant[key].map((v) => chartNumber(v)), itemStyle: { color: lineStyle(k).color } },
   ]);
   return {
     option: { tooltip: { trigger: 'axis', axisPointer: { type: 'shadow' } }, legend: LEGEND, grid: GRID, xAxis: axis('Month', 'category', months), yAxis: axis('Energy flux, catchment mean (W/m²)', 'value'), series },
     table: {
       columns: [{ name: 'month', label: 'Month' }, ...ENERGY.flatMap(({ key, label }) => [{ name: `b-${key}`, label: `${label}, baseline (W/m²)` }, { name: `v-${key}`, label: `${label}, ${item.label} (W/m²)` }])],
-      rows: months.map((month, m) => Object.fromEntries([['month', month], ...ENERGY.flatMap(({ key }) => [[`b-${key}`, round(energy.baseline[key][m])], [`v-${key}`, round(energy.variant[key][m])]])])),
+      rows: months.map((month, m) => Object.fromEntries([['month', month], ...ENERGY.flatMap(({ key }) => [[`b-${key}`, chartNumber(energy.baseline[key][m])], [`v-${key}`, chartNumber(energy.variant[key][m])]])])),
     },
   };
 }
@@ -49,7 +49,7 @@ export function timingShift(items: ResultItem[]): ChartSpec {
   return {
     option: {
       tooltip: { trigger: 'axis', axisPointer: { type: 'shadow' } }, grid: { ...GRID, bottom: 90 }, xAxis: { ...axis('Variant', 'category', labels), nameGap: 60, axisLabel: { interval: 0, width: 140, overflow: 'break' } }, yAxis: axis('Timing shift of half melt (days; − = earlier)', 'value'),
-      series: [{ name: 'Timing shift', type: 'bar', barMaxWidth: 60, data: items.map((it) => it.results.totals.timingShiftDays), itemStyle: { color: '#0072B2', decal: { symbol: 'line' } } }],
+      series: [{ name: 'Timing shift', type: 'bar', barMaxWidth: 60, data: items.map((it) => it.results.totals.timingShiftDays), itemStyle: { color: seriesColour(0), decal: { symbol: 'line' } } }],
     },
     table: {
       columns: [{ name: 'variant', label: 'Variant' }, { name: 'baseline', label: 'Baseline half-melt date' }, { name: 'variantDate', label: 'Variant half-melt date' }, { name: 'shift', label: 'Shift (days)' }],
@@ -78,14 +78,14 @@ export function attributionWaterfall(item: ResultItem): ChartSpec {
       tooltip: { trigger: 'axis', axisPointer: { type: 'shadow' } }, grid: { ...GRID, bottom: 110 },
       xAxis: { ...axis('Driver or interaction', 'category', labels), nameGap: 90, axisLabel: { rotate: 30, interval: 0 } }, yAxis: axis('Added volume (million m³)', 'value'),
       series: [
-        { name: 'offset', type: 'bar', stack: 'w', silent: true, itemStyle: { color: 'transparent' }, data: base.map((v) => round(v)), tooltip: { show: false } },
-        { name: 'Contribution', type: 'bar', stack: 'w', data: shown.map((v, i) => ({ value: round(v), itemStyle: { color: i === shown.length - 1 ? '#000000' : (values[i] ?? 0) >= 0 ? '#0072B2' : '#D55E00', decal: i === shown.length - 1 ? { symbol: 'rect' } : undefined } })) },
+        { name: 'offset', type: 'bar', stack: 'w', silent: true, itemStyle: { color: 'transparent' }, data: base.map((v) => chartNumber(v)), tooltip: { show: false } },
+        { name: 'Contribution', type: 'bar', stack: 'w', data: shown.map((v, i) => ({ value: chartNumber(v), itemStyle: { color: i === shown.length - 1 ? INK : (values[i] ?? 0) >= 0 ? seriesColour(0) : seriesColour(1), decal: i === shown.length - 1 ? { symbol: 'rect' } : undefined } })) },
       ],
     },
     table: {
       columns: [{ name: 'term', label: 'Driver or interaction' }, { name: 'volume', label: 'Added volume (million m³)' }, { name: 'depth', label: 'Added depth (mm w.e.)' }],
-      rows: [...terms.map((t) => ({ term: t.label, volume: round(t.addedVolumeM3 / 1e6), depth: round(t.addedDepthMm) })),
-        { term: 'Full change', volume: round((item.results.attribution?.fullChangeM3 ?? 0) / 1e6), depth: round(item.results.totals.addedDepthMm) }],
+      rows: [...terms.map((t) => ({ term: t.label, volume: chartNumber(t.addedVolumeM3 / 1e6), depth: chartNumber(t.addedDepthMm) })),
+        { term: 'Full change', volume: chartNumber((item.results.attribution?.fullChangeM3 ?? 0) / 1e6), depth: chartNumber(item.results.totals.addedDepthMm) }],
     },
   };
 }

@@ -1,7 +1,5 @@
 import type { ChartData } from '../schemas/briefings';
-
-/** Colours that stay apart in print and for common colour-vision deficiencies (Okabe & Ito palette, common practice). */
-export const SERIES_COLOURS = ['#0072B2', '#D55E00', '#009E73', '#CC79A7', '#E69F00', '#56B4E9', '#000000'];
+import { SERIES_COLOURS, seriesColour } from './palette';
 
 /**
  * The ECharts option for a frozen briefing chart. Plain data, no DOM: the browser draws it with
@@ -11,7 +9,7 @@ export const SERIES_COLOURS = ['#0072B2', '#D55E00', '#009E73', '#CC79A7', '#E69
 export function briefingChartOption(chart: ChartData, options: { animation?: boolean } = {}): Record<string, unknown> {
   const series: Record<string, unknown>[] = [];
   chart.series.forEach((s, i) => {
-    const color = SERIES_COLOURS[i % SERIES_COLOURS.length];
+    const color = seriesColour(i);
     series.push({ name: s.name, type: chart.type, data: s.values, itemStyle: { color }, lineStyle: { color, width: 1.5 }, showSymbol: false });
     for (const [edge, values] of [['5 %', s.low], ['95 %', s.high]] as const) {
       if (!values) continue;
@@ -24,7 +22,7 @@ export function briefingChartOption(chart: ChartData, options: { animation?: boo
   return {
     // Left out unless asked for, so the page's own setting (none in browser tests) applies.
     ...(options.animation === undefined ? {} : { animation: options.animation }),
-    color: SERIES_COLOURS,
+    color: [...SERIES_COLOURS],
     grid: { left: 64, right: 16, top: 40, bottom: 48 },
     legend: { top: 4, type: 'scroll' },
     tooltip: { trigger: 'axis' },

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import type { SurfaceResponse, SweepResultReply } from '@shared/schemas/lab';
+import type { SweepResultReply } from '../schemas/lab';
 import { ostremChart, sweepChart } from './lab-charts';
 
 const curve = (label: string, shift: number) => ({
@@ -10,7 +10,7 @@ const curve = (label: string, shift: number) => ({
 
 describe('lab chart builders', () => {
   it('Østrem chart: table starts with clean ice at 0 m, marks the peak, the critical thickness and the clean-ice line', () => {
-    const response = { ostrem: { present: curve('Present climate', 0), warmer: [curve('+1 °C', 1)], darker: curve('Darker debris', 5) } } as unknown as SurfaceResponse;
+    const response = { ostrem: { present: curve('Present climate', 0), warmer: [curve('+1 °C', 1)], darker: curve('Darker debris', 5) } };
     const { option, table } = ostremChart(response);
     expect(table.rows[0]).toEqual({ h: 0, c0: 100, c1: 101, c2: 105 });
     expect(table.rows).toHaveLength(4);
