@@ -11,8 +11,8 @@ export interface SimulationSettings {
  * added melt reflects only the variant's changes. `baseline` is null for the baseline itself.
  */
 export function simulationSettings(
-  changes: Pick<ScenarioChanges, 'period' | 'parameters'>,
-  baseline: Pick<ScenarioChanges, 'period' | 'parameters'> | null,
+  changes: Partial<Pick<ScenarioChanges, 'period' | 'parameters'>>,
+  baseline: Partial<Pick<ScenarioChanges, 'period' | 'parameters'>> | null,
 ): SimulationSettings {
   return {
     period: changes.period ?? baseline?.period ?? null,
