@@ -82,6 +82,18 @@ GRANT ALL PRIVILEGES ON \`$db\`.* TO '$user'@'localhost';
 SQL
 }
 
+# mariadb_extra_database DATABASE USER: another empty database on the server started by
+# mariadb_start, for the same application user (dropped first: it always starts empty).
+mariadb_extra_database() {
+  local db=$1 user=$2
+  mariadb --no-defaults --socket="$MARIADB_DIR/mysqld.sock" -uroot <<SQL
+DROP DATABASE IF EXISTS \`$db\`;
+CREATE DATABASE \`$db\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;
+GRANT ALL PRIVILEGES ON \`$db\`.* TO '$user'@'127.0.0.1';
+GRANT ALL PRIVILEGES ON \`$db\`.* TO '$user'@'localhost';
+SQL
+}
+
 # Stops the server we started, by its pid, and waits for it to exit.
 mariadb_stop() {
   [ "${MARIADB_OWNED:-0}" = 1 ] || return 0
