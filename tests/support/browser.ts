@@ -57,6 +57,18 @@ export async function launchBrowser(): Promise<BrowserWindow> {
   };
 }
 
+/**
+ * Resolves once the page has drawn what it shows: web fonts loaded and two animation frames gone
+ * by (ECharts paints a chart on the frame after its canvas appears; transitions are off in tests).
+ * Use it before a screenshot instead of a fixed sleep.
+ */
+export async function settled(page: Page): Promise<void> {
+  await page.evaluate(async () => {
+    await document.fonts.ready;
+    await new Promise<void>((resolve) => requestAnimationFrame(() => requestAnimationFrame(() => resolve())));
+  });
+}
+
 /** Serves the built client (dist/) and API on a free port and opens headless Chromium on it. */
 export async function openBrowser(): Promise<BrowserSession> {
   const t = createTestApp({ CLIENT_DIR: 'dist' });
