@@ -29,7 +29,9 @@ export class BriefingService {
       .orderBy('briefings.updated_at', 'desc');
     if (!writes(user)) {
       query.where('briefings.latest_version', '>', 0)
-        .whereExists((q) => q.from('briefing_shares as s').whereRaw('s.briefing_id = briefings.id').where('s.user_id', user.id));
+        .whereExists((q) => {
+          q.from('briefing_shares as s').whereRaw('s.briefing_id = briefings.id').where('s.user_id', user.id);
+        });
     }
     const rows = await query;
     return rows.map((r: Record<string, unknown>) => ({

@@ -73,7 +73,9 @@ export class CatchmentService {
     });
     if (query.search) {
       const like = `%${query.search.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
-      base.where((q) => q.where('catchments.name', 'like', like).orWhere('catchments.station_name', 'like', like).orWhere('catchments.description', 'like', like));
+      base.where((q) => {
+        q.where('catchments.name', 'like', like).orWhere('catchments.station_name', 'like', like).orWhere('catchments.description', 'like', like);
+      });
     }
     const [{ total }] = await base.clone().count({ total: '*' });
     const rows = await withCounts(base, scope.db)
