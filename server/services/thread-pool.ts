@@ -31,7 +31,8 @@ export class ThreadPool<TTask, TResult> {
 
   constructor(
     private readonly worker: URL,
-    private readonly budget: ThreadBudget,
+    /** The budget this pool draws from, shared with every other pool of the context. */
+    readonly budget: ThreadBudget,
     private readonly priority: TaskPriority,
   ) {}
 
