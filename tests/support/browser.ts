@@ -14,7 +14,7 @@ export interface BrowserSession {
   close(): Promise<void>;
 }
 
-// Flags for Debian's Chromium in this closed network (see STACK.md, "Browser tests").
+// Flags for Debian's Chromium in this closed network (docs/conventions.md, "Set-up facts the tests rely on").
 const CHROMIUM_ARGS = [
   '--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run',
   '--disable-background-networking', '--disable-component-update', '--disable-sync',
