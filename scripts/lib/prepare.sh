@@ -1,7 +1,6 @@
 # Shared preparation for `npm start`, `npm test` and `npm run dev`: install what is
 # missing (npm packages, Debian's MariaDB, Chromium for browser tests, GDAL's tools for the
-# geodata tests) and run a
-# private MariaDB server on loopback. Sourced by the scripts beside it.
+# geodata tests) and run a private MariaDB server on loopback. Sourced by the scripts beside it.
 
 log() { printf '\033[1;34m[tarnish]\033[0m %s\n' "$*"; }
 
