@@ -20,7 +20,8 @@ export type GeodataErrorCode =
   | 'too_much_nodata'
   | 'dem_too_coarse'
   | 'bad_option'
-  | 'bad_archive';
+  | 'bad_archive'
+  | 'no_overlap';
 
 export class GeodataError extends Error {
   constructor(

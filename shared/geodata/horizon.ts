@@ -93,3 +93,4 @@ export function horizonTangents(z: Float32Array, grid: GridGeometry, azimuthDeg:
     }
   }
 }
+

@@ -1,4 +1,5 @@
 import type { Gradient } from './terrain';
+import { fastAtan } from './fast-atan';
 import { GroupedHistogram } from './histogram';
 import { horizonTangents, horizonWork } from './horizon';
 import type { GridGeometry } from './raster';
@@ -39,12 +40,26 @@ export function terrainShading(z: Float32Array, grid: GridGeometry, gradient: Gr
   if (!Number.isInteger(sectors) || sectors < 8 || sectors > 72) throw new RangeError('sectors must be a whole number from 8 to 72');
   const cells = listZoneCells(zone);
   const { east, north } = gradient;
-  const tangents = new Float32Array(z.length);
-  const work = horizonWork(grid);
+  // per cell, once: 1/√(1 + g²) = cos S, the zone, the weight
+  const cosSlope = new Float32Array(cells.length);
+  const zoneOf = new Int32Array(cells.length);
+  const weightOf = new Float32Array(cells.length);
   const svfSum = new Float64Array(zoneCount);
   const weightSum = new Float64Array(zoneCount);
+  for (let c = 0; c < cells.length; c++) {
+    const i = cells[c];
+    cosSlope[c] = 1 / Math.sqrt(1 + east[i] * east[i] + north[i] * north[i]);
+    zoneOf[c] = zone[i];
+    weightOf[c] = options.weight ? options.weight[i] : 1;
+    weightSum[zone[i]] += weightOf[c];
+  }
+  const tangents = new Float32Array(z.length);
+  const work = horizonWork(grid);
   const histogram = new GroupedHistogram(zoneCount * sectors, -90, 90, HORIZON_BIN_DEG);
-  const degPerRad = 180 / Math.PI;
+  const counts = histogram.counts;
+  const bins = histogram.bins;
+  const binsPerRadian = 180 / Math.PI / HORIZON_BIN_DEG;
+  const zeroBin = 90 / HORIZON_BIN_DEG;
   for (let k = 0; k < sectors; k++) {
     const azimuth = (k * 360) / sectors;
     horizonTangents(z, grid, azimuth, tangents, work, options.curvature ?? true);
@@ -52,19 +67,19 @@ export function terrainShading(z: Float32Array, grid: GridGeometry, gradient: Gr
     const cosA = Math.cos((azimuth * Math.PI) / 180);
     for (let c = 0; c < cells.length; c++) {
       const i = cells[c];
-      const gx = east[i];
-      const gy = north[i];
-      const plane = gx * sinA + gy * cosA;
+      const plane = east[i] * sinA + north[i] * cosA;
       let t = tangents[i];
       if (!(t > -Infinity)) t = 0; // no terrain ahead inside the DEM (or unknown): an open, level horizon
       if (t < plane) t = plane;
-      const h = Math.atan(t);
-      const viewed = viewFactorTerm(t, plane, gx * gx + gy * gy);
-      const zi = zone[i];
-      const w = options.weight ? options.weight[i] : 1;
-      svfSum[zi] += viewed * w;
-      if (k === 0) weightSum[zi] += w;
-      histogram.add(zi * sectors + k, h * degPerRad, w);
+      const h = fastAtan(t);
+      const cos2h = 1 / (1 + t * t);
+      // viewFactorTerm, inlined for speed
+      const w = weightOf[c];
+      const zi = zoneOf[c];
+      svfSum[zi] += w * (cos2h - plane * (HALF_PI - h - t * cos2h)) * cosSlope[c];
+      let bin = Math.floor(h * binsPerRadian + zeroBin);
+      if (bin >= bins) bin = bins - 1;
+      counts[(zi * sectors + k) * bins + bin] += w;
     }
     options.onSector?.(k);
   }
