@@ -14,8 +14,8 @@ const RAD = 180 / Math.PI;
  *   d e f     dz/dx = ((c + 2f + i) − (a + 2d + g)) / 8Δx,  dz/dy = ((a + 2b + c) − (g + 2h + i)) / 8Δy
  *   g h i
  * the method `gdaldem slope/aspect` uses by default (Horn 1981, Proc. IEEE 69:14). Neighbours
- * beyond the grid or on nodata take the centre's value, as `gdaldem -compute_edges` does; a
- * nodata centre gives NaN. Δx, Δy are the grid's cell sizes, so the grid must be in metres.
+ * beyond the grid are extrapolated and nodata neighbours take the centre's value (`edgeWindow`),
+ * so edge cells get a slope as with `gdaldem -compute_edges`; a nodata centre gives NaN. Δx, Δy are the grid's cell sizes, so the grid must be in metres.
  */
 export function hornGradient(z: Float32Array, grid: GridGeometry): Gradient {
   const { width: w, height: h } = grid;
@@ -42,11 +42,7 @@ export function hornGradient(z: Float32Array, grid: GridGeometry): Gradient {
         if (a !== a) a = e; if (b !== b) b = e; if (c !== c) c = e; if (d !== d) d = e;
         if (f !== f) f = e; if (g !== g) g = e; if (hh !== hh) hh = e; if (i !== i) i = e;
       } else {
-        const v = (rr: number, cc: number) => {
-          if (rr < 0 || rr >= h || cc < 0 || cc >= w) return e;
-          const x = z[rr * w + cc];
-          return x === x ? x : e;
-        };
+        const v = edgeWindow(z, w, h, row, col, e);
         a = v(row - 1, col - 1); b = v(row - 1, col); c = v(row - 1, col + 1);
         d = v(row, col - 1); f = v(row, col + 1);
         g = v(row + 1, col - 1); hh = v(row + 1, col); i = v(row + 1, col + 1);
@@ -56,6 +52,28 @@ export function hornGradient(z: Float32Array, grid: GridGeometry): Gradient {
     }
   }
   return { east, north };
+}
+
+/**
+ * Neighbours of an edge cell: those beyond the grid are extrapolated linearly from the two cells
+ * inside along the same column (or row), as `gdaldem -compute_edges` does on edges (exact on a
+ * plane, at corners too); nodata neighbours take the centre's value.
+ */
+function edgeWindow(z: Float32Array, w: number, h: number, row: number, col: number, centre: number): (rr: number, cc: number) => number {
+  const get = (rr: number, cc: number) => {
+    const x = z[rr * w + cc];
+    return x === x ? x : centre;
+  };
+  const inRow = (rr: number, cc: number) => {
+    if (cc >= 0 && cc < w) return get(rr, cc);
+    const beyond = cc < 0 ? col + 1 : col - 1;
+    return beyond >= 0 && beyond < w ? 2 * get(rr, col) - get(rr, beyond) : get(rr, col);
+  };
+  return (rr, cc) => {
+    if (rr >= 0 && rr < h) return inRow(rr, cc);
+    const beyond = rr < 0 ? row + 1 : row - 1;
+    return beyond >= 0 && beyond < h ? 2 * inRow(row, cc) - inRow(beyond, cc) : inRow(row, cc);
+  };
 }
 
 /** Slope angle in degrees from the gradient: atan √(gx² + gy²) (as gdaldem slope). */
