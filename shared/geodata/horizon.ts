@@ -10,11 +10,12 @@ export interface HorizonWork {
   lifted: Float64Array;
   cell: Int32Array;
   next: Int32Array;
+  slopes: Float64Array;
 }
 
 export function horizonWork(grid: GridGeometry): HorizonWork {
   const n = Math.max(grid.width, grid.height) + 2;
-  return { position: new Float64Array(n), lifted: new Float64Array(n), cell: new Int32Array(n), next: new Int32Array(n) };
+  return { position: new Float64Array(n), lifted: new Float64Array(n), cell: new Int32Array(n), next: new Int32Array(n), slopes: new Float64Array(n) };
 }
 
 /**
@@ -47,7 +48,7 @@ export function horizonTangents(z: Float32Array, grid: GridGeometry, azimuthDeg:
   // minor-index change per step (row index grows southward)
   const slope = alongColumns ? (-northward * grid.dx) / (grid.dy * Math.abs(east)) : (east * grid.dy) / (grid.dx * Math.abs(northward));
   const kappa = curvature ? CURVATURE_REFRACTION / (2 * EARTH_RADIUS_M) : 0;
-  const { position, lifted, cell, next } = work;
+  const { position, lifted, cell, next, slopes } = work;
   out.fill(NaN);
 
   const span = slope * (majorCount - 1);
@@ -74,23 +75,37 @@ export function horizonTangents(z: Float32Array, grid: GridGeometry, azimuthDeg:
       n++;
     }
     if (n === 0) continue;
-    next[n - 1] = -1;
-    if (z[cell[n - 1]] === z[cell[n - 1]]) out[cell[n - 1]] = -Infinity;
-    for (let i = n - 2; i >= 0; i--) {
-      const xi = position[i];
-      const wi = lifted[i];
-      let j = i + 1;
-      let best = (lifted[j] - wi) / (position[j] - xi);
-      for (let k = next[j]; k >= 0; k = next[k]) {
-        const candidate = (lifted[k] - wi) / (position[k] - xi);
-        if (candidate < best) break;
-        best = candidate;
-        j = k;
-      }
-      next[i] = j;
+    profileHorizons(position, lifted, n, next, slopes);
+    for (let i = 0; i < n; i++) {
       const target = cell[i];
-      if (z[target] === z[target]) out[target] = best + 2 * kappa * xi;
+      if (z[target] === z[target]) out[target] = i === n - 1 ? -Infinity : slopes[i] + 2 * kappa * position[i];
     }
   }
 }
 
+
+/**
+ * Horizons along one profile of n points (positions increasing): for every point but the last,
+ * the steepest slope (z_j − z_i)/(x_j − x_i) to any point ahead, in `slopes`, and that point's
+ * index in `next`. Walking backwards, point i's horizon lies on the chain i + 1, next[i + 1], …
+ * (the upper convex hull of the points ahead), where the slope from i rises to its maximum and
+ * then falls (Dozier & Frew 1990), so the walk stops at the first fall.
+ */
+export function profileHorizons(position: Float64Array, height: Float64Array, n: number, next: Int32Array, slopes: Float64Array): void {
+  next[n - 1] = -1;
+  slopes[n - 1] = -Infinity;
+  for (let i = n - 2; i >= 0; i--) {
+    const xi = position[i];
+    const zi = height[i];
+    let j = i + 1;
+    let best = (height[j] - zi) / (position[j] - xi);
+    for (let k = next[j]; k >= 0; k = next[k]) {
+      const candidate = (height[k] - zi) / (position[k] - xi);
+      if (candidate < best) break;
+      best = candidate;
+      j = k;
+    }
+    next[i] = j;
+    slopes[i] = best;
+  }
+}
