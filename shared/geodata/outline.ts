@@ -111,7 +111,6 @@ function checkLongitudeLatitude(polygons: PolygonRings[], field: string): void {
 /** Ring areas and self-intersections: the checks every outline passes whatever file it came from. */
 export function checkPolygons(polygons: PolygonRings[], crs: Crs, field: string): void {
   polygons.forEach((polygon, p) => {
-    if (Math.abs(ringArea(polygon[0])) === 0) throw bad(field, `polygon ${p + 1}: the outer ring encloses no area.`);
     const crossing = findSelfIntersection(polygon);
     if (crossing) {
       const unit = crs.kind === 'geographic' ? '° (longitude, latitude)' : ` ${crs.linearUnit}s (x, y)`;
@@ -121,6 +120,7 @@ export function checkPolygons(polygons: PolygonRings[], crs: Crs, field: string)
         'A polygon that crosses itself (a "bow-tie") has no clear inside; repair its geometry in your GIS and upload it again.',
         field, { x: crossing.x, y: crossing.y, polygon: p + 1 });
     }
+    if (Math.abs(ringArea(polygon[0])) === 0) throw bad(field, `polygon ${p + 1}: the outer ring encloses no area.`);
   });
 }
 
