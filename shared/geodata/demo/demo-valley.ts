@@ -2,7 +2,7 @@ import { crsFromEpsg, utmCrsFor } from '../crs';
 import { ringArea, type PolygonRings, type Ring } from '../outline';
 import { rasterizePolygons } from '../rasterize';
 import { cellCentreX, cellCentreY, type GridGeometry, type Raster } from '../raster';
-import { pointTransform } from '../reproject';
+import { gridCoordinateRows, pointTransform } from '../reproject';
 import type { SnowClassCodes } from '../snow-cover';
 import { hornGradient } from '../terrain';
 import { traceMask } from '../trace';
@@ -135,12 +135,9 @@ function shapeField(grid: GridGeometry, ring: Ring, inside: Uint8Array, seed: nu
   const along = new Float32Array(n);
   const [ox, oy] = ring.reduce((best, p) => (p[1] > best[1] ? p : best), ring[0]);
   const southY = ring.reduce((m, p) => Math.min(m, p[1]), Infinity);
-  const distance = new Float32Array(n);
+  const distance = latticeDistances(grid, ring);
   let deepest = 0;
-  for (let i = 0; i < n; i++) {
-    distance[i] = distanceToRing(ring, cellCentreX(grid, i % grid.width), cellCentreY(grid, Math.floor(i / grid.width)));
-    if (inside[i]) deepest = Math.max(deepest, distance[i]);
-  }
+  for (let i = 0; i < n; i++) if (inside[i]) deepest = Math.max(deepest, distance[i]);
   const rough = valueNoise(seed, 2600, 5);
   for (let i = 0; i < n; i++) {
     const x = cellCentreX(grid, i % grid.width);
@@ -154,6 +151,27 @@ function shapeField(grid: GridGeometry, ring: Ring, inside: Uint8Array, seed: nu
     f[i] = 0.55 * t ** 0.85 + 0.45 * r * notch + 0.06 * rough(x, y);
   }
   return { f, ridge, along };
+}
+
+/** Distance of every cell centre to the outline, computed exactly every fourth cell and interpolated between (distance varies smoothly). */
+function latticeDistances(grid: GridGeometry, ring: Ring): Float32Array {
+  const step = 4;
+  const cols = Math.ceil(grid.width / step) + 1;
+  const rows = Math.ceil(grid.height / step) + 1;
+  const lattice = new Float32Array(cols * rows);
+  for (let j = 0; j < rows; j++) for (let i = 0; i < cols; i++) lattice[j * cols + i] = distanceToRing(ring, cellCentreX(grid, i * step), cellCentreY(grid, j * step));
+  const out = new Float32Array(grid.width * grid.height);
+  for (let r = 0; r < grid.height; r++) {
+    const j = Math.floor(r / step);
+    const ty = (r - j * step) / step;
+    for (let c = 0; c < grid.width; c++) {
+      const i = Math.floor(c / step);
+      const tx = (c - i * step) / step;
+      const at = (jj: number, ii: number) => lattice[jj * cols + ii];
+      out[r * grid.width + c] = (1 - ty) * ((1 - tx) * at(j, i) + tx * at(j, i + 1)) + ty * ((1 - tx) * at(j + 1, i) + tx * at(j + 1, i + 1));
+    }
+  }
+  return out;
 }
 
 function distanceToRing(ring: Ring, x: number, y: number): number {
@@ -178,18 +196,23 @@ function noiseField(grid: GridGeometry, seed: number, scaleM: number, combine: (
 function snowMaps(dem: Raster, seed: number): { date: string; raster: Raster }[] {
   const wgs84 = crsFromEpsg(4326, 'snowCover');
   const toLonLat = pointTransform(dem.crs, wgs84);
-  const toUtm = pointTransform(wgs84, dem.crs);
   const [west, north] = toLonLat(dem.x0, dem.y0);
   const [east, south] = toLonLat(dem.x0 + dem.width * dem.dx, dem.y0 - dem.height * dem.dy);
   const step = 0.0005;
   const grid: GridGeometry = { x0: west, y0: north, dx: step, dy: step, width: Math.ceil((east - west) / step), height: Math.ceil((north - south) / step) };
   const gradient = hornGradient(dem.values, dem);
   const patch = valueNoise(seed + 41, 600, 3);
+  // UTM position of every snow-map cell, once for all dates
+  const utmX = new Float64Array(grid.width * grid.height);
+  const utmY = new Float64Array(grid.width * grid.height);
+  const rowCoordinates = gridCoordinateRows(grid, pointTransform(wgs84, dem.crs), dem.dx / 20);
+  for (let r = 0; r < grid.height; r++) rowCoordinates(r, utmX.subarray(r * grid.width, (r + 1) * grid.width), utmY.subarray(r * grid.width, (r + 1) * grid.width));
   return SNOW_DATES.map(([date, snowLine, cloudCover], d) => {
     const cloud = valueNoise(seed + 50 + d, 4000, 4);
     const values = new Float32Array(grid.width * grid.height);
     for (let i = 0; i < values.length; i++) {
-      const [x, y] = toUtm(cellCentreX(grid, i % grid.width), cellCentreY(grid, Math.floor(i / grid.width)));
+      const x = utmX[i];
+      const y = utmY[i];
       const col = Math.floor((x - dem.x0) / dem.dx);
       const row = Math.floor((dem.y0 - y) / dem.dy);
       if (col < 0 || row < 0 || col >= dem.width || row >= dem.height) { values[i] = 255; continue; }
