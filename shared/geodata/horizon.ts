@@ -11,11 +11,14 @@ export interface HorizonWork {
   cell: Int32Array;
   next: Int32Array;
   slopes: Float64Array;
+  /** The same profile walked the other way. */
+  positionBack: Float64Array;
+  liftedBack: Float64Array;
 }
 
 export function horizonWork(grid: GridGeometry): HorizonWork {
   const n = Math.max(grid.width, grid.height) + 2;
-  return { position: new Float64Array(n), lifted: new Float64Array(n), cell: new Int32Array(n), next: new Int32Array(n), slopes: new Float64Array(n) };
+  return { position: new Float64Array(n), lifted: new Float64Array(n), cell: new Int32Array(n), next: new Int32Array(n), slopes: new Float64Array(n), positionBack: new Float64Array(n), liftedBack: new Float64Array(n) };
 }
 
 /**
@@ -31,8 +34,11 @@ export function horizonWork(grid: GridGeometry): HorizonWork {
  * makes a profile of n points cost about n steps instead of n². Earth curvature and refraction
  * lower distant terrain by c·d²/2R (c = 0.85714, as gdal_viewshed); writing z′ = z − c·x²/2R in
  * line coordinates keeps the hull search exact and adds c·xᵢ/R to the tangent.
+ *
+ * With `opposite`, the horizons towards azimuth + 180° are written there from the same profiles
+ * walked the other way, which saves sampling the grid twice.
  */
-export function horizonTangents(z: Float32Array, grid: GridGeometry, azimuthDeg: number, out: Float32Array, work = horizonWork(grid), curvature = true): void {
+export function horizonTangents(z: Float32Array, grid: GridGeometry, azimuthDeg: number, out: Float32Array, work = horizonWork(grid), curvature = true, opposite?: Float32Array): void {
   const { width: w, height: h } = grid;
   const phi = (azimuthDeg * Math.PI) / 180;
   const east = Math.sin(phi);
@@ -50,13 +56,24 @@ export function horizonTangents(z: Float32Array, grid: GridGeometry, azimuthDeg:
   const kappa = curvature ? CURVATURE_REFRACTION / (2 * EARTH_RADIUS_M) : 0;
   const { position, lifted, cell, next, slopes } = work;
   out.fill(NaN);
+  opposite?.fill(NaN);
+  const { positionBack, liftedBack } = work;
 
   const span = slope * (majorCount - 1);
   const firstOffset = Math.ceil(-0.5 - Math.max(0, span)) - 1;
   const lastOffset = Math.floor(minorCount - 0.5 - Math.min(0, span)) + 1;
   for (let offset = firstOffset; offset <= lastOffset; offset++) {
     let n = 0;
-    for (let s = 0; s < majorCount; s++) {
+    // the steps whose minor coordinate lies on the grid, −0.5 ≤ q < minorCount − 0.5
+    let first = 0;
+    let last = majorCount - 1;
+    if (slope !== 0) {
+      const a = (-0.5 - offset) / slope;
+      const b = (minorCount - 0.5 - offset) / slope;
+      first = Math.max(0, Math.floor(Math.min(a, b)));
+      last = Math.min(majorCount - 1, Math.ceil(Math.max(a, b)));
+    }
+    for (let s = first; s <= last; s++) {
       const q = offset + slope * s;
       if (q < -0.5 || q >= minorCount - 0.5) continue;
       const major = dir > 0 ? s : majorCount - 1 - s;
@@ -79,6 +96,17 @@ export function horizonTangents(z: Float32Array, grid: GridGeometry, azimuthDeg:
     for (let i = 0; i < n; i++) {
       const target = cell[i];
       if (z[target] === z[target]) out[target] = i === n - 1 ? -Infinity : slopes[i] + 2 * kappa * position[i];
+    }
+    if (!opposite) continue;
+    // walking back: x′ = −x keeps positions increasing, and z − κx² is the same for ±x
+    for (let i = 0; i < n; i++) {
+      positionBack[i] = -position[n - 1 - i];
+      liftedBack[i] = lifted[n - 1 - i];
+    }
+    profileHorizons(positionBack, liftedBack, n, next, slopes);
+    for (let i = 0; i < n; i++) {
+      const target = cell[n - 1 - i];
+      if (z[target] === z[target]) opposite[target] = i === n - 1 ? -Infinity : slopes[i] + 2 * kappa * positionBack[i];
     }
   }
 }

@@ -40,14 +40,19 @@ export function terrainShading(z: Float32Array, grid: GridGeometry, gradient: Gr
   if (!Number.isInteger(sectors) || sectors < 8 || sectors > 72) throw new RangeError('sectors must be a whole number from 8 to 72');
   const cells = listZoneCells(zone);
   const { east, north } = gradient;
-  // per cell, once: 1/√(1 + g²) = cos S, the zone, the weight
-  const cosSlope = new Float32Array(cells.length);
-  const zoneOf = new Int32Array(cells.length);
-  const weightOf = new Float32Array(cells.length);
+  // per cell, once and in cell order: gradient, 1/√(1 + g²) = cos S, the zone's histogram row, the weight
+  const n = cells.length;
+  const gxOf = new Float32Array(n);
+  const gyOf = new Float32Array(n);
+  const cosSlope = new Float32Array(n);
+  const zoneOf = new Int32Array(n);
+  const weightOf = new Float32Array(n);
   const svfSum = new Float64Array(zoneCount);
   const weightSum = new Float64Array(zoneCount);
-  for (let c = 0; c < cells.length; c++) {
+  for (let c = 0; c < n; c++) {
     const i = cells[c];
+    gxOf[c] = east[i];
+    gyOf[c] = north[i];
     cosSlope[c] = 1 / Math.sqrt(1 + east[i] * east[i] + north[i] * north[i]);
     zoneOf[c] = zone[i];
     weightOf[c] = options.weight ? options.weight[i] : 1;
@@ -60,29 +65,41 @@ export function terrainShading(z: Float32Array, grid: GridGeometry, gradient: Gr
   const bins = histogram.bins;
   const binsPerRadian = 180 / Math.PI / HORIZON_BIN_DEG;
   const zeroBin = 90 / HORIZON_BIN_DEG;
-  for (let k = 0; k < sectors; k++) {
+  const svfPerCell = new Float64Array(n);
+  const accumulate = (k: number, tangent: Float32Array) => {
     const azimuth = (k * 360) / sectors;
-    horizonTangents(z, grid, azimuth, tangents, work, options.curvature ?? true);
     const sinA = Math.sin((azimuth * Math.PI) / 180);
     const cosA = Math.cos((azimuth * Math.PI) / 180);
-    for (let c = 0; c < cells.length; c++) {
-      const i = cells[c];
-      const plane = east[i] * sinA + north[i] * cosA;
-      let t = tangents[i];
+    const rowOffset = k * bins;
+    const zoneStride = sectors * bins;
+    for (let c = 0; c < n; c++) {
+      const plane = gxOf[c] * sinA + gyOf[c] * cosA;
+      let t = tangent[cells[c]];
       if (!(t > -Infinity)) t = 0; // no terrain ahead inside the DEM (or unknown): an open, level horizon
       if (t < plane) t = plane;
       const h = fastAtan(t);
       const cos2h = 1 / (1 + t * t);
       // viewFactorTerm, inlined for speed
-      const w = weightOf[c];
-      const zi = zoneOf[c];
-      svfSum[zi] += w * (cos2h - plane * (HALF_PI - h - t * cos2h)) * cosSlope[c];
-      let bin = Math.floor(h * binsPerRadian + zeroBin);
+      svfPerCell[c] += (cos2h - plane * (HALF_PI - h - t * cos2h)) * cosSlope[c];
+      let bin = (h * binsPerRadian + zeroBin) | 0;
       if (bin >= bins) bin = bins - 1;
-      counts[(zi * sectors + k) * bins + bin] += w;
+      counts[zoneOf[c] * zoneStride + rowOffset + bin] += weightOf[c];
     }
-    options.onSector?.(k);
+  };
+  // sectors k and k + n/2 look along the same profiles in opposite directions: one pass serves both
+  const half = sectors % 2 === 0 ? sectors / 2 : 0;
+  const back = half ? new Float32Array(z.length) : null;
+  let done = 0;
+  for (let k = 0; k < (half || sectors); k++) {
+    horizonTangents(z, grid, (k * 360) / sectors, tangents, work, options.curvature ?? true, back ?? undefined);
+    accumulate(k, tangents);
+    options.onSector?.(done++);
+    if (back) {
+      accumulate(k + half, back);
+      options.onSector?.(done++);
+    }
   }
+  for (let c = 0; c < n; c++) svfSum[zoneOf[c]] += svfPerCell[c] * weightOf[c];
   const skyViewFactor = Array.from(svfSum, (s, zi) => (weightSum[zi] > 0 ? Math.min(1, Math.max(0, s / sectors / weightSum[zi])) : NaN));
   const horizonDeg = Array.from({ length: zoneCount }, (_, zi) =>
     Array.from({ length: sectors }, (_, k) => monotone(histogram.percentiles(zi * sectors + k, HORIZON_PERCENTILES))));
