@@ -2,24 +2,13 @@ import { describe, expect, it } from 'vitest';
 import { bandSchema } from '../melt/schema';
 import { crsFromEpsg } from './crs';
 import { deriveCatchment } from './derive';
-import { GeodataError } from './errors';
 import { pointTransform } from './reproject';
 import { terrainFieldsSchema } from './terrain-fields';
-import { boxOutline, coneDem } from './test-terrain';
+import { boxOutline, coneDem, refusal } from './test-fixtures';
 import type { Raster } from './raster';
 
 const dem = coneDem();
 const whole = boxOutline(15, 15, 5985, 5985, dem);
-
-function refusal(run: () => unknown): GeodataError {
-  try {
-    run();
-  } catch (error) {
-    if (error instanceof GeodataError) return error;
-    throw error;
-  }
-  throw new Error('expected a refusal');
-}
 
 describe('bands from a DEM and outlines', () => {
   const derived = deriveCatchment({ dem, catchment: whole }, { bandWidthM: 200, horizonSectors: 8 });

@@ -6,7 +6,7 @@ import { GeodataError } from './errors';
 import type { Raster } from './raster';
 import { snowCoverByBand } from './snow-cover';
 import { pointTransform } from './reproject';
-import { boxOutline, coneDem, UTM44N } from './test-terrain';
+import { boxOutline, coneDem, UTM44N } from './test-fixtures';
 
 /**
  * Snow cover and elevation change on synthetic rasters with known answers: a cone DEM split into

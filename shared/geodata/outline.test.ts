@@ -1,17 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { crsFromGeoKeys, crsFromText } from './crs';
-import { GeodataError } from './errors';
 import { outlineArea, outlineFromGeoJson } from './outline';
-
-function refusal(run: () => unknown): GeodataError {
-  try {
-    run();
-  } catch (error) {
-    if (error instanceof GeodataError) return error;
-    throw error;
-  }
-  throw new Error('expected a refusal');
-}
+import { refusal } from './test-fixtures';
 
 const square = (x: number, y: number, s: number) => [[x, y], [x + s, y], [x + s, y + s], [x, y + s], [x, y]];
 

@@ -3,7 +3,7 @@ import { seededRandom } from '../analysis/random';
 import { checkPolygons, outlineArea } from './outline';
 import { countMarked, rasterizePolygons } from './rasterize';
 import { traceMask } from './trace';
-import { UTM44N } from './test-terrain';
+import { UTM44N } from './test-fixtures';
 
 describe('tracing masks into polygons', () => {
   const grid = { width: 60, height: 50, x0: 500_000, y0: 3_700_000, dx: 30, dy: 30 };

@@ -15,24 +15,24 @@ export function storeZip(files: { name: string; data: Buffer; claimSize?: number
     const size = file.claimSize ?? file.data.length;
     const packed = file.deflate ? deflateRawSync(file.data) : file.data;
     const method = file.deflate ? 8 : 0;
+    // the local header and the central directory hold the same fields, at offsets 2 apart
+    const describe = (header: Buffer, at: number) => {
+      header.writeUInt16LE(method, at - 6);
+      header.writeUInt32LE(crc, at);
+      header.writeUInt32LE(packed.length, at + 4);
+      header.writeUInt32LE(size, at + 8);
+      header.writeUInt16LE(name.length, at + 12);
+    };
     const local = Buffer.alloc(30);
     local.writeUInt32LE(0x04034b50, 0);
     local.writeUInt16LE(20, 4);
-    local.writeUInt16LE(method, 8);
-    local.writeUInt32LE(crc, 14);
-    local.writeUInt32LE(packed.length, 18);
-    local.writeUInt32LE(size, 22);
-    local.writeUInt16LE(name.length, 26);
+    describe(local, 14);
     locals.push(local, name, packed);
     const central = Buffer.alloc(46);
     central.writeUInt32LE(0x02014b50, 0);
     central.writeUInt16LE(20, 4);
     central.writeUInt16LE(20, 6);
-    central.writeUInt16LE(method, 10);
-    central.writeUInt32LE(crc, 16);
-    central.writeUInt32LE(packed.length, 20);
-    central.writeUInt32LE(size, 24);
-    central.writeUInt16LE(name.length, 28);
+    describe(central, 16);
     central.writeUInt32LE(offset, 42);
     centrals.push(central, name);
     offset += 30 + name.length + packed.length;

@@ -1,8 +1,9 @@
 import { crsFromEpsg } from './crs';
+import { GeodataError } from './errors';
 import type { Outline } from './outline';
 import type { Raster } from './raster';
 
-/** Shared fixtures for the geodata unit tests: a cone-shaped mountain on a 30 m UTM grid and square outlines. */
+/** Shared fixtures for the geodata unit tests: a cone-shaped mountain on a 30 m UTM grid, box outlines, refusals. */
 export const UTM44N = crsFromEpsg(32644, 'dem');
 export const ORIGIN = { x0: 560_010, y0: 3_760_020 };
 
@@ -27,4 +28,15 @@ export function boxOutline(fromX: number, fromY: number, toX: number, toY: numbe
     crs: dem.crs,
     polygons: [[[[x0 + fromX, y0 - toY], [x0 + toX, y0 - toY], [x0 + toX, y0 - fromY], [x0 + fromX, y0 - fromY], [x0 + fromX, y0 - toY]]]],
   };
+}
+
+/** Runs `run` and returns the GeodataError it throws; fails the test when it throws nothing or something else. */
+export function refusal(run: () => unknown): GeodataError {
+  try {
+    run();
+  } catch (error) {
+    if (error instanceof GeodataError) return error;
+    throw error;
+  }
+  throw new Error('expected a refusal');
 }
