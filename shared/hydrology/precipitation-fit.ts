@@ -71,39 +71,46 @@ export interface PeakedFitOptions {
 
 interface PeakedCandidate {
   zp: number;
+  /** Value of the rising line at the reference elevation, mm. */
   amount: number;
   gb: number;
   da: number;
   ssr: number;
 }
 
-/** Least-squares fit of amount, gb, da (the free ones) for a given peak elevation; null when undetermined. */
-function fitAtPeak(points: readonly ProfilePoint[], zp: number, fixed: PeakedFitOptions): PeakedCandidate | null {
-  const freeGb = fixed.gradientBelowPerKm === undefined;
-  const freeDa = fixed.decreaseAbovePerKm === undefined;
-  // P = α·c(z) − β·(zp − z)₊ − γ·(z − zp)₊, linear in α, β = α gb/1000, γ = α da/1000.
+/**
+ * Least-squares fit of amount, gb, da (the free ones) for a given peak elevation; null when
+ * undetermined. With L = min(z, zp) − zref and A = max(z − zp, 0), the model
+ *   P = α (1 + gb L/1000)(1 − da A/1000)
+ * is linear in α, β = α gb/1000 and γ = P(zp) da/1000 when da is free: P = α + β L − γ A.
+ */
+function fitAtPeak(points: readonly ProfilePoint[], zp: number, zRef: number, fixed: PeakedFitOptions): PeakedCandidate | null {
+  const gbFixed = fixed.gradientBelowPerKm;
+  const daFixed = fixed.decreaseAbovePerKm;
   const rows = points.map(({ elevationM: z }) => {
-    const below = z <= zp ? zp - z : 0;
-    const above = z > zp ? z - zp : 0;
-    const alphaColumn = 1 - (freeGb ? 0 : (fixed.gradientBelowPerKm! * below) / 1000) - (freeDa ? 0 : (fixed.decreaseAbovePerKm! * above) / 1000);
-    return [alphaColumn, ...(freeGb ? [-below] : []), ...(freeDa ? [-above] : [])];
+    const rise = Math.min(z, zp) - zRef;
+    const above = Math.max(z - zp, 0);
+    const fall = daFixed === undefined ? 1 : 1 - (daFixed * above) / 1000;
+    const alphaColumn = (gbFixed === undefined ? 1 : 1 + (gbFixed * rise) / 1000) * fall;
+    return [alphaColumn, ...(gbFixed === undefined ? [rise * fall] : []), ...(daFixed === undefined ? [-above] : [])];
   });
   const solution = leastSquares(rows, points.map((p) => p.precipitationMm));
   if (!solution) return null;
   const [amount, ...rest] = solution.coefficients;
   if (!(amount > 0)) return null;
-  const gb = freeGb ? (1000 * rest[0]) / amount : fixed.gradientBelowPerKm!;
-  const da = freeDa ? (1000 * rest[freeGb ? 1 : 0]) / amount : fixed.decreaseAbovePerKm!;
+  const gb = gbFixed ?? (1000 * rest[0]) / amount;
+  const peakAmount = amount * (1 + (gb * (zp - zRef)) / 1000);
+  if (!(peakAmount > 0)) return null;
+  const da = daFixed ?? (1000 * rest[gbFixed === undefined ? 1 : 0]) / peakAmount;
   return { zp, amount, gb, da, ssr: solution.residualSumOfSquares };
 }
 
-function modelled(c: PeakedCandidate, z: number): number {
-  const s = z <= c.zp ? 1 - (c.gb * (c.zp - z)) / 1000 : 1 - (c.da * (z - c.zp)) / 1000;
-  return c.amount * s;
+function modelled(c: PeakedCandidate, zRef: number, z: number): number {
+  return c.amount * (1 + (c.gb * (Math.min(z, c.zp) - zRef)) / 1000) * (1 - (c.da * Math.max(z - c.zp, 0)) / 1000);
 }
 
 /** Golden-section refinement of the peak elevation between two candidates. */
-function refinePeak(points: readonly ProfilePoint[], lo: number, hi: number, fixed: PeakedFitOptions): PeakedCandidate | null {
+function refinePeak(points: readonly ProfilePoint[], lo: number, hi: number, zRef: number, fixed: PeakedFitOptions): PeakedCandidate | null {
   const ratio = (Math.sqrt(5) - 1) / 2;
   let a = lo;
   let b = hi;
@@ -111,8 +118,8 @@ function refinePeak(points: readonly ProfilePoint[], lo: number, hi: number, fix
   for (let i = 0; i < 40 && b - a > 0.01; i++) {
     const c = b - ratio * (b - a);
     const d = a + ratio * (b - a);
-    const fc = fitAtPeak(points, c, fixed);
-    const fd = fitAtPeak(points, d, fixed);
+    const fc = fitAtPeak(points, c, zRef, fixed);
+    const fd = fitAtPeak(points, d, zRef, fixed);
     if (fc && (!best || fc.ssr < best.ssr)) best = fc;
     if (fd && (!best || fd.ssr < best.ssr)) best = fd;
     if ((fc?.ssr ?? Infinity) < (fd?.ssr ?? Infinity)) b = d;
@@ -123,7 +130,7 @@ function refinePeak(points: readonly ProfilePoint[], lo: number, hi: number, fix
 
 /**
  * Peaked profile (see PrecipitationProfile) fitted to station precipitation by least squares:
- * for a given peak elevation the model is linear in the peak amount and the two gradients, so
+ * for a given peak elevation the model is linear in the amount and the two gradients, so
  * those are solved exactly; the peak elevation is searched between the lowest and highest
  * station (a peak above every station cannot be located from stations — fix it, or find it from
  * the water balance) and refined by golden section. Standard errors from the linearised model,
@@ -142,7 +149,7 @@ export function fitPeakedProfile(points: readonly ProfilePoint[], referenceM: nu
   ];
   const parameterCount = free.length + 1;
   if (points.length < parameterCount) {
-    refuse(path, `the peaked profile has ${parameterCount} parameters to fit (the peak amount${free.length ? ' and ' + free.map(plainName).join(', ') : ''}), so it needs at least ${parameterCount} stations; there ${points.length === 1 ? 'is 1' : `are ${points.length}`}. Fix some parameters or use the linear profile.`);
+    refuse(path, `the peaked profile has ${parameterCount} parameters to fit (the amount${free.length ? ' and ' + free.map(plainName).join(', ') : ''}), so it needs at least ${parameterCount} stations; there ${points.length === 1 ? 'is 1' : `are ${points.length}`}. Fix some parameters or use the linear profile.`);
   }
   const elevations = points.map((p) => p.elevationM);
   const lowest = Math.min(...elevations);
@@ -150,21 +157,21 @@ export function fitPeakedProfile(points: readonly ProfilePoint[], referenceM: nu
   let best: PeakedCandidate | null = null;
   let edge = false;
   if (fixed.peakElevationM !== undefined) {
-    best = fitAtPeak(points, fixed.peakElevationM, fixed);
+    best = fitAtPeak(points, fixed.peakElevationM, referenceM, fixed);
   } else {
     const step = fixed.searchStepM ?? 10;
     let bestIndex = -1;
     const candidates: number[] = [];
     for (let z = lowest; z <= highest + 1e-9; z += step) candidates.push(Math.min(z, highest));
     candidates.forEach((zp, i) => {
-      const c = fitAtPeak(points, zp, fixed);
+      const c = fitAtPeak(points, zp, referenceM, fixed);
       if (c && (!best || c.ssr < best.ssr)) {
         best = c;
         bestIndex = i;
       }
     });
     if (best && bestIndex >= 0) {
-      best = refinePeak(points, candidates[Math.max(0, bestIndex - 1)], candidates[Math.min(candidates.length - 1, bestIndex + 1)], fixed) ?? best;
+      best = refinePeak(points, candidates[Math.max(0, bestIndex - 1)], candidates[Math.min(candidates.length - 1, bestIndex + 1)], referenceM, fixed) ?? best;
       edge = bestIndex === 0 || bestIndex === candidates.length - 1;
     }
   }
@@ -184,8 +191,8 @@ export function fitPeakedProfile(points: readonly ProfilePoint[], referenceM: nu
   }
   return {
     profile,
-    referencePrecipitationMm: modelled(fit, referenceM),
-    standardErrors: standardErrors(points, fit, free, dof),
+    referencePrecipitationMm: modelled(fit, referenceM, referenceM),
+    standardErrors: standardErrors(points, fit, referenceM, free, dof),
     r2: sst > 0 ? 1 - fit.ssr / sst : 1,
     n,
     status: 'fitted',
@@ -205,7 +212,7 @@ const CANDIDATE_KEY = { peakElevationM: 'zp', gradientBelowPerKm: 'gb', decrease
 const DIFFERENCE_STEP = { amount: 1e-4, zp: 1, gb: 1e-4, da: 1e-4 } as const;
 
 /** Linearised standard errors of the free parameters, by central differences of the model. */
-function standardErrors(points: readonly ProfilePoint[], fit: PeakedCandidate, free: ProfileParameter[], dof: number): Partial<Record<ProfileParameter, number | null>> {
+function standardErrors(points: readonly ProfilePoint[], fit: PeakedCandidate, zRef: number, free: ProfileParameter[], dof: number): Partial<Record<ProfileParameter, number | null>> {
   const out: Partial<Record<ProfileParameter, number | null>> = {};
   if (dof === 0) {
     for (const name of free) out[name] = null;
@@ -214,7 +221,7 @@ function standardErrors(points: readonly ProfilePoint[], fit: PeakedCandidate, f
   const keys = ['amount', ...free.map((f) => CANDIDATE_KEY[f])] as const;
   const jacobian = points.map(({ elevationM: z }) => keys.map((k) => {
     const h = k === 'amount' ? fit.amount * DIFFERENCE_STEP.amount : DIFFERENCE_STEP[k];
-    return (modelled({ ...fit, [k]: fit[k] + h }, z) - modelled({ ...fit, [k]: fit[k] - h }, z)) / (2 * h);
+    return (modelled({ ...fit, [k]: fit[k] + h }, zRef, z) - modelled({ ...fit, [k]: fit[k] - h }, zRef, z)) / (2 * h);
   }));
   const covariance = invert(normalMatrix(jacobian));
   const variance = fit.ssr / dof;

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { checkProfile, precipitationMultiplier, type PrecipitationProfile } from './precipitation-profile';
 
 const bands = [{ lowerM: 2400, upperM: 3400, areaKm2: 10 }, { lowerM: 3400, upperM: 5900, areaKm2: 20 }];
-const peaked: PrecipitationProfile = { kind: 'peaked', peakElevationM: 5000, gradientBelowPerKm: 0.25, decreaseAbovePerKm: 0.5 };
+const peaked: PrecipitationProfile = { kind: 'peaked', peakElevationM: 5000, gradientBelowPerKm: 0.5, decreaseAbovePerKm: 0.5 };
 
 describe('precipitation profiles (hand-worked from the profile definitions)', () => {
   it('linear: 1 + g Δz, the engine form: +50 % per km at 1 km above the station, floored at 0 far below', () => {
@@ -10,11 +10,16 @@ describe('precipitation profiles (hand-worked from the profile definitions)', ()
     expect(precipitationMultiplier({ kind: 'linear', gradientPerKm: 0.5 }, 0, 2500)).toBe(0);
   });
 
-  it('peaked: s(zref) = 1 − 0.25·2 = 0.5, so the peak gets 2× the station and 1 km above it 0.5/0.5 = 1×', () => {
+  it('peaked: +50 % per km from the station at 3000 m to the peak at 5000 m (2×), then −50 % of the peak per km (1× at 6000 m)', () => {
     expect(precipitationMultiplier(peaked, 5000, 3000)).toBeCloseTo(2, 12);
     expect(precipitationMultiplier(peaked, 6000, 3000)).toBeCloseTo(1, 12);
     expect(precipitationMultiplier(peaked, 4000, 3000)).toBeCloseTo(1.5, 12);
     expect(precipitationMultiplier(peaked, 3000, 3000)).toBe(1);
+  });
+
+  it('a station above the peak: the multiplier is still 1 there and the peak the wettest', () => {
+    expect(precipitationMultiplier(peaked, 5500, 5500)).toBe(1);
+    expect(precipitationMultiplier(peaked, 5000, 5500)).toBeCloseTo(1 / 0.75, 12);
   });
 
   it('the profile rises to the peak and falls above it', () => {
@@ -29,8 +34,8 @@ describe('precipitation profiles (hand-worked from the profile definitions)', ()
   });
 
   it('refuses a gradient outside its range and a shape dry at the reference station', () => {
-    expect(() => checkProfile({ ...peaked, gradientBelowPerKm: 2 }, bands, 3000, 'p')).toThrow(/p.gradientBelowPerKm: The gradient below the peak is 2 per km/);
-    expect(() => checkProfile({ ...peaked, peakElevationM: 5800, gradientBelowPerKm: 0.8 }, bands, 2400, 'p')).toThrow(/no precipitation at the reference station/);
+    expect(() => checkProfile({ ...peaked, gradientBelowPerKm: 5 }, bands, 3000, 'p')).toThrow(/p.gradientBelowPerKm: The gradient below the peak is 5 per km/);
+    expect(() => checkProfile({ ...peaked, peakElevationM: 2500, decreaseAbovePerKm: 0.8 }, bands, 4000, 'p')).toThrow(/p.decreaseAbovePerKm: with this decrease above the peak the profile gives no precipitation at the reference station/);
     expect(() => checkProfile({ kind: 'linear', gradientPerKm: 5 }, bands, 3000, 'p')).toThrow(/p.gradientPerKm/);
   });
 });

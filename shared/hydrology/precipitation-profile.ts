@@ -6,8 +6,10 @@ import { catchmentRange, type ElevationBand } from './stations';
  * How precipitation changes with elevation, relative to the reference station.
  * - linear: P(z) = P(zref) · (1 + g (z − zref)/1000), the engine's own precipitation-gradient form;
  * - peaked: rises to a maximum at the peak elevation zp and decreases above it (piecewise linear):
- *     s(z) = 1 − gb (zp − z)/1000 below zp, s(z) = 1 − da (z − zp)/1000 above, floored at 0,
- *   where gb and da are fractions of the peak amount per km; the multiplier is s(z)/s(zref).
+ *     s(z) = max(0, 1 + gb (min(z, zp) − zref)/1000) · max(0, 1 − da max(z − zp, 0)/1000),
+ *   gb the rise below the peak as a fraction of the reference amount per km (the linear form up to
+ *   the peak), da the decrease above it as a fraction of the peak amount per km; the multiplier
+ *   is s(z)/s(zref) (= s(z) for a reference station below the peak).
  *   High Mountain Asia profiles peak around 4000–5500 m and decrease above (Immerzeel et al. 2015,
  *   HESS 19:4673; Dahri et al. 2016, Sci. Total Environ. 548:289) [memory].
  */
@@ -19,14 +21,15 @@ export type PrecipitationProfile =
 export const PROFILE_PARAMETERS = {
   gradientPerKm: { default: 0.5, min: -0.5, max: 2, unit: 'fraction km⁻¹', source: 'relative increase per km above the reference station; Alpine catchment models use 2–10 % per 100 m [memory]; negative in rain shadows; assumption for the range' },
   peakElevationM: { default: 5000, min: 1000, max: 8000, unit: 'm', source: 'elevation of maximum precipitation; ≈ 4000–5500 m in the Upper Indus and Himalaya (Immerzeel et al. 2015, HESS 19:4673; Dahri et al. 2016) [memory]; must lie within the bands' },
-  gradientBelowPerKm: { default: 0.25, min: 0, max: 0.8, unit: 'fraction of peak km⁻¹', source: 'decrease below the peak, as a fraction of the peak amount per km; inferred High Asian profiles give 2–4 × more at the peak than at valley stations (Immerzeel et al. 2015) [memory]; range an assumption' },
+  gradientBelowPerKm: { default: 0.5, min: 0, max: 3, unit: 'fraction km⁻¹', source: 'rise from the reference station to the peak, as a fraction of the reference amount per km; inferred High Asian profiles give 2–4 × more at altitude than at valley stations (Immerzeel et al. 2015) [memory]; range an assumption' },
   decreaseAbovePerKm: { default: 0.3, min: 0, max: 1.5, unit: 'fraction of peak km⁻¹', source: 'decrease above the peak, as a fraction of the peak amount per km (Immerzeel et al. 2015; Dahri et al. 2016) [memory]; range an assumption' },
 } as const satisfies Record<string, ParameterSpec>;
 
-/** Shape of a peaked profile, relative to the peak amount (1 at the peak, ≥ 0). */
-function peakedShape(zp: number, gb: number, da: number, z: number): number {
-  const s = z <= zp ? 1 - (gb * (zp - z)) / 1000 : 1 - (da * (z - zp)) / 1000;
-  return s > 0 ? s : 0;
+/** Unnormalised shape of a peaked profile (1 at the reference elevation when it lies below the peak, ≥ 0). */
+function peakedShape(zp: number, gb: number, da: number, zRef: number, z: number): number {
+  const rise = 1 + (gb * (Math.min(z, zp) - zRef)) / 1000;
+  const fall = 1 - (da * Math.max(z - zp, 0)) / 1000;
+  return rise > 0 && fall > 0 ? rise * fall : 0;
 }
 
 /**
@@ -34,7 +37,7 @@ function peakedShape(zp: number, gb: number, da: number, z: number): number {
  * @param z elevation, m
  * @param referenceM elevation of the reference station, m
  * @example precipitationMultiplier({ kind: 'linear', gradientPerKm: 0.5 }, 3000, 2000) // 1.5
- * @example precipitationMultiplier({ kind: 'peaked', peakElevationM: 5000, gradientBelowPerKm: 0.25, decreaseAbovePerKm: 0.5 }, 5000, 3000) // 2
+ * @example precipitationMultiplier({ kind: 'peaked', peakElevationM: 5000, gradientBelowPerKm: 0.5, decreaseAbovePerKm: 0.25 }, 6000, 3000) // 1.5
  */
 export function precipitationMultiplier(profile: PrecipitationProfile, z: number, referenceM: number): number {
   if (profile.kind === 'linear') {
@@ -42,8 +45,8 @@ export function precipitationMultiplier(profile: PrecipitationProfile, z: number
     return m > 0 ? m : 0;
   }
   const { peakElevationM: zp, gradientBelowPerKm: gb, decreaseAbovePerKm: da } = profile;
-  const atReference = peakedShape(zp, gb, da, referenceM);
-  return atReference > 0 ? peakedShape(zp, gb, da, z) / atReference : Number.NaN;
+  const atReference = peakedShape(zp, gb, da, referenceM, referenceM);
+  return atReference > 0 ? peakedShape(zp, gb, da, referenceM, z) / atReference : Number.NaN;
 }
 
 /**
@@ -66,6 +69,6 @@ export function checkProfile(profile: PrecipitationProfile, bands: readonly Elev
   requireInRange(profile.gradientBelowPerKm, spec.gradientBelowPerKm.min, spec.gradientBelowPerKm.max, `${path}.gradientBelowPerKm`, 'The gradient below the peak', 'per km');
   requireInRange(profile.decreaseAbovePerKm, spec.decreaseAbovePerKm.min, spec.decreaseAbovePerKm.max, `${path}.decreaseAbovePerKm`, 'The decrease above the peak', 'per km');
   if (!(precipitationMultiplier(profile, referenceM, referenceM) === 1)) {
-    refuse(`${path}.gradientBelowPerKm`, `with this gradient the profile gives no precipitation at the reference station (${referenceM} m).`);
+    refuse(`${path}.decreaseAbovePerKm`, `with this decrease above the peak the profile gives no precipitation at the reference station (${referenceM} m).`);
   }
 }
