@@ -1,5 +1,6 @@
 import type { ParameterSpec } from '../melt/parameters';
-import { HydrologyInputError, requireInRange, type HydrologyIssue } from './errors';
+import { HydrologyInputError, type HydrologyIssue } from './errors';
+import { checkParameters, defaultsOf, type ValuesOf } from './parameter-specs';
 import { bandMidM, type ElevationBand } from './stations';
 
 /**
@@ -20,11 +21,9 @@ export const AVALANCHE_PARAMETERS = {
   snowDensityKgM3: { default: 250, min: 100, max: 550, unit: 'kg m⁻³', source: 'density converting the holding depth to SWE; seasonal mountain snow ≈ 200–400 kg m⁻³ (common practice); assumption' },
 } as const satisfies Record<string, ParameterSpec>;
 
-export type AvalancheParameters = { [K in keyof typeof AVALANCHE_PARAMETERS]: number };
+export type AvalancheParameters = ValuesOf<typeof AVALANCHE_PARAMETERS>;
 
-export const DEFAULT_AVALANCHE_PARAMETERS: Readonly<AvalancheParameters> = Object.freeze(
-  Object.fromEntries(Object.entries(AVALANCHE_PARAMETERS).map(([k, v]) => [k, v.default])) as AvalancheParameters,
-);
+export const DEFAULT_AVALANCHE_PARAMETERS = defaultsOf(AVALANCHE_PARAMETERS);
 
 export interface AvalancheBand extends ElevationBand {
   /** Mean slope of the band, degrees. */
@@ -59,9 +58,7 @@ export function holdingCapacityMm(slopeDeg: number, params: AvalancheParameters)
  * @throws HydrologyInputError naming the band field or parameter that is out of range
  */
 export function planAvalanching(bands: readonly AvalancheBand[], params: AvalancheParameters = DEFAULT_AVALANCHE_PARAMETERS, releaseSlopeDeg?: ArrayLike<number>): AvalanchePlan {
-  for (const [name, spec] of Object.entries(AVALANCHE_PARAMETERS)) {
-    requireInRange(params[name as keyof AvalancheParameters], spec.min, spec.max, `avalanche.${name}`, 'The value');
-  }
+  checkParameters(AVALANCHE_PARAMETERS, params, 'avalanche');
   const issues: HydrologyIssue[] = [];
   if (releaseSlopeDeg && releaseSlopeDeg.length !== bands.length) issues.push({ path: 'releaseSlopeDeg', message: `${bands.length} slopes are needed, one per band; ${releaseSlopeDeg.length} were given.` });
   bands.forEach((b, i) => {
@@ -92,6 +89,7 @@ export function planAvalanching(bands: readonly AvalancheBand[], params: Avalanc
  * @param sweMm SWE per band, mm w.e. over the band area (changed in place)
  * @param netChangeMm filled with the day's change per band
  * @returns the snow moved out of bands, mm w.e. × km² (0 on a quiet day)
+ * @example const plan = planAvalanching(bands); const net = new Float64Array(bands.length); avalanche(plan, swe, net); // once per day
  */
 export function avalanche(plan: AvalanchePlan, sweMm: Float64Array, netChangeMm: Float64Array): number {
   const { order, receiver, holdingMm, areaKm2 } = plan;

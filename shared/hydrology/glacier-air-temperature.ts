@@ -1,5 +1,5 @@
 import type { ParameterSpec } from '../melt/parameters';
-import { requireInRange } from './errors';
+import { checkParameters } from './parameter-specs';
 
 /**
  * Air temperature over a melting glacier after Greuell & Böhm 1998 (J. Glaciol. 44:9) [memory]:
@@ -30,9 +30,7 @@ export const GLACIER_DAMPING_PARAMETERS = {
 
 /** Refuses damping parameters outside their documented ranges. */
 export function checkGlacierDamping(params: GlacierDampingParameters, path: string): void {
-  const spec = GLACIER_DAMPING_PARAMETERS;
-  requireInRange(params.lengthScaleM, spec.lengthScaleM.min, spec.lengthScaleM.max, `${path}.lengthScaleM`, 'The damping length scale', 'm');
-  requireInRange(params.flowlineGradient, spec.flowlineGradient.min, spec.flowlineGradient.max, `${path}.flowlineGradient`, 'The flowline gradient');
+  checkParameters(GLACIER_DAMPING_PARAMETERS, params, path);
 }
 
 /**

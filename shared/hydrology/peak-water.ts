@@ -39,6 +39,7 @@ export function movingMean(values: ArrayLike<number>, window: number): Float64Ar
  * @param years consecutive years
  * @param glacierRunoff annual glacier runoff per year (any unit, e.g. m³ or mm)
  * @throws HydrologyInputError when the series lengths differ or the years are not consecutive
+ * @example peakWater(rows.map((r) => r.year), rows.map((r) => r.glacierRunoffM3)) // { year: 2061, status: 'reached', … }
  */
 export function peakWater(years: ArrayLike<number>, glacierRunoff: ArrayLike<number>, window = 11): PeakWater {
   if (years.length !== glacierRunoff.length) refuse('glacierRunoff', `${years.length} years but ${glacierRunoff.length} values.`);

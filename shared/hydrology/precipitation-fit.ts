@@ -140,6 +140,7 @@ function refinePeak(points: readonly ProfilePoint[], lo: number, hi: number, zRe
  * @param referenceM elevation of the reference station, m
  * @param fixed parameters held fixed; the rest (and the peak amount) are fitted
  * @throws HydrologyInputError with fewer stations than parameters, or when the stations do not straddle the peak
+ * @example fitPeakedProfile(stations, 2200, { decreaseAbovePerKm: 0.4 }, 'stations').profile // { kind: 'peaked', peakElevationM: …, gradientBelowPerKm: …, decreaseAbovePerKm: 0.4 }
  */
 export function fitPeakedProfile(points: readonly ProfilePoint[], referenceM: number, fixed: PeakedFitOptions, path: string): ProfileFit {
   const free: ProfileParameter[] = [

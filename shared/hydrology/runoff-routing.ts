@@ -1,6 +1,7 @@
 import type { ParameterSpec } from '../melt/parameters';
 import { SOURCES, type Source } from '../melt/index';
-import { HydrologyInputError, requireInRange, type HydrologyIssue } from './errors';
+import { HydrologyInputError, type HydrologyIssue } from './errors';
+import { checkParameters, defaultsOf, type ValuesOf } from './parameter-specs';
 import { reservoirCoefficients } from './linear-reservoir';
 
 /**
@@ -24,11 +25,9 @@ export const ROUTING_PARAMETERS = {
   groundwaterShareDebrisIce: { default: 0.1, min: 0, max: 0.8, unit: '-', source: 'share of melt under debris reaching groundwater; assumption' },
 } as const satisfies Record<string, ParameterSpec>;
 
-export type RoutingParameters = { [K in keyof typeof ROUTING_PARAMETERS]: number };
+export type RoutingParameters = ValuesOf<typeof ROUTING_PARAMETERS>;
 
-export const DEFAULT_ROUTING_PARAMETERS: Readonly<RoutingParameters> = Object.freeze(
-  Object.fromEntries(Object.entries(ROUTING_PARAMETERS).map(([k, v]) => [k, v.default])) as RoutingParameters,
-);
+export const DEFAULT_ROUTING_PARAMETERS = defaultsOf(ROUTING_PARAMETERS);
 
 const SURFACE_HOURS: Record<Source, keyof RoutingParameters> = { snow: 'snowRainStorageHours', rain: 'snowRainStorageHours', ice: 'iceStorageHours', debrisIce: 'debrisIceStorageHours' };
 const GROUNDWATER_SHARE: Record<Source, keyof RoutingParameters> = { snow: 'groundwaterShareSnow', rain: 'groundwaterShareRain', ice: 'groundwaterShareIce', debrisIce: 'groundwaterShareDebrisIce' };
@@ -71,9 +70,7 @@ export function steadyRoutingState(meanDailyM3: Record<Source, number>, params: 
 }
 
 function checkInput(input: RunoffBySource, params: RoutingParameters): number {
-  for (const [name, spec] of Object.entries(ROUTING_PARAMETERS)) {
-    requireInRange(params[name as keyof RoutingParameters], spec.min, spec.max, `routing.${name}`, 'The value', spec.unit);
-  }
+  checkParameters(ROUTING_PARAMETERS, params, 'routing');
   const days = input.snow.length;
   const issues: HydrologyIssue[] = [];
   for (const s of SOURCES) {

@@ -42,6 +42,7 @@ function precipitationPoints(stations: readonly StationClimate[], month: number 
  * Fits the month-by-month lapse rate and the precipitation profile from the stations. Stations
  * are checked first (a station above the catchment's top is refused).
  * @throws HydrologyInputError naming the station field or the month whose fit is not possible
+ * @example fitStationGradients({ stations, bands, referenceElevationM: 2100, assumedLapseRateKPerKm: -6.5, precipitation: { kind: 'peaked', perMonth: false } }).lapseRates[6].lapseRateKPerKm // July, K km⁻¹
  */
 export function fitStationGradients(input: StationGradientsInput): StationGradients {
   const { stations, bands, referenceElevationM: zRef, precipitation } = input;

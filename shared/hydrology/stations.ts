@@ -51,6 +51,7 @@ function checkSeries(values: readonly (number | null)[] | undefined, path: strin
  * (a station above the catchment's top cannot stand for any band; one below its bottom is
  * accepted, valley stations often sit just below the outlet), and monthly values in plausible ranges.
  * @throws HydrologyInputError naming every problem (e.g. `stations[2].elevationM`)
+ * @example checkStations([{ name: 'Summit Mast', elevationM: 6100 }], [{ lowerM: 2000, upperM: 5900, areaKm2: 40 }]) // throws: stations[0].elevationM: station “Summit Mast” at 6100 m lies above the catchment's top (5900 m).
  */
 export function checkStations(stations: readonly StationClimate[], bands: readonly ElevationBand[]): void {
   const { topM } = catchmentRange(bands);

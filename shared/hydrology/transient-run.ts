@@ -59,6 +59,7 @@ export function transientYears(path: WarmingPath, recordYears: readonly number[]
 /**
  * Runs the years in order, updating the glacier after each.
  * @param onYear called after each year (progress, cancellation by throwing)
+ * @example runTransient(bands, initialGlacier(bands), transientYears(path, recordYearSequence(record, 80, 'resample', 1)), simulateYear).peakWater.year
  */
 export function runTransient(bands: readonly GlacierBand[], glacier: GlacierState, years: readonly TransientYear[], simulateYear: YearSimulator, options: GlacierUpdateOptions & { onYear?: (row: TransientRow, index: number) => void } = {}): TransientResult {
   const rows: TransientRow[] = [];

@@ -241,7 +241,7 @@ export function invertWaterBalance(input: InversionInput): InversionResult {
     return (value - o.measured.value) / o.measured.uncertainty;
   });
   const stationModel = run(station);
-  residualsOf(stationModel);
+  residualsOf(stationModel); // refuses at once a model that lacks an observed quantity
   const start = unknowns.map((u, i) => Math.min(bounds[i][1], Math.max(bounds[i][0], valueOf(station, u))));
   const solve = (from: number[]) => solveBounded({
     residuals: (x) => residualsOf(run(candidateAt(station, unknowns, x))),
