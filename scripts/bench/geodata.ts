@@ -11,6 +11,7 @@ import type { DerivedInWorker, DeriveTask } from '../../server/services/geodata/
 import type { Outline, Ring } from '../../shared/geodata/outline';
 import type { Raster } from '../../shared/geodata/raster';
 import { traceMask } from '../../shared/geodata/trace';
+import { ThreadBudget } from '../../server/services/thread-budget';
 import { ThreadPool } from '../../server/services/thread-pool';
 
 const SIZE = 2000;
@@ -57,7 +58,7 @@ const task: DeriveTask = {
   },
   options: { bandWidthM: 100, horizonSectors: SECTORS, debrisThicknessM: 0.2 },
 };
-const pool = new ThreadPool<DeriveTask, DerivedInWorker>(new URL('../../server/services/geodata/derive-worker.ts', import.meta.url), 1);
+const pool = new ThreadPool<DeriveTask, DerivedInWorker>(new URL('../../server/services/geodata/derive-worker.ts', import.meta.url), new ThreadBudget(1), 'batch');
 pool.warm();
 await pool.run({ ...task, input: { ...task.input, dem: { ...dem, width: 50, height: 50, values: dem.values.subarray(0, 2500) } }, options: { ...task.options, horizonSectors: 8 } }).catch(() => undefined);
 const stalls = monitorEventLoopDelay({ resolution: 10 });
