@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import type { LogSettings } from './logger';
 import { defaultThreadCount } from './services/thread-budget';
 
 /**
@@ -45,6 +46,9 @@ const envSchema = z.object({
   WORKER_THREADS: z.coerce.number().int().min(0).max(64).default(0),
   /** Runs simulated at the same time; their simulations share the worker threads. */
   RUN_CONCURRENCY: z.coerce.number().int().min(1).max(16).default(2),
+  /** The structured log (JSON lines): its level, and a file to append to instead of standard output. */
+  LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'silent']).optional(),
+  LOG_FILE: z.string().min(1).optional(),
 });
 
 export type Env = z.infer<typeof envSchema>;
@@ -81,6 +85,7 @@ export interface AppConfig {
   /** Worker threads all pools share (see server/services/thread-budget.ts). */
   workerThreads: number;
   runs: { concurrency: number };
+  log: LogSettings;
 }
 
 /** Parses an environment map into the typed config; throws one readable message listing every bad variable. */
@@ -131,6 +136,8 @@ export function parseConfig(env: Record<string, string | undefined>): AppConfig 
     },
     workerThreads: e.WORKER_THREADS || defaultThreadCount(),
     runs: { concurrency: e.RUN_CONCURRENCY },
+    // Tests log only warnings and errors unless asked; every request is logged elsewhere.
+    log: { level: e.LOG_LEVEL ?? (e.NODE_ENV === 'test' ? 'warn' : 'info'), file: e.LOG_FILE },
   };
 }
 

@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
 import type { AppConfig } from './config';
+import { createLogger, type Logger } from './logger';
 import { createAuthServices, type AuthServices } from './services/auth';
 import { createBillingServices, type BillingServices } from './services/billing';
 import { createBriefingServices, type BriefingServices } from './services/briefings';
@@ -19,6 +20,8 @@ export interface AppContext
   extends AuthServices, MailServices, BillingServices, MemberServices, CatchmentServices, LabServices, RunServices, BriefingServices {
   config: AppConfig;
   db: Knex;
+  /** The structured log; requests, errors and background failures, never values (server/logger.ts). */
+  logger: Logger;
   /** The worker threads the run, lab and PDF pools share (`config.workerThreads`). */
   threads: ThreadBudget;
   /** Marks work an earlier process left unfinished as failed and starts a thread per pool (server start). */
@@ -43,9 +46,10 @@ export interface ContextOptions {
 /** The composition root: every service built here, from the config, the database and the options. */
 export function createContext(config: AppConfig, db: Knex, options: ContextOptions = {}): AppContext {
   const threads = new ThreadBudget(config.workerThreads);
+  const logger = createLogger(config.log);
   const authServices = createAuthServices({ config, db, bcryptCost: options.bcryptCost });
   const mailServices = createMailServices({ config, db, inbox: options.inbox });
-  const memberServices = createMemberServices({ config, db, auth: authServices.auth, mail: mailServices.mail });
+  const memberServices = createMemberServices({ config, db, logger, auth: authServices.auth, mail: mailServices.mail });
   const catchmentServices = createCatchmentServices();
   const labServices = createLabServices({ db, bands: catchmentServices.bands, threads });
   const runServices = createRunServices({
@@ -59,6 +63,7 @@ export function createContext(config: AppConfig, db: Knex, options: ContextOptio
   return {
     config,
     db,
+    logger,
     threads,
     ...authServices,
     ...mailServices,

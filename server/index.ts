@@ -25,5 +25,5 @@ export async function startServer(options: ContextOptions = {}): Promise<{ close
 }
 
 if (import.meta.url === `file://${process.argv[1]}`) {
-  void startServer().then(({ url }) => console.log(`[tarnish] serving ${url}`));
+  void startServer().then(({ url, ctx }) => ctx.logger.info({ url }, 'serving'));
 }

@@ -1,0 +1,42 @@
+import { randomUUID } from 'node:crypto';
+import type { IncomingMessage, ServerResponse } from 'node:http';
+import type { RequestHandler, Response } from 'express';
+import { pinoHttp } from 'pino-http';
+import type { Logger } from '../logger';
+
+const REQUEST_ID = /^[A-Za-z0-9._-]{8,64}$/;
+
+/** The route a request matched, as the route table names it (`put /api/catchments/:id`), set by `markRoute`. */
+const routeOf = (res: ServerResponse): string | undefined => (res as Response).locals?.route as string | undefined;
+
+/**
+ * One log line per request: request id, method, path without its query string (links carry
+ * tokens there), the matched route, status and duration. Headers, bodies and client addresses
+ * are never logged. A request id a proxy sent (`X-Request-Id`) is kept, otherwise one is made,
+ * and it is sent back so a user's report can be matched to the line.
+ */
+export function requestLog(logger: Logger): RequestHandler {
+  return pinoHttp({
+    logger,
+    genReqId: (req: IncomingMessage, res: ServerResponse) => {
+      const sent = req.headers['x-request-id'];
+      const id = typeof sent === 'string' && REQUEST_ID.test(sent) ? sent : randomUUID();
+      res.setHeader('X-Request-Id', id);
+      return id;
+    },
+    serializers: {
+      req: (req: { id: unknown; method: string; url: string }) => ({ id: req.id, method: req.method, path: req.url.split('?')[0] }),
+      res: (res: { statusCode: number }) => ({ statusCode: res.statusCode }),
+    },
+    customProps: (_req, res) => ({ route: routeOf(res) }),
+    customLogLevel: (_req, res, error) => (error || res.statusCode >= 500 ? 'error' : res.statusCode >= 400 ? 'warn' : 'info'),
+    customSuccessMessage: () => 'request',
+    customErrorMessage: () => 'request failed',
+  }) as unknown as RequestHandler;
+}
+
+/** Names the matched route for the request log (first handler of every route in the table). */
+export const markRoute = (route: string): RequestHandler => (_req, res, next) => {
+  res.locals.route = route;
+  next();
+};
