@@ -41,12 +41,14 @@ export interface ContextOptions {
   briefingResults?: BriefingResultsSource;
   /** The local mail catcher, when one runs beside the app (development and tests). */
   inbox?: MailInbox;
+  /** The structured log; made from `config.log` unless given (the server shares it with the database pool). */
+  logger?: Logger;
 }
 
 /** The composition root: every service built here, from the config, the database and the options. */
 export function createContext(config: AppConfig, db: Knex, options: ContextOptions = {}): AppContext {
   const threads = new ThreadBudget(config.workerThreads);
-  const logger = createLogger(config.log);
+  const logger = options.logger ?? createLogger(config.log);
   const authServices = createAuthServices({ config, db, bcryptCost: options.bcryptCost });
   const mailServices = createMailServices({ config, db, inbox: options.inbox });
   const memberServices = createMemberServices({ config, db, logger, auth: authServices.auth, mail: mailServices.mail });

@@ -2,12 +2,14 @@ import { createApp } from './app';
 import { loadConfig } from './config';
 import { createContext, type AppContext, type ContextOptions } from './context';
 import { createDb } from './db';
+import { createLogger } from './logger';
 
 /** Starts the API (and the built client) on the configured host and port. */
 export async function startServer(options: ContextOptions = {}): Promise<{ close(): Promise<void>; url: string; ctx: AppContext }> {
   const config = loadConfig();
-  const db = createDb(config.db);
-  const ctx = createContext(config, db, options);
+  const logger = options.logger ?? createLogger(config.log);
+  const db = createDb(config.db, logger);
+  const ctx = createContext(config, db, { ...options, logger });
   await ctx.start();
   const app = createApp(ctx, { clientDir: 'dist' });
   const server = app.listen(config.port, config.host);

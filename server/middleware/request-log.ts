@@ -2,9 +2,12 @@ import { randomUUID } from 'node:crypto';
 import type { IncomingMessage, ServerResponse } from 'node:http';
 import type { RequestHandler, Response } from 'express';
 import { pinoHttp } from 'pino-http';
-import type { Logger } from '../logger';
+import { safeError, type Logger } from '../logger';
 
 const REQUEST_ID = /^[A-Za-z0-9._-]{8,64}$/;
+
+/** Opaque path segments (a pending upload's token) are credentials of a kind: the log keeps their place, not their value. */
+const maskTokens = (path: string) => path.replace(/\/[A-Za-z0-9_-]{20,}(?=\/|$)/g, '/…');
 
 /** The route a request matched, as the route table names it (`put /api/catchments/:id`), set by `markRoute`. */
 const routeOf = (res: ServerResponse): string | undefined => (res as Response).locals?.route as string | undefined;
@@ -24,9 +27,12 @@ export function requestLog(logger: Logger): RequestHandler {
       res.setHeader('X-Request-Id', id);
       return id;
     },
+    // Our serializers see the raw objects; the standard ones would copy headers and an error's message.
+    wrapSerializers: false,
     serializers: {
-      req: (req: { id: unknown; method: string; url: string }) => ({ id: req.id, method: req.method, path: req.url.split('?')[0] }),
-      res: (res: { statusCode: number }) => ({ statusCode: res.statusCode }),
+      req: (req: IncomingMessage & { id: unknown; originalUrl?: string }) => ({ id: req.id, method: req.method, path: maskTokens((req.originalUrl ?? req.url ?? '').split('?')[0]!) }),
+      res: (res: ServerResponse) => ({ statusCode: res.statusCode }),
+      err: safeError,
     },
     customProps: (_req, res) => ({ route: routeOf(res) }),
     customLogLevel: (_req, res, error) => (error || res.statusCode >= 500 ? 'error' : res.statusCode >= 400 ? 'warn' : 'info'),

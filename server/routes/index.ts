@@ -2,6 +2,7 @@ import express, { Router } from 'express';
 import type { AppContext } from '../context';
 import { apiNotFound } from '../middleware/error-handler';
 import { requireAuth } from '../middleware/require-auth';
+import { sameOriginWrites } from '../middleware/same-origin-writes';
 import { authRoutes } from './auth';
 import { billingRoutes, billingWebhookRoutes } from './billing';
 import { briefingRoutes } from './briefings';
@@ -42,13 +43,14 @@ export function apiAreas(ctx: AppContext): ApiArea[] {
 }
 
 /**
- * The /api router: raw-body areas, the JSON parser, public areas, then the one sign-in check
+ * The /api router: writes from other sites refused, raw-body areas, the JSON parser, public areas, then the one sign-in check
  * (the session is verified and the user loaded once per request), then every member area,
  * each mounted once at its own prefix. Unknown paths answer 404 (401 when signed out).
  */
 export function apiRouter(ctx: AppContext): Router {
   const areas = apiAreas(ctx);
   const router = Router();
+  router.use(sameOriginWrites(ctx.config.publicUrl));
   const mount = (list: ApiArea[]) => {
     for (const area of list) router.use(area.prefix, areaRouter(area));
   };

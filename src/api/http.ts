@@ -40,7 +40,8 @@ export async function apiRequest<S extends z.ZodType | undefined = undefined>(
   url: string,
   options: RequestOptions<S> = {},
 ): Promise<Reply<S>> {
-  const headers: Record<string, string> = { Accept: 'application/json' };
+  // The server refuses writes without it (or JSON): another site's form cannot send it.
+  const headers: Record<string, string> = { Accept: 'application/json', 'X-Requested-With': 'tarnish' };
   let body: BodyInit | undefined;
   if (options.form) body = options.form;
   else if (options.body !== undefined) {

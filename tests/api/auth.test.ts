@@ -69,7 +69,7 @@ describe('sign-in, /api/me and sign-out', () => {
     expect(me.body.user).toMatchObject({ email: org.users.consultant.email, role: 'consultant' });
     expect(me.body.organisation.id).toBe(org.organisationId);
 
-    expect((await request(t.app).post('/api/auth/sign-out').set('Cookie', cookie)).status).toBe(204);
+    expect((await request(t.app).post('/api/auth/sign-out').set('Cookie', cookie).set('X-Requested-With', 'tarnish')).status).toBe(204);
     const after = await request(t.app).get('/api/me').set('Cookie', cookie);
     expect(after.status).toBe(401);
     expect(after.body.error.code).toBe('unauthorized');
