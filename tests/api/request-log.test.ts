@@ -14,7 +14,8 @@ beforeAll(async () => {
 afterAll(() => t.close());
 
 /** The JSON lines the server has logged so far (tests/setup/api-log.ts points LOG_FILE at a file of this test file's own). */
-const logLines = () => readFileSync(process.env.LOG_FILE!, 'utf8').trim().split('\n').map((line) => JSON.parse(line) as Record<string, any>);
+interface LogLine { level: number; msg: string; route?: string; req?: { id: string }; err?: { frames: string[] } }
+const logLines = () => readFileSync(process.env.LOG_FILE!, 'utf8').trim().split('\n').map((line) => JSON.parse(line) as LogLine);
 
 describe('the request log', () => {
   it('writes one line per request with its id, route and status, and sends the id back', async () => {
@@ -38,7 +39,7 @@ describe('the request log', () => {
       expect(JSON.stringify(res.body)).not.toContain(org.users.admin.email);
       const line = logLines().find((l) => l.req?.id === res.headers['x-request-id']);
       expect(line).toMatchObject({ level: 50, msg: 'request failed', route: 'get /api/catchments', err: { code: expect.stringMatching(/^ER_/), errno: expect.any(Number) } });
-      expect(line!.err.frames.length).toBeGreaterThan(0);
+      expect(line!.err!.frames.length).toBeGreaterThan(0);
       expect(findSecrets(JSON.stringify(line))).toEqual([]);
     } finally {
       spy.mockRestore();
