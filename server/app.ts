@@ -33,7 +33,7 @@ export function createApp(ctx: AppContext, options: AppOptions = {}): Express {
           connectSrc: ["'self'"],
           workerSrc: ["'self'", 'blob:'],
           objectSrc: ["'none'"],
-          baseUri: ["'self'"],
+          baseUri: ["'none'"],
           formAction: ["'self'"],
           frameAncestors: ["'none'"],
         },

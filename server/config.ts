@@ -46,6 +46,8 @@ const envSchema = z.object({
   WORKER_THREADS: z.coerce.number().int().min(0).max(64).default(0),
   /** Runs simulated at the same time; their simulations share the worker threads. */
   RUN_CONCURRENCY: z.coerce.number().int().min(1).max(16).default(2),
+  /** Uploads (file reads and stores) one organisation may have in progress at once; more answer 429. */
+  UPLOADS_PER_ORGANISATION: z.coerce.number().int().min(1).max(50).default(2),
   /** The structured log (JSON lines): its level, and a file to append to instead of standard output. */
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'silent']).optional(),
   LOG_FILE: z.string().min(1).optional(),
@@ -85,6 +87,7 @@ export interface AppConfig {
   /** Worker threads all pools share (see server/services/thread-budget.ts). */
   workerThreads: number;
   runs: { concurrency: number };
+  uploads: { perOrganisation: number };
   log: LogSettings;
 }
 
@@ -136,6 +139,7 @@ export function parseConfig(env: Record<string, string | undefined>): AppConfig 
     },
     workerThreads: e.WORKER_THREADS || defaultThreadCount(),
     runs: { concurrency: e.RUN_CONCURRENCY },
+    uploads: { perOrganisation: e.UPLOADS_PER_ORGANISATION },
     // Tests log only warnings and errors unless asked; every request is logged elsewhere.
     log: { level: e.LOG_LEVEL ?? (e.NODE_ENV === 'test' ? 'warn' : 'info'), file: e.LOG_FILE },
   };

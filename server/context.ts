@@ -52,7 +52,7 @@ export function createContext(config: AppConfig, db: Knex, options: ContextOptio
   const authServices = createAuthServices({ config, db, bcryptCost: options.bcryptCost });
   const mailServices = createMailServices({ config, db, inbox: options.inbox });
   const memberServices = createMemberServices({ config, db, logger, auth: authServices.auth, mail: mailServices.mail });
-  const catchmentServices = createCatchmentServices();
+  const catchmentServices = createCatchmentServices({ threads, uploadsPerOrganisation: config.uploads.perOrganisation });
   const labServices = createLabServices({ db, bands: catchmentServices.bands, threads });
   const runServices = createRunServices({
     config, db, bands: catchmentServices.bands, calibrations: labServices.lab.calibrations, threads,
@@ -61,7 +61,7 @@ export function createContext(config: AppConfig, db: Knex, options: ContextOptio
   const briefingServices = createBriefingServices({
     results: runServices.results, invitations: memberServices.invitations, threads, briefingResults: options.briefingResults,
   });
-  const pools = [runServices.simulationPool, labServices.lab.pool, briefingServices.pdfPool];
+  const pools = [runServices.simulationPool, labServices.lab.pool, briefingServices.pdfPool, catchmentServices.uploads.pool];
   return {
     config,
     db,

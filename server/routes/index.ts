@@ -43,13 +43,18 @@ export function apiAreas(ctx: AppContext): ApiArea[] {
 }
 
 /**
- * The /api router: writes from other sites refused, raw-body areas, the JSON parser, public areas, then the one sign-in check
+ * The /api router: nothing cached, writes from other sites refused, raw-body areas, the JSON parser, public areas, then the one sign-in check
  * (the session is verified and the user loaded once per request), then every member area,
  * each mounted once at its own prefix. Unknown paths answer 404 (401 when signed out).
  */
 export function apiRouter(ctx: AppContext): Router {
   const areas = apiAreas(ctx);
   const router = Router();
+  // Answers hold tenant data or session state: never kept by a browser or a shared cache.
+  router.use((_req, res, next) => {
+    res.setHeader('Cache-Control', 'no-store');
+    next();
+  });
   router.use(sameOriginWrites(ctx.config.publicUrl));
   const mount = (list: ApiArea[]) => {
     for (const area of list) router.use(area.prefix, areaRouter(area));

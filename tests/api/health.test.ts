@@ -54,6 +54,8 @@ describe('GET /api/health', () => {
     const csp = res.headers['content-security-policy'];
     expect(csp).toMatch(/script-src 'self'/);
     expect(csp).not.toMatch(/script-src[^;]*unsafe-inline/);
+    expect(csp).toMatch(/base-uri 'none'/);
+    expect(csp).toMatch(/form-action 'self'/);
     expect(res.headers['x-powered-by']).toBeUndefined();
   });
 });
