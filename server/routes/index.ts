@@ -1,6 +1,7 @@
 import express, { Router } from 'express';
 import type { AppContext } from '../context';
 import { apiNotFound } from '../middleware/error-handler';
+import { idempotencyKeys } from '../middleware/idempotency-keys';
 import { requireAuth } from '../middleware/require-auth';
 import { sameOriginWrites } from '../middleware/same-origin-writes';
 import { authRoutes } from './auth';
@@ -44,7 +45,7 @@ export function apiAreas(ctx: AppContext): ApiArea[] {
 
 /**
  * The /api router: nothing cached, writes from other sites refused, raw-body areas, the JSON parser, public areas, then the one sign-in check
- * (the session is verified and the user loaded once per request), then every member area,
+ * (the session is verified and the user loaded once per request), idempotency keys on writes, then every member area,
  * each mounted once at its own prefix. Unknown paths answer 404 (401 when signed out).
  */
 export function apiRouter(ctx: AppContext): Router {
@@ -63,6 +64,7 @@ export function apiRouter(ctx: AppContext): Router {
   router.use(express.json({ limit: '1mb' }));
   mount(areas.filter((a) => a.isPublic && !a.rawBody));
   router.use(requireAuth(ctx));
+  router.use(idempotencyKeys(ctx.db, ctx.logger));
   mount(areas.filter((a) => !a.isPublic));
   router.use(apiNotFound);
   return router;

@@ -1,5 +1,7 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { catchmentFields } from '../support/catchments';
+import { createOrganisation, signedInAgent } from '../support/factories';
 import { tcpSwitch } from '../support/tcp-switch';
 import { createTestApp, type TestApp } from '../support/test-app';
 
@@ -43,6 +45,29 @@ describe('GET /api/health', () => {
       const up = await request(flaky.app).get('/api/health');
       expect(up.status).toBe(200);
       expect(up.body).toEqual({ status: 'ok', db: 'up' });
+    } finally {
+      await flaky.close();
+      await link.close();
+    }
+  });
+
+  it('answers signed-in requests with 503 and Retry-After while the database is gone, and serves them again by itself', async () => {
+    const link = await tcpSwitch(t.config.db.host, t.config.db.port);
+    const flaky = createTestApp({ DB_PORT: String(link.port) });
+    try {
+      const org = await createOrganisation(t.db);
+      const agent = await signedInAgent(flaky.app, org.users.consultant.email);
+      expect((await agent.get('/api/catchments')).status).toBe(200);
+      link.cut();
+      for (const attempt of [agent.get('/api/catchments'), agent.post('/api/catchments').send(catchmentFields())]) {
+        const res = await attempt;
+        expect(res.status).toBe(503);
+        expect(res.headers['retry-after']).toBe('5');
+        expect(res.body.error.code).toBe('database_unavailable');
+      }
+      link.restore();
+      const back = await agent.get('/api/catchments');
+      expect(back.status).toBe(200);
     } finally {
       await flaky.close();
       await link.close();
