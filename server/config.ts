@@ -19,7 +19,8 @@ const envSchema = z.object({
   DB_POOL_MAX: z.coerce.number().int().min(1).max(100).default(10),
   JWT_SECRET: z.string().min(32).default('local-only-secret-change-me-in-production-0123456789'),
   SESSION_HOURS: z.coerce.number().positive().max(24 * 30).default(12),
-  COOKIE_SECURE: z.enum(['true', 'false']).default('false').transform((v) => v === 'true'),
+  /** Secure session cookie with the __Host- prefix; on by default in production, where it cannot be turned off. */
+  COOKIE_SECURE: z.enum(['true', 'false']).optional(),
   SIGNIN_MAX_FAILURES_PER_ACCOUNT: z.coerce.number().int().positive().default(5),
   SIGNIN_MAX_FAILURES_PER_IP: z.coerce.number().int().positive().default(30),
   SIGNIN_WINDOW_MINUTES: z.coerce.number().positive().default(15),
@@ -105,6 +106,15 @@ export function parseConfig(env: Record<string, string | undefined>): AppConfig 
   if (e.NODE_ENV === 'production' && (e.STRIPE_SECRET_KEY.includes('local') || e.STRIPE_WEBHOOK_SECRET.includes('local'))) {
     throw new Error('Invalid server configuration:\n  STRIPE_SECRET_KEY, STRIPE_WEBHOOK_SECRET: must be set in production');
   }
+  const cookieSecure = e.COOKIE_SECURE === undefined ? e.NODE_ENV === 'production' : e.COOKIE_SECURE === 'true';
+  if (e.NODE_ENV === 'production') {
+    // A Secure, __Host- cookie only travels over HTTPS: production must be reached through TLS.
+    const problems = [
+      ...(cookieSecure ? [] : ['  COOKIE_SECURE: must not be false in production (the session cookie must be Secure)']),
+      ...(e.PUBLIC_URL?.startsWith('https://') ? [] : ['  PUBLIC_URL: must be the https:// address users reach in production (TLS in front of the app)']),
+    ];
+    if (problems.length > 0) throw new Error(`Invalid server configuration:\n${problems.join('\n')}`);
+  }
   return {
     env: e.NODE_ENV,
     host: e.HOST,
@@ -114,7 +124,7 @@ export function parseConfig(env: Record<string, string | undefined>): AppConfig 
     auth: {
       jwtSecret: e.JWT_SECRET,
       sessionHours: e.SESSION_HOURS,
-      cookieSecure: e.COOKIE_SECURE,
+      cookieSecure,
       signInLimits: {
         perAccount: e.SIGNIN_MAX_FAILURES_PER_ACCOUNT,
         perIp: e.SIGNIN_MAX_FAILURES_PER_IP,

@@ -1,13 +1,13 @@
 import type { CookieOptions, Response } from 'express';
-import { signInSchema, signUpSchema } from '../../shared/schemas/auth';
+import { passwordChangeSchema, signInSchema, signUpSchema } from '../../shared/schemas/auth';
 import type { AppContext } from '../context';
-import { SESSION_COOKIE } from '../middleware/require-auth';
+import { sessionCookieName } from '../middleware/require-auth';
 import { signInLimits } from '../middleware/sign-in-limits';
 import type { UserRow } from '../services/auth/auth-service';
 import { signSessionToken } from '../services/auth/session-tokens';
 import { memberArea, publicArea, type ApiArea } from './route-table';
 
-/** /api/auth/* and /api/me: sign-up and sign-in (public), sign-out and the current user. */
+/** /api/auth/* and /api/me: sign-up and sign-in (public), sign-out, password change and the current user. */
 export function authRoutes(ctx: AppContext): ApiArea[] {
   const { auth, config } = ctx;
 
@@ -19,13 +19,14 @@ export function authRoutes(ctx: AppContext): ApiArea[] {
     maxAge: config.auth.sessionHours * 3600_000,
   });
 
+  const cookie = sessionCookieName(config.auth.cookieSecure);
   const startSession = async (res: Response, user: UserRow) => {
     const token = signSessionToken(
       { userId: user.id, organisationId: user.organisation_id, tokenVersion: user.token_version },
       config.auth.jwtSecret,
       config.auth.sessionHours,
     );
-    res.cookie(SESSION_COOKIE, token, cookieOptions());
+    res.cookie(cookie, token, cookieOptions());
     res.json(await auth.me(user));
   };
 
@@ -45,8 +46,13 @@ export function authRoutes(ctx: AppContext): ApiArea[] {
     route.post('/sign-out', 'signedIn', {}, async ({ auth: { user } }, res) => {
       await auth.signOut(user.id);
       const { maxAge: _unused, ...clear } = cookieOptions();
-      res.clearCookie(SESSION_COOKIE, clear);
+      res.clearCookie(cookie, clear);
       res.status(204).end();
+    });
+
+    // Every other session of the user ends; this one goes on with a new cookie.
+    route.post('/password', 'signedIn', { body: passwordChangeSchema }, async ({ auth: { user }, body }, res) => {
+      await startSession(res, await auth.changePassword(user, body));
     });
   });
 

@@ -45,6 +45,13 @@ export const signUpSchema = z.object({
 });
 export type SignUpRequest = z.infer<typeof signUpSchema>;
 
+/** POST /api/auth/password: the current password proves it is the user, not someone at an unlocked screen. */
+export const passwordChangeSchema = z.object({
+  currentPassword: z.string({ error: 'Enter your current password.' }).min(1, { error: 'Enter your current password.' }).max(1024),
+  newPassword: passwordSchema,
+});
+export type PasswordChange = z.infer<typeof passwordChangeSchema>;
+
 export const organisationSchema = z.object({
   id: z.number().int(),
   name: z.string(),

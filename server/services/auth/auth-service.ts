@@ -1,7 +1,7 @@
 import bcrypt from 'bcryptjs';
 import type { Knex } from 'knex';
-import type { MeResponse, Role, SignInRequest, SignUpRequest } from '../../../shared/schemas/auth';
-import { AppError, conflict, unauthorized } from '../../errors';
+import type { MeResponse, PasswordChange, Role, SignInRequest, SignUpRequest } from '../../../shared/schemas/auth';
+import { AppError, conflict, unauthorized, validationFailed } from '../../errors';
 
 export interface UserRow {
   id: number;
@@ -61,6 +61,21 @@ export class AuthService {
     }
     await this.db('users').where({ id: user.id }).update({ last_sign_in_at: this.db.fn.now() });
     return user;
+  }
+
+  /**
+   * Sets a new password when the current one is given, and ends every session of the user
+   * (the caller starts a new one for the request that asked). Returns the updated user.
+   */
+  async changePassword(user: UserRow, input: PasswordChange): Promise<UserRow> {
+    const stored = await this.db<UserRow>('users').where({ id: user.id }).first('password_hash');
+    if (!stored?.password_hash || !(await bcrypt.compare(input.currentPassword, stored.password_hash))) {
+      throw validationFailed('This is not your current password.', 'currentPassword');
+    }
+    if (input.newPassword === input.currentPassword) throw validationFailed('Choose a password other than your current one.', 'newPassword');
+    const hash = await this.hashPassword(input.newPassword);
+    await this.db('users').where({ id: user.id }).update({ password_hash: hash, token_version: this.db.raw('token_version + 1'), updated_at: new Date() });
+    return (await this.db<UserRow>('users').where({ id: user.id }).first())!;
   }
 
   /** Invalidates every token issued so far to this user. */

@@ -6,11 +6,16 @@ const ISSUER = 'tarnish';
 const AUDIENCE = 'tarnish-web';
 const TOKEN_TYPE = 'session';
 
+/** Every claim we set is required: a token without an expiry (or issued-at, issuer, audience) is refused. */
 const claimsSchema = z.object({
   sub: z.string().regex(/^\d+$/),
   org: z.number().int().positive(),
   ver: z.number().int().min(0),
   typ: z.literal(TOKEN_TYPE),
+  iss: z.literal(ISSUER),
+  aud: z.literal(AUDIENCE),
+  iat: z.number().int(),
+  exp: z.number().int(),
 });
 export type SessionClaims = { userId: number; organisationId: number; tokenVersion: number };
 
@@ -24,12 +29,15 @@ export function signSessionToken(claims: SessionClaims, secret: string, hours: n
   });
 }
 
-/** Returns the claims of a valid token, or null for anything forged, expired or of another type. */
-export function verifySessionToken(token: string, secret: string): SessionClaims | null {
+/**
+ * Returns the claims of a valid token, or null for anything forged, expired, of another type,
+ * missing a claim, or living longer than a session may (`maxHours`).
+ */
+export function verifySessionToken(token: string, secret: string, maxHours: number): SessionClaims | null {
   try {
-    const payload = jwt.verify(token, secret, { algorithms: ['HS256'], issuer: ISSUER, audience: AUDIENCE });
+    const payload = jwt.verify(token, secret, { algorithms: ['HS256'], issuer: ISSUER, audience: AUDIENCE, maxAge: `${Math.round(maxHours * 3600)}s` });
     const parsed = claimsSchema.safeParse(payload);
-    if (!parsed.success) return null;
+    if (!parsed.success || parsed.data.exp - parsed.data.iat > maxHours * 3600 + 1) return null;
     return { userId: Number(parsed.data.sub), organisationId: parsed.data.org, tokenVersion: parsed.data.ver };
   } catch {
     return null;
