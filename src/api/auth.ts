@@ -1,4 +1,4 @@
-import { meResponseSchema, type SignInRequest, type SignUpRequest } from '@shared/schemas/auth';
+import { meResponseSchema, type PasswordChange, type SignInRequest, type SignUpRequest } from '@shared/schemas/auth';
 import { api } from './http';
 
 export const authApi = {
@@ -6,4 +6,5 @@ export const authApi = {
   signIn: (body: SignInRequest) => api.post('/api/auth/sign-in', body, { schema: meResponseSchema, quiet: true }),
   signUp: (body: SignUpRequest) => api.post('/api/auth/sign-up', body, { schema: meResponseSchema, quiet: true }),
   signOut: () => api.post('/api/auth/sign-out'),
+  changePassword: (body: PasswordChange) => api.post('/api/auth/password', body, { schema: meResponseSchema, quiet: true }),
 };

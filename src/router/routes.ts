@@ -79,6 +79,12 @@ export const routes: RouteRecordRaw[] = [
         meta: { access: 'manageMembers', nav: { label: 'Team', icon: 'group', caption: 'Members and invitations' }, title: 'Team' },
       },
       {
+        path: 'account',
+        name: 'account',
+        component: () => import('src/pages/AccountPage.vue'),
+        meta: { access: 'signedIn', title: 'Your account' },
+      },
+      {
         path: 'billing',
         name: 'billing',
         component: () => import('src/pages/BillingPage.vue'),
