@@ -24,6 +24,9 @@ const envSchema = z.object({
   SIGNIN_MAX_FAILURES_PER_ACCOUNT: z.coerce.number().int().positive().default(5),
   SIGNIN_MAX_FAILURES_PER_IP: z.coerce.number().int().positive().default(30),
   SIGNIN_WINDOW_MINUTES: z.coerce.number().positive().default(15),
+  /** After SIGNIN_MAX_FAILURES_PER_ACCOUNT failures, each attempt waits a doubling delay from this, up to the maximum. */
+  SIGNIN_BACKOFF_BASE_MS: z.coerce.number().int().positive().default(1000),
+  SIGNIN_BACKOFF_MAX_SECONDS: z.coerce.number().positive().default(30),
   // The payment service, reached only through its SDK; locally the fake in stripe-fake/.
   STRIPE_API_HOST: z.string().min(1).default('127.0.0.1'),
   STRIPE_API_PORT: z.coerce.number().int().min(1).max(65535).default(12111),
@@ -66,7 +69,7 @@ export interface AppConfig {
     jwtSecret: string;
     sessionHours: number;
     cookieSecure: boolean;
-    signInLimits: { perAccount: number; perIp: number; windowMs: number };
+    signInLimits: { perAccount: number; perIp: number; windowMs: number; backoffBaseMs: number; backoffMaxMs: number };
   };
   billing: {
     host: string;
@@ -129,6 +132,8 @@ export function parseConfig(env: Record<string, string | undefined>): AppConfig 
         perAccount: e.SIGNIN_MAX_FAILURES_PER_ACCOUNT,
         perIp: e.SIGNIN_MAX_FAILURES_PER_IP,
         windowMs: e.SIGNIN_WINDOW_MINUTES * 60_000,
+        backoffBaseMs: e.SIGNIN_BACKOFF_BASE_MS,
+        backoffMaxMs: e.SIGNIN_BACKOFF_MAX_SECONDS * 1000,
       },
     },
     billing: {

@@ -1,7 +1,8 @@
 import type { CookieOptions, Response } from 'express';
 import { passwordChangeSchema, signInSchema, signUpSchema } from '../../shared/schemas/auth';
 import type { AppContext } from '../context';
-import { sessionCookieName } from '../middleware/require-auth';
+import { authOf, sessionCookieName } from '../middleware/require-auth';
+import { WRONG_PASSWORD_STATUS } from '../services/auth/auth-service';
 import { signInLimits } from '../middleware/sign-in-limits';
 import type { UserRow } from '../services/auth/auth-service';
 import { signSessionToken } from '../services/auth/session-tokens';
@@ -37,7 +38,7 @@ export function authRoutes(ctx: AppContext): ApiArea[] {
       await startSession(res, user);
     });
 
-    route.post('/sign-in', { before: signInLimits(config.auth.signInLimits), body: signInSchema }, async ({ body }, res) => {
+    route.post('/sign-in', { before: signInLimits(config.auth.signInLimits, ctx.signInBackoff), body: signInSchema }, async ({ body }, res) => {
       await startSession(res, await auth.signIn(body));
     });
   });
@@ -51,7 +52,7 @@ export function authRoutes(ctx: AppContext): ApiArea[] {
     });
 
     // Every other session of the user ends; this one goes on with a new cookie.
-    route.post('/password', 'signedIn', { body: passwordChangeSchema }, async ({ auth: { user }, body }, res) => {
+    route.post('/password', 'signedIn', { before: [ctx.signInBackoff.guard((req) => `account:${authOf(req).user.email}`, WRONG_PASSWORD_STATUS)], body: passwordChangeSchema }, async ({ auth: { user }, body }, res) => {
       await startSession(res, await auth.changePassword(user, body));
     });
   });

@@ -74,7 +74,7 @@ describe('changing the password', () => {
     const newPassword = 'moraine lichen quartz 1987';
 
     const wrong = await here.post('/api/auth/password').send({ currentPassword: 'not my password', newPassword });
-    expect(wrong.status).toBe(422);
+    expect(wrong.status).toBe(403);
     expect(wrong.body.error.field).toBe('currentPassword');
 
     const changed = await here.post('/api/auth/password').send({ currentPassword: TEST_PASSWORD, newPassword });

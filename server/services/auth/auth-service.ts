@@ -2,6 +2,7 @@ import bcrypt from 'bcryptjs';
 import type { Knex } from 'knex';
 import type { MeResponse, PasswordChange, Role, SignInRequest, SignUpRequest } from '../../../shared/schemas/auth';
 import { AppError, conflict, unauthorized, validationFailed } from '../../errors';
+import { isCommonPassword } from './common-passwords';
 
 export interface UserRow {
   id: number;
@@ -16,6 +17,9 @@ export interface UserRow {
 }
 
 const INVALID_CREDENTIALS = 'E-mail or password is not right.';
+/** A wrong current password: not 401, which would end the session in the client; counted by the sign-in back-off. */
+export const WRONG_PASSWORD_STATUS = 403;
+const COMMON_PASSWORD = 'This password appears in published lists of breached passwords; choose another (a few unrelated words make a good one).';
 
 /** Sign-up, sign-in, sign-out and the signed-in user's profile. */
 export class AuthService {
@@ -29,13 +33,18 @@ export class AuthService {
     this.dummyHash = bcrypt.hashSync('not-a-real-password-used-for-timing', bcryptCost);
   }
 
-  hashPassword(password: string): Promise<string> {
+  /**
+   * The hash of a password being set (sign-up, invitation, reset, change), refused with a 422 on
+   * `field` when it is among the breach corpus's common passwords (ASVS 6.2.4).
+   */
+  hashNewPassword(password: string, field = 'password'): Promise<string> {
+    if (isCommonPassword(password)) throw validationFailed(COMMON_PASSWORD, field);
     return bcrypt.hash(password, this.bcryptCost);
   }
 
   /** Creates an organisation and its first admin in one transaction. */
   async signUp(input: SignUpRequest): Promise<UserRow> {
-    const hash = await this.hashPassword(input.password);
+    const hash = await this.hashNewPassword(input.password);
     return this.db.transaction(async (trx) => {
       const taken = await trx('users').where({ email: input.email }).first('id');
       if (taken) throw conflict('An account with this e-mail already exists.', 'email');
@@ -70,10 +79,10 @@ export class AuthService {
   async changePassword(user: UserRow, input: PasswordChange): Promise<UserRow> {
     const stored = await this.db<UserRow>('users').where({ id: user.id }).first('password_hash');
     if (!stored?.password_hash || !(await bcrypt.compare(input.currentPassword, stored.password_hash))) {
-      throw validationFailed('This is not your current password.', 'currentPassword');
+      throw new AppError(WRONG_PASSWORD_STATUS, 'wrong_password', 'This is not your current password.', 'currentPassword');
     }
     if (input.newPassword === input.currentPassword) throw validationFailed('Choose a password other than your current one.', 'newPassword');
-    const hash = await this.hashPassword(input.newPassword);
+    const hash = await this.hashNewPassword(input.newPassword, 'newPassword');
     await this.db('users').where({ id: user.id }).update({ password_hash: hash, token_version: this.db.raw('token_version + 1'), updated_at: new Date() });
     return (await this.db<UserRow>('users').where({ id: user.id }).first())!;
   }

@@ -72,7 +72,7 @@ export class InvitationService {
 
   /** Uses the token (once), sets the password and makes the member active. */
   async accept(input: AcceptInvitation): Promise<{ email: string }> {
-    const passwordHash = await this.auth.hashPassword(input.password);
+    const passwordHash = await this.auth.hashNewPassword(input.password);
     return this.db.transaction(async (trx) => {
       const invitation = await trx('invitations')
         .where({ token_hash: hashMailToken(input.token) })

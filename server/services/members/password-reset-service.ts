@@ -40,7 +40,7 @@ export class PasswordResetService {
 
   /** Uses the token once, sets the password, ends every session and voids the user's other reset links. */
   async complete(input: ResetComplete): Promise<void> {
-    const passwordHash = await this.auth.hashPassword(input.password);
+    const passwordHash = await this.auth.hashNewPassword(input.password);
     await this.db.transaction(async (trx: Knex.Transaction) => {
       const reset = await trx('password_reset_tokens')
         .where({ token_hash: hashMailToken(input.token) })
