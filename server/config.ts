@@ -25,6 +25,9 @@ const envSchema = z.object({
   SIGNIN_MAX_FAILURES_PER_IP: z.coerce.number().int().positive().default(30),
   SIGNIN_WINDOW_MINUTES: z.coerce.number().positive().default(15),
   /** After SIGNIN_MAX_FAILURES_PER_ACCOUNT failures, each attempt waits a doubling delay from this, up to the maximum. */
+  /** Sign-up requests per client address and per e-mail address in an hour; more answer 429. */
+  SIGNUPS_PER_IP_PER_HOUR: z.coerce.number().int().positive().default(10),
+  SIGNUPS_PER_ADDRESS_PER_HOUR: z.coerce.number().int().positive().default(3),
   SIGNIN_BACKOFF_BASE_MS: z.coerce.number().int().positive().default(1000),
   SIGNIN_BACKOFF_MAX_SECONDS: z.coerce.number().positive().default(30),
   // The payment service, reached only through its SDK; locally the fake in stripe-fake/.
@@ -70,6 +73,7 @@ export interface AppConfig {
     sessionHours: number;
     cookieSecure: boolean;
     signInLimits: { perAccount: number; perIp: number; windowMs: number; backoffBaseMs: number; backoffMaxMs: number };
+    signUpLimits: { perIpPerHour: number; perAddressPerHour: number };
   };
   billing: {
     host: string;
@@ -135,6 +139,7 @@ export function parseConfig(env: Record<string, string | undefined>): AppConfig 
         backoffBaseMs: e.SIGNIN_BACKOFF_BASE_MS,
         backoffMaxMs: e.SIGNIN_BACKOFF_MAX_SECONDS * 1000,
       },
+      signUpLimits: { perIpPerHour: e.SIGNUPS_PER_IP_PER_HOUR, perAddressPerHour: e.SIGNUPS_PER_ADDRESS_PER_HOUR },
     },
     billing: {
       host: e.STRIPE_API_HOST,

@@ -81,3 +81,16 @@ export function signInLimits(limits: AppConfig['auth']['signInLimits'], backoff:
   });
   return [perIp, backoff.guard(accountOfSignIn)];
 }
+
+/** Sign-ups are limited per client address and per e-mail address, whatever their outcome (the answer is always the same). */
+export function signUpLimits(limits: AppConfig['auth']['signUpLimits']): RequestHandler[] {
+  const hourly = (limit: number, key: (req: Request) => string) => rateLimit({
+    windowMs: 3600_000,
+    limit,
+    standardHeaders: 'draft-7',
+    legacyHeaders: false,
+    keyGenerator: key,
+    message: { error: { code: 'too_many_sign_ups', message: 'Too many accounts were asked for from here in the last hour. Try again later.' } },
+  });
+  return [hourly(limits.perIpPerHour, (req) => ipKeyGenerator(req.ip ?? 'unknown')), hourly(limits.perAddressPerHour, accountOfSignIn)];
+}

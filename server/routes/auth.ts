@@ -1,9 +1,10 @@
 import type { CookieOptions, Response } from 'express';
-import { passwordChangeSchema, signInSchema, signUpSchema } from '../../shared/schemas/auth';
+import { passwordChangeSchema, signInSchema, SIGN_UP_REPLY, signUpSchema } from '../../shared/schemas/auth';
+import { signUpConfirmSchema } from '../../shared/schemas/members';
 import type { AppContext } from '../context';
 import { authOf, sessionCookieName } from '../middleware/require-auth';
 import { WRONG_PASSWORD_STATUS } from '../services/auth/auth-service';
-import { signInLimits } from '../middleware/sign-in-limits';
+import { signInLimits, signUpLimits } from '../middleware/sign-in-limits';
 import type { UserRow } from '../services/auth/auth-service';
 import { signSessionToken } from '../services/auth/session-tokens';
 import { memberArea, publicArea, type ApiArea } from './route-table';
@@ -32,10 +33,14 @@ export function authRoutes(ctx: AppContext): ApiArea[] {
   };
 
   const signing = publicArea('/auth', (route) => {
-    route.post('/sign-up', { body: signUpSchema }, async ({ body }, res) => {
-      const user = await auth.signUp(body);
-      res.status(201);
-      await startSession(res, user);
+    // One answer whether the address is new or taken; its owner learns which by mail.
+    route.post('/sign-up', { before: signUpLimits(config.auth.signUpLimits), body: signUpSchema }, async ({ body }, res) => {
+      await ctx.signUps.request(body);
+      res.status(202).json({ message: SIGN_UP_REPLY });
+    });
+
+    route.post('/sign-up/confirm', { body: signUpConfirmSchema }, async ({ body }, res) => {
+      await startSession(res, await ctx.signUps.confirm(body.token));
     });
 
     route.post('/sign-in', { before: signInLimits(config.auth.signInLimits, ctx.signInBackoff), body: signInSchema }, async ({ body }, res) => {

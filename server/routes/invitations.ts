@@ -21,8 +21,10 @@ export function invitationRoutes(ctx: AppContext): ApiArea[] {
   });
 
   const inviting = memberArea('/invitations', (route) => {
+    // The same answer whether the address was invited or belongs to another organisation (whose owner is told by mail).
     route.post('/', 'manageMembers', { body: invitationRequestSchema }, async ({ auth: { user, scope }, body }, res) => {
-      res.status(201).json({ member: await invitations.invite(scope, user, body) });
+      await invitations.invite(scope, user, body);
+      res.status(202).json({ message: `If ${body.email} can join your team, an invitation is on its way.` });
     });
 
     route.post('/:id/resend', 'manageMembers', { params: z.object({ id: idOf('Invitation') }) }, async ({ auth: { user, scope }, params }, res) => {

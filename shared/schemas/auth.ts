@@ -42,6 +42,9 @@ export const signUpSchema = z.object({
 });
 export type SignUpRequest = z.infer<typeof signUpSchema>;
 
+/** The answer to every sign-up request, whether the address is new or already has an account. */
+export const SIGN_UP_REPLY = 'Check your inbox: a mail is on its way to this address. Open its link to finish (if the address already has an account, the mail says so).';
+
 /** POST /api/auth/password: the current password proves it is the user, not someone at an unlocked screen. */
 export const passwordChangeSchema = z.object({
   currentPassword: z.string({ error: 'Enter your current password.' }).min(1, { error: 'Enter your current password.' }).max(1024),

@@ -101,6 +101,7 @@ export const routes: RouteRecordRaw[] = [
       { path: 'forgot-password', name: 'forgot-password', component: () => import('src/pages/ForgotPasswordPage.vue'), meta: { guestOnly: true, title: 'Forgot password' } },
       // Opened from mailed links; the token in the query is the credential, so no session is needed.
       { path: 'reset-password', name: 'reset-password', component: () => import('src/pages/ResetPasswordPage.vue'), meta: { title: 'New password' } },
+      { path: 'confirm-sign-up', name: 'confirm-sign-up', component: () => import('src/pages/ConfirmSignUpPage.vue'), meta: { title: 'Finishing your account' } },
       { path: 'invitation', name: 'invitation', component: () => import('src/pages/AcceptInvitationPage.vue'), meta: { title: 'Join your team' } },
     ],
   },

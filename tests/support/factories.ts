@@ -47,3 +47,10 @@ export async function signedInAgent(app: Express, email: string, password = TEST
   if (res.status !== 200) throw new Error(`sign-in as ${email} failed: ${res.status} ${JSON.stringify(res.body)}`);
   return agent;
 }
+
+/** The id of the account with this address (invitations answer without naming the member). */
+export async function userIdOf(db: Knex, email: string): Promise<number> {
+  const row = await db('users').where({ email }).first('id');
+  if (!row) throw new Error(`no account for ${email}`);
+  return row.id as number;
+}

@@ -1,7 +1,7 @@
 import bcrypt from 'bcryptjs';
 import type { Knex } from 'knex';
-import type { MeResponse, PasswordChange, Role, SignInRequest, SignUpRequest } from '../../../shared/schemas/auth';
-import { AppError, conflict, unauthorized, validationFailed } from '../../errors';
+import type { MeResponse, PasswordChange, Role, SignInRequest } from '../../../shared/schemas/auth';
+import { AppError, unauthorized, validationFailed } from '../../errors';
 import { isCommonPassword } from './common-passwords';
 
 export interface UserRow {
@@ -21,7 +21,7 @@ const INVALID_CREDENTIALS = 'E-mail or password is not right.';
 export const WRONG_PASSWORD_STATUS = 403;
 const COMMON_PASSWORD = 'This password appears in published lists of breached passwords; choose another (a few unrelated words make a good one).';
 
-/** Sign-up, sign-in, sign-out and the signed-in user's profile. */
+/** Sign-in, sign-out, password changes and the signed-in user's profile (sign-up: members/sign-up-service.ts). */
 export class AuthService {
   // Compared against when the e-mail is unknown, so both answers take the same time.
   private readonly dummyHash: string;
@@ -40,25 +40,6 @@ export class AuthService {
   hashNewPassword(password: string, field = 'password'): Promise<string> {
     if (isCommonPassword(password)) throw validationFailed(COMMON_PASSWORD, field);
     return bcrypt.hash(password, this.bcryptCost);
-  }
-
-  /** Creates an organisation and its first admin in one transaction. */
-  async signUp(input: SignUpRequest): Promise<UserRow> {
-    const hash = await this.hashNewPassword(input.password);
-    return this.db.transaction(async (trx) => {
-      const taken = await trx('users').where({ email: input.email }).first('id');
-      if (taken) throw conflict('An account with this e-mail already exists.', 'email');
-      const [organisationId] = await trx('organisations').insert({ name: input.organisationName });
-      const [userId] = await trx('users').insert({
-        organisation_id: organisationId,
-        email: input.email,
-        name: input.name,
-        password_hash: hash,
-        role: 'admin',
-        status: 'active',
-      });
-      return (await trx<UserRow>('users').where({ id: userId }).first())!;
-    });
   }
 
   /** The user for these credentials; the same error for an unknown e-mail and a wrong password. */

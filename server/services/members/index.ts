@@ -6,11 +6,13 @@ import type { MailService } from '../mail/mail-service';
 import { InvitationService } from './invitation-service';
 import { MembersService } from './members-service';
 import { PasswordResetService } from './password-reset-service';
+import { SignUpService } from './sign-up-service';
 
 export interface MemberServices {
   members: MembersService;
   invitations: InvitationService;
   passwordResets: PasswordResetService;
+  signUps: SignUpService;
 }
 
 /** The organisation's people: members and roles, invitations and password resets by mail. */
@@ -23,5 +25,6 @@ export function createMemberServices(deps: { config: AppConfig; db: Knex; logger
     members,
     invitations: new InvitationService(db, auth, mail, members, publicUrl),
     passwordResets: new PasswordResetService(db, auth, mail, publicUrl, logger),
+    signUps: new SignUpService(db, auth, mail, publicUrl, logger),
   };
 }
