@@ -69,7 +69,7 @@ export function createContext(config: AppConfig, db: Knex, options: ContextOptio
     threads,
     ...authServices,
     ...mailServices,
-    ...createBillingServices({ config, db }),
+    ...createBillingServices({ config, db, logger }),
     ...memberServices,
     ...catchmentServices,
     ...labServices,
