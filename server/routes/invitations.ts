@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { acceptInvitationSchema, invitationPreviewQuerySchema, invitationRequestSchema } from '../../shared/schemas/members';
+import { acceptInvitationSchema, invitationPreviewRequestSchema, invitationRequestSchema } from '../../shared/schemas/members';
 import type { AppContext } from '../context';
 import { messageOnly } from '../middleware/validate';
 import { idOf, memberArea, publicArea, type ApiArea } from './route-table';
@@ -10,8 +10,9 @@ export function invitationRoutes(ctx: AppContext): ApiArea[] {
 
   // Public: the token itself is the credential.
   const links = publicArea('/invitations', (route) => {
-    route.get('/preview', { query: invitationPreviewQuerySchema, refuse: messageOnly }, async ({ query }, res) => {
-      res.json(await invitations.preview(query.token));
+    // The token travels in the body, never in a URL that logs, proxies and browser history keep.
+    route.post('/preview', { body: invitationPreviewRequestSchema, refuse: messageOnly }, async ({ body }, res) => {
+      res.json(await invitations.preview(body.token));
     });
 
     route.post('/accept', { body: acceptInvitationSchema }, async ({ body }, res) => {

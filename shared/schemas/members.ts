@@ -68,5 +68,5 @@ export const inboxMessageSchema = z.object({
 export type InboxMessage = z.infer<typeof inboxMessageSchema>;
 export const inboxReplySchema = z.object({ messages: z.array(inboxMessageSchema) });
 
-/** GET /api/invitations/preview?token=… */
-export const invitationPreviewQuerySchema = z.object({ token: mailTokenSchema });
+/** POST /api/invitations/preview { token } */
+export const invitationPreviewRequestSchema = z.object({ token: mailTokenSchema });

@@ -44,7 +44,7 @@ describe('invitation mail', () => {
 describe('accepting', () => {
   it('sets the password, makes the member active, and works only once', async () => {
     const { email, token } = await inviteAndReadMail();
-    const preview = await request(h.t.app).get('/api/invitations/preview').query({ token });
+    const preview = await request(h.t.app).post('/api/invitations/preview').send({ token });
     expect(preview.status).toBe(200);
     expect(preview.body).toMatchObject({ email, role: 'consultant' });
 
@@ -57,7 +57,7 @@ describe('accepting', () => {
     const second = await accept(token, 'another long password here');
     expect(second.status).toBe(400);
     expect(second.body.error.code).toBe('invalid_token');
-    expect((await request(h.t.app).get('/api/invitations/preview').query({ token })).status).toBe(400);
+    expect((await request(h.t.app).post('/api/invitations/preview').send({ token })).status).toBe(400);
     await signedInAgent(h.t.app, email, NEW_PASSWORD);
   });
 
