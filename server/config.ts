@@ -55,6 +55,8 @@ const envSchema = z.object({
   RUN_CONCURRENCY: z.coerce.number().int().min(1).max(16).default(2),
   /** Uploads (file reads and stores) one organisation may have in progress at once; more answer 429. */
   UPLOADS_PER_ORGANISATION: z.coerce.number().int().min(1).max(50).default(2),
+  /** How long a shutdown waits for requests being answered before it cuts them. */
+  SHUTDOWN_GRACE_SECONDS: z.coerce.number().positive().max(120).default(5),
   /** The structured log (JSON lines): its level, and a file to append to instead of standard output. */
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'silent']).optional(),
   LOG_FILE: z.string().min(1).optional(),
@@ -96,6 +98,7 @@ export interface AppConfig {
   workerThreads: number;
   runs: { concurrency: number };
   uploads: { perOrganisation: number };
+  shutdownGraceMs: number;
   log: LogSettings;
 }
 
@@ -160,6 +163,7 @@ export function parseConfig(env: Record<string, string | undefined>): AppConfig 
     workerThreads: e.WORKER_THREADS || defaultThreadCount(),
     runs: { concurrency: e.RUN_CONCURRENCY },
     uploads: { perOrganisation: e.UPLOADS_PER_ORGANISATION },
+    shutdownGraceMs: e.SHUTDOWN_GRACE_SECONDS * 1000,
     // Tests log only warnings and errors unless asked; every request is logged elsewhere.
     log: { level: e.LOG_LEVEL ?? (e.NODE_ENV === 'test' ? 'warn' : 'info'), file: e.LOG_FILE },
   };

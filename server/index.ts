@@ -2,6 +2,7 @@ import { createApp } from './app';
 import { loadConfig } from './config';
 import { createContext, type AppContext, type ContextOptions } from './context';
 import { createDb } from './db';
+import { listenDraining } from './http-server';
 import { createLogger } from './logger';
 
 /** Starts the API (and the built client) on the configured host and port. */
@@ -12,14 +13,12 @@ export async function startServer(options: ContextOptions = {}): Promise<{ close
   const ctx = createContext(config, db, { ...options, logger });
   await ctx.start();
   const app = createApp(ctx, { clientDir: 'dist' });
-  const server = app.listen(config.port, config.host);
-  await new Promise<void>((resolve, reject) => server.once('listening', resolve).once('error', reject));
-  const url = `http://${config.host}:${config.port}`;
+  const http = await listenDraining(app, config.port, config.host, config.shutdownGraceMs);
   return {
-    url,
+    url: http.url,
     ctx,
     close: async () => {
-      await new Promise<void>((resolve) => server.close(() => resolve()));
+      await http.close();
       await ctx.close();
       await db.destroy();
     },
@@ -27,5 +26,12 @@ export async function startServer(options: ContextOptions = {}): Promise<{ close
 }
 
 if (import.meta.url === `file://${process.argv[1]}`) {
-  void startServer().then(({ url, ctx }) => ctx.logger.info({ url }, 'serving'));
+  const running = await startServer();
+  running.ctx.logger.info({ url: running.url }, 'serving');
+  for (const signal of ['SIGTERM', 'SIGINT'] as const) {
+    process.once(signal, () => {
+      running.ctx.logger.info({ signal }, 'shutting down');
+      void running.close().then(() => process.exit(0));
+    });
+  }
 }
