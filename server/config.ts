@@ -165,7 +165,7 @@ export function parseConfig(env: Record<string, string | undefined>): AppConfig 
     uploads: { perOrganisation: e.UPLOADS_PER_ORGANISATION },
     shutdownGraceMs: e.SHUTDOWN_GRACE_SECONDS * 1000,
     // Tests log only warnings and errors unless asked; every request is logged elsewhere.
-    log: { level: e.LOG_LEVEL ?? (e.NODE_ENV === 'test' ? 'warn' : 'info'), file: e.LOG_FILE },
+    log: { level: e.LOG_LEVEL ?? (e.NODE_ENV === 'test' ? 'warn' : 'info'), file: e.LOG_FILE, sync: e.NODE_ENV === 'test' },
   };
 }
 

@@ -6,6 +6,8 @@ export interface LogSettings {
   level: 'fatal' | 'error' | 'warn' | 'info' | 'debug' | 'silent';
   /** Append JSON lines to this file instead of standard output (tests capture the log this way). */
   file?: string;
+  /** Write each line at once (tests read the log); otherwise lines are buffered in 4 kB writes, flushed on exit. */
+  sync: boolean;
 }
 
 /**
@@ -33,5 +35,8 @@ export function createLogger(settings: LogSettings): Logger {
     redact: { paths: REDACTED_PATHS, censor: '[redacted]' },
     serializers: { err: safeError, error: safeError },
   };
-  return settings.file ? pino(options, pino.destination({ dest: settings.file, append: true, mkdir: true, sync: true })) : pino(options);
+  const destination = settings.file
+    ? pino.destination({ dest: settings.file, append: true, mkdir: true, sync: settings.sync, minLength: settings.sync ? 0 : 4096 })
+    : pino.destination({ dest: 1, sync: settings.sync, minLength: settings.sync ? 0 : 4096 });
+  return pino(options, destination);
 }

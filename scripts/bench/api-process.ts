@@ -8,7 +8,9 @@ import { createInterface } from 'node:readline';
  */
 export async function startApiProcess() {
   const profile = process.env.BENCH_PROFILE_DIR ? ['--cpu-prof', `--cpu-prof-dir=${process.env.BENCH_PROFILE_DIR}`] : [];
-  const child = spawn(process.execPath, ['--import', 'tsx', ...profile, 'scripts/bench/runs-server.ts'], { stdio: ['ignore', 'pipe', 'inherit'], env: process.env });
+  // The API logs every request, as in production, to a file (its standard output carries the lines read here).
+  const env = { ...process.env, LOG_FILE: process.env.LOG_FILE ?? '/dev/null', LOG_LEVEL: process.env.LOG_LEVEL ?? 'info' };
+  const child = spawn(process.execPath, ['--import', 'tsx', ...profile, 'scripts/bench/runs-server.ts'], { stdio: ['ignore', 'pipe', 'inherit'], env });
   const lines = createInterface({ input: child.stdout });
   const next = () => new Promise<Record<string, number>>((resolve, reject) => {
     lines.once('line', (line) => resolve(JSON.parse(line)));
