@@ -1,4 +1,5 @@
 /** Control characters other than tab and line ends: a spreadsheet may drop them (NUL first) and then read a formula. */
+// eslint-disable-next-line no-control-regex -- finding control characters is the point
 const CONTROL = /[\u0000-\u0008\u000B\u000C\u000E-\u001F\u007F]/g;
 /** A formula trigger (=, +, -, @ and their full-width forms) after any blanks, or a leading tab or carriage return. */
 const FORMULA_START = /^(?:[\s\u00A0\u3000]*[=+\-@\uFF1D\uFF0B\uFF0D\uFF20]|[\t\r])/;
