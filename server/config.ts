@@ -164,8 +164,8 @@ export function parseConfig(env: Record<string, string | undefined>): AppConfig 
     runs: { concurrency: e.RUN_CONCURRENCY },
     uploads: { perOrganisation: e.UPLOADS_PER_ORGANISATION },
     shutdownGraceMs: e.SHUTDOWN_GRACE_SECONDS * 1000,
-    // Tests log only warnings and errors unless asked; every request is logged elsewhere.
-    log: { level: e.LOG_LEVEL ?? (e.NODE_ENV === 'test' ? 'warn' : 'info'), file: e.LOG_FILE, sync: e.NODE_ENV === 'test' },
+    // Tests log only errors unless asked (the API suite captures every request in a file: tests/setup/api-log.ts).
+    log: { level: e.LOG_LEVEL ?? (e.NODE_ENV === 'test' ? 'error' : 'info'), file: e.LOG_FILE, sync: e.NODE_ENV === 'test' },
   };
 }
 

@@ -8,7 +8,7 @@ let t: TestApp;
 let org: TestOrg;
 
 beforeAll(async () => {
-  t = createTestApp();
+  t = createTestApp({ SIGNUPS_PER_IP_PER_HOUR: '100' });
   org = await createOrganisation(t.db);
 });
 afterAll(() => t.close());

@@ -34,8 +34,11 @@ interface PendingRow {
   file_name: string;
   fields: string;
   read_gz: Buffer;
+  claimed_at: Date | null;
   expires_at: Date;
 }
+
+const alreadyStored = () => conflict('This upload is already being stored (or was stored a moment ago); reload the datasets to see it.');
 
 const unzip = promisify(gunzip);
 
@@ -69,6 +72,7 @@ export class UploadService {
   /** Stores the previewed file as a dataset, all or nothing; refuses files with errors. */
   async confirm(scope: TenantScope, catchmentId: number, token: string, user: Uploader): Promise<Dataset> {
     const pending = await this.pending(scope, catchmentId, token);
+    if (pending.claimed_at) throw alreadyStored();
     // Stored by `preview` after the same schema parsed them, with what the worker read from the file.
     const fields = datasetUploadFieldsSchema.parse(JSON.parse(pending.fields));
     const read = JSON.parse((await unzip(pending.read_gz)).toString('utf8')) as ReadUpload;
@@ -77,9 +81,10 @@ export class UploadService {
     }
     const spec = variableSpec(fields.variable);
     const datasetId = await scope.transaction(async (s) => {
-      // The claim: only the confirm that removes the pending row goes on; the row comes back if this transaction fails.
-      const claimed = await s.from('pending_uploads').where('id', pending.id).delete();
-      if (claimed !== 1) throw conflict('This upload is already being stored (or was stored a moment ago); reload the datasets to see it.');
+      // The claim: only the confirm that marks the pending row goes on (the others wait on its row lock, then
+      // find it marked); the mark goes if this transaction fails. What was read is no longer needed.
+      const claimed = await s.from('pending_uploads').where('id', pending.id).whereNull('claimed_at').update({ claimed_at: new Date(), read_gz: Buffer.alloc(0) });
+      if (claimed !== 1) throw alreadyStored();
       const id = await s.insert('datasets', {
         catchment_id: catchmentId,
         variable: fields.variable,
@@ -108,6 +113,7 @@ export class UploadService {
 
   async discard(scope: TenantScope, catchmentId: number, token: string): Promise<void> {
     const pending = await this.pending(scope, catchmentId, token);
+    if (pending.claimed_at) throw alreadyStored();
     await scope.from('pending_uploads').where('id', pending.id).delete();
   }
 
