@@ -1,17 +1,10 @@
 import request from 'supertest';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { newMailToken } from '../../server/services/mail/mail-tokens';
-import { createOrganisation, unique, type TestOrg } from '../support/factories';
-import { createTestApp, type TestApp } from '../support/test-app';
+import { unique } from '../support/factories';
+import { withOrganisation } from '../support/test-org';
 
-let t: TestApp;
-let org: TestOrg;
-
-beforeAll(async () => {
-  t = createTestApp({ SIGNUPS_PER_IP_PER_HOUR: '100' });
-  org = await createOrganisation(t.db);
-});
-afterAll(() => t.close());
+const f = withOrganisation({ SIGNUPS_PER_IP_PER_HOUR: '100' });
 
 /** Well-known passwords of 12+ characters (keyboard walks, digit runs, phrases near the top of published frequency lists). */
 const WELL_KNOWN = [
@@ -22,7 +15,7 @@ const WELL_KNOWN = [
 describe('common passwords are refused wherever a password is set', () => {
   it('at sign-up, each with a message on the password field', async () => {
     for (const password of WELL_KNOWN) {
-      const res = await request(t.app).post('/api/auth/sign-up').send({ organisationName: unique('Org '), name: 'Ada', email: `${unique('p')}@test.example`, password });
+      const res = await request(f.t.app).post('/api/auth/sign-up').send({ organisationName: unique('Org '), name: 'Ada', email: `${unique('p')}@test.example`, password });
       expect(res.status, password).toBe(422);
       expect(res.body.error.field, password).toBe('password');
     }
@@ -30,19 +23,19 @@ describe('common passwords are refused wherever a password is set', () => {
 
   it('when a reset link is used', async () => {
     const { token, hash } = newMailToken();
-    await t.db('password_reset_tokens').insert({ user_id: org.users.scientist.id, token_hash: hash, expires_at: new Date(Date.now() + 3600_000) });
-    const res = await request(t.app).post('/api/password-reset/complete').send({ token, password: '1qaz2wsx3edc' });
+    await f.t.db('password_reset_tokens').insert({ user_id: f.org.users.scientist.id, token_hash: hash, expires_at: new Date(Date.now() + 3600_000) });
+    const res = await request(f.t.app).post('/api/password-reset/complete').send({ token, password: '1qaz2wsx3edc' });
     expect(res.status).toBe(422);
     expect(res.body.error.field).toBe('password');
     // The link still works for a good password.
-    expect((await request(t.app).post('/api/password-reset/complete').send({ token, password: 'moraine lichen quartz 1987' })).status).toBe(200);
+    expect((await request(f.t.app).post('/api/password-reset/complete').send({ token, password: 'moraine lichen quartz 1987' })).status).toBe(200);
   });
 
   it('when an invitation is accepted', async () => {
-    const [userId] = await t.db('users').insert({ organisation_id: org.organisationId, email: `${unique('inv')}@test.example`, name: 'New', role: 'client', status: 'invited' });
+    const [userId] = await f.t.db('users').insert({ organisation_id: f.org.organisationId, email: `${unique('inv')}@test.example`, name: 'New', role: 'client', status: 'invited' });
     const { token, hash } = newMailToken();
-    await t.db('invitations').insert({ organisation_id: org.organisationId, user_id: userId, invited_by: org.users.admin.id, token_hash: hash, expires_at: new Date(Date.now() + 3600_000) });
-    const res = await request(t.app).post('/api/invitations/accept').send({ token, name: 'New member', password: 'qwertyuiop123' });
+    await f.t.db('invitations').insert({ organisation_id: f.org.organisationId, user_id: userId, invited_by: f.org.users.admin.id, token_hash: hash, expires_at: new Date(Date.now() + 3600_000) });
+    const res = await request(f.t.app).post('/api/invitations/accept').send({ token, name: 'New member', password: 'qwertyuiop123' });
     expect(res.status).toBe(422);
     expect(res.body.error.field).toBe('password');
   });

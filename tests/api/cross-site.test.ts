@@ -1,20 +1,13 @@
 import request from 'supertest';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { routeTable, type RouteListing } from '../../server/routes';
-import { createOrganisation, signedInAgent, TEST_PASSWORD, type TestOrg } from '../support/factories';
-import { createTestApp, type TestApp } from '../support/test-app';
+import { signedInAgent, TEST_PASSWORD } from '../support/factories';
+import { withOrganisation } from '../support/test-org';
 
-let t: TestApp;
-let org: TestOrg;
-
-beforeAll(async () => {
-  t = createTestApp();
-  org = await createOrganisation(t.db);
-});
-afterAll(() => t.close());
+const f = withOrganisation();
 
 const probe = (route: RouteListing) => route.path.replace(/:[A-Za-z]+/g, '0');
-const writes = () => routeTable(t.ctx).filter((r) => r.method !== 'get');
+const writes = () => routeTable(f.t.ctx).filter((r) => r.method !== 'get');
 const label = (route: RouteListing, res: request.Response) => `${route.method.toUpperCase()} ${route.path} → ${res.status} ${JSON.stringify(res.body).slice(0, 100)}`;
 
 describe('writes from another site, for every write route in the route table', () => {
@@ -27,11 +20,11 @@ describe('writes from another site, for every write route in the route table', (
   });
 
   it('refuses a bodyless or form post from a browser on another origin with 403, signed in as an admin', async () => {
-    const signIn = await request(t.app).post('/api/auth/sign-in').send({ email: org.users.admin.email, password: TEST_PASSWORD });
+    const signIn = await request(f.t.app).post('/api/auth/sign-in').send({ email: f.org.users.admin.email, password: TEST_PASSWORD });
     const cookie = signIn.headers['set-cookie']![0]!.split(';')[0]!;
     for (const route of writes()) {
       // What an HTML form on another site sends: no custom header, a form body, the attacker's Origin.
-      const forged = await request(t.app)[route.method](probe(route))
+      const forged = await request(f.t.app)[route.method](probe(route))
         .set('Cookie', cookie)
         .set('Origin', 'https://attacker.example').set('Sec-Fetch-Site', 'cross-site')
         .type('form').send('seats=1');
@@ -41,7 +34,7 @@ describe('writes from another site, for every write route in the route table', (
   });
 
   it('refuses a write whose Origin is foreign even with JSON and our header (a misconfigured proxy or an old browser)', async () => {
-    const agent = await signedInAgent(t.app, org.users.admin.email);
+    const agent = await signedInAgent(f.t.app, f.org.users.admin.email);
     for (const route of writes()) {
       const res = await agent[route.method](probe(route)).set('Origin', 'http://127.0.0.1.attacker.example').send({});
       expect(res.status, label(route, res)).toBe(403);
@@ -50,18 +43,18 @@ describe('writes from another site, for every write route in the route table', (
   });
 
   it('refuses a sibling site (Sec-Fetch-Site: same-site) and a multipart post without our header and without Origin', async () => {
-    const agent = await signedInAgent(t.app, org.users.admin.email);
+    const agent = await signedInAgent(f.t.app, f.org.users.admin.email);
     for (const route of writes()) {
       const sibling = await agent[route.method](probe(route)).set('Sec-Fetch-Site', 'same-site').send({});
       expect(sibling.status, label(route, sibling)).toBe(403);
-      const multipart = await request(t.app)[route.method](probe(route)).field('variable', 'temperature');
+      const multipart = await request(f.t.app)[route.method](probe(route)).field('variable', 'temperature');
       expect(multipart.status, label(route, multipart)).toBe(403);
       expect(multipart.body.error.code, label(route, multipart)).toBe('cross_site');
     }
   });
 
   it('lets the same origin through: our client header, no foreign Origin', async () => {
-    const agent = await signedInAgent(t.app, org.users.admin.email);
+    const agent = await signedInAgent(f.t.app, f.org.users.admin.email);
     const signOutLast = [...writes().filter((r) => !r.path.endsWith('/sign-out')), ...writes().filter((r) => r.path.endsWith('/sign-out'))];
     for (const route of signOutLast) {
       const res = await agent[route.method](probe(route)).set('Sec-Fetch-Site', 'same-origin');
@@ -70,7 +63,7 @@ describe('writes from another site, for every write route in the route table', (
   });
 
   it('leaves reads alone, whoever links to them', async () => {
-    const res = await request(t.app).get('/api/health').set('Origin', 'https://attacker.example').set('Sec-Fetch-Site', 'cross-site');
+    const res = await request(f.t.app).get('/api/health').set('Origin', 'https://attacker.example').set('Sec-Fetch-Site', 'cross-site');
     expect(res.status).toBe(200);
   });
 });

@@ -1,20 +1,11 @@
-import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
+import { describe, expect, it, vi } from 'vitest';
 import { catchmentFields } from '../support/catchments';
-import { createOrganisation, signedInAgent, unique, type TestOrg } from '../support/factories';
-import { createTestApp, type TestApp } from '../support/test-app';
+import { unique } from '../support/factories';
+import { withOrganisation } from '../support/test-org';
 
-let t: TestApp;
-let org: TestOrg;
-let agent: Awaited<ReturnType<typeof signedInAgent>>;
+const f = withOrganisation();
 
-beforeAll(async () => {
-  t = createTestApp();
-  org = await createOrganisation(t.db);
-  agent = await signedInAgent(t.app, org.users.consultant.email);
-});
-afterAll(() => t.close());
-
-const catchmentsNamed = async (name: string) => Number((await t.db('catchments').where({ organisation_id: org.organisationId, name }).count({ n: '*' }))[0]!.n);
+const catchmentsNamed = async (name: string) => Number((await f.t.db('catchments').where({ organisation_id: f.org.organisationId, name }).count({ n: '*' }))[0]!.n);
 /** What mysql2 throws when the database goes away mid-request. */
 const connectionLost = () => Object.assign(new Error('Connection lost: The server closed the connection.'), { code: 'PROTOCOL_CONNECTION_LOST', fatal: true });
 
@@ -22,9 +13,9 @@ describe('Idempotency-Key on creates', () => {
   it('answers a retry with the first answer, marked as replayed, and stores once', async () => {
     const fields = catchmentFields();
     const key = unique('key-');
-    const first = await agent.post('/api/catchments').set('Idempotency-Key', key).send(fields);
+    const first = await f.agent.post('/api/catchments').set('Idempotency-Key', key).send(fields);
     expect(first.status).toBe(201);
-    const again = await agent.post('/api/catchments').set('Idempotency-Key', key).send(fields);
+    const again = await f.agent.post('/api/catchments').set('Idempotency-Key', key).send(fields);
     expect(again.status).toBe(201);
     expect(again.headers['idempotent-replayed']).toBe('true');
     expect(again.body).toEqual(first.body);
@@ -33,8 +24,8 @@ describe('Idempotency-Key on creates', () => {
 
   it('refuses the same key with another request', async () => {
     const key = unique('key-');
-    expect((await agent.post('/api/catchments').set('Idempotency-Key', key).send(catchmentFields())).status).toBe(201);
-    const other = await agent.post('/api/catchments').set('Idempotency-Key', key).send(catchmentFields());
+    expect((await f.agent.post('/api/catchments').set('Idempotency-Key', key).send(catchmentFields())).status).toBe(201);
+    const other = await f.agent.post('/api/catchments').set('Idempotency-Key', key).send(catchmentFields());
     expect(other.status).toBe(422);
     expect(other.body.error.code).toBe('idempotency_key_reused');
   });
@@ -43,9 +34,9 @@ describe('Idempotency-Key on creates', () => {
     const fields = catchmentFields();
     const key = unique('key-');
     // The database goes away between the committed create and reading the new row back.
-    const read = vi.spyOn(t.ctx.catchments, 'get').mockRejectedValueOnce(connectionLost());
+    const read = vi.spyOn(f.t.ctx.catchments, 'get').mockRejectedValueOnce(connectionLost());
     try {
-      const lost = await agent.post('/api/catchments').set('Idempotency-Key', key).send(fields);
+      const lost = await f.agent.post('/api/catchments').set('Idempotency-Key', key).send(fields);
       expect(lost.status).toBe(503);
       expect(lost.headers['retry-after']).toBeDefined();
     } finally {
@@ -53,7 +44,7 @@ describe('Idempotency-Key on creates', () => {
     }
     expect(await catchmentsNamed(fields.name)).toBe(1);
     await vi.waitFor(async () => {
-      const retry = await agent.post('/api/catchments').set('Idempotency-Key', key).send(fields);
+      const retry = await f.agent.post('/api/catchments').set('Idempotency-Key', key).send(fields);
       expect(retry.status).toBe(409);
       expect(retry.body.error.code).toBe('already_applied');
     });
@@ -63,19 +54,19 @@ describe('Idempotency-Key on creates', () => {
   it('carries a retry out when the first attempt failed before anything was stored', async () => {
     const fields = catchmentFields();
     const key = unique('key-');
-    const create = vi.spyOn(t.ctx.catchments, 'create').mockRejectedValueOnce(connectionLost());
+    const create = vi.spyOn(f.t.ctx.catchments, 'create').mockRejectedValueOnce(connectionLost());
     try {
-      expect((await agent.post('/api/catchments').set('Idempotency-Key', key).send(fields)).status).toBe(503);
+      expect((await f.agent.post('/api/catchments').set('Idempotency-Key', key).send(fields)).status).toBe(503);
     } finally {
       create.mockRestore();
     }
     expect(await catchmentsNamed(fields.name)).toBe(0);
-    await vi.waitFor(async () => expect((await agent.post('/api/catchments').set('Idempotency-Key', key).send(fields)).status).toBe(201));
+    await vi.waitFor(async () => expect((await f.agent.post('/api/catchments').set('Idempotency-Key', key).send(fields)).status).toBe(201));
     expect(await catchmentsNamed(fields.name)).toBe(1);
   });
 
   it('refuses a malformed key', async () => {
-    const res = await agent.post('/api/catchments').set('Idempotency-Key', 'short').send(catchmentFields());
+    const res = await f.agent.post('/api/catchments').set('Idempotency-Key', 'short').send(catchmentFields());
     expect(res.status).toBe(400);
   });
 });
@@ -83,16 +74,16 @@ describe('Idempotency-Key on creates', () => {
 describe('identical creates at the same moment', () => {
   it('answers eight identical catchment creates with one 201 and seven 409, storing one', async () => {
     const fields = catchmentFields();
-    const answers = await Promise.all(Array.from({ length: 8 }, () => agent.post('/api/catchments').send(fields)));
+    const answers = await Promise.all(Array.from({ length: 8 }, () => f.agent.post('/api/catchments').send(fields)));
     expect(answers.map((a) => a.status).sort()).toEqual([201, 409, 409, 409, 409, 409, 409, 409]);
     expect(answers.every((a) => a.status === 201 || a.body.error.code === 'conflict')).toBe(true);
     expect(await catchmentsNamed(fields.name)).toBe(1);
   });
 
   it('answers eight identical scenario creates with one 201 and seven 409', async () => {
-    const catchment = (await agent.post('/api/catchments').send(catchmentFields())).body.catchment.id as number;
+    const catchment = (await f.agent.post('/api/catchments').send(catchmentFields())).body.catchment.id as number;
     const body = { name: unique('Dusty spring '), changes: { dustSnowUgG: 50 } };
-    const answers = await Promise.all(Array.from({ length: 8 }, () => agent.post(`/api/catchments/${catchment}/scenarios`).send(body)));
+    const answers = await Promise.all(Array.from({ length: 8 }, () => f.agent.post(`/api/catchments/${catchment}/scenarios`).send(body)));
     expect(answers.map((a) => a.status).sort(), JSON.stringify(answers.map((a) => a.body))).toEqual([201, 409, 409, 409, 409, 409, 409, 409]);
   });
 });

@@ -1,18 +1,11 @@
 import http from 'node:http';
-import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
+import { describe, expect, it, vi } from 'vitest';
 import { listenDraining } from '../../server/http-server';
 import request from 'supertest';
-import { createOrganisation, TEST_PASSWORD, type TestOrg } from '../support/factories';
-import { createTestApp, type TestApp } from '../support/test-app';
+import { TEST_PASSWORD } from '../support/factories';
+import { withOrganisation } from '../support/test-org';
 
-let t: TestApp;
-let org: TestOrg;
-
-beforeAll(async () => {
-  t = createTestApp();
-  org = await createOrganisation(t.db);
-});
-afterAll(() => t.close());
+const f = withOrganisation();
 
 /** A GET over a keep-alive agent, resolving with the status, headers and whether its socket closed afterwards. */
 function get(agent: http.Agent, url: string, cookie = '') {
@@ -27,7 +20,7 @@ function get(agent: http.Agent, url: string, cookie = '') {
 }
 
 const sessionCookie = async () =>
-  (await request(t.app).post('/api/auth/sign-in').send({ email: org.users.consultant.email, password: TEST_PASSWORD })).headers['set-cookie']![0]!.split(';')[0]!;
+  (await request(f.t.app).post('/api/auth/sign-in').send({ email: f.org.users.consultant.email, password: TEST_PASSWORD })).headers['set-cookie']![0]!.split(';')[0]!;
 
 /** Rejects if `promise` has not settled within `ms` (the test must never wait on the grace itself). */
 const within = <T>(promise: Promise<T>, ms: number) =>
@@ -35,7 +28,7 @@ const within = <T>(promise: Promise<T>, ms: number) =>
 
 describe('graceful shutdown', () => {
   it('closes idle keep-alive connections at once, answers a request in progress with Connection: close, and exits without waiting for the grace', async () => {
-    const running = await listenDraining(t.app, 0, '127.0.0.1', 60_000);
+    const running = await listenDraining(f.t.app, 0, '127.0.0.1', 60_000);
     const agent = new http.Agent({ keepAlive: true });
     const cookie = await sessionCookie();
     try {
@@ -45,8 +38,8 @@ describe('graceful shutdown', () => {
       // A request that is still being answered when the shutdown begins.
       let release!: () => void;
       const held = new Promise<void>((resolve) => (release = resolve));
-      const list = t.ctx.catchments.list.bind(t.ctx.catchments);
-      const slow = vi.spyOn(t.ctx.catchments, 'list').mockImplementation(async (...args) => {
+      const list = f.t.ctx.catchments.list.bind(f.t.ctx.catchments);
+      const slow = vi.spyOn(f.t.ctx.catchments, 'list').mockImplementation(async (...args) => {
         await held;
         return list(...args);
       });
@@ -67,8 +60,8 @@ describe('graceful shutdown', () => {
   });
 
   it('cuts a request that outlasts the grace, so the process can always exit', async () => {
-    const running = await listenDraining(t.app, 0, '127.0.0.1', 200);
-    const hang = vi.spyOn(t.ctx.catchments, 'list').mockImplementation(() => new Promise(() => undefined));
+    const running = await listenDraining(f.t.app, 0, '127.0.0.1', 200);
+    const hang = vi.spyOn(f.t.ctx.catchments, 'list').mockImplementation(() => new Promise(() => undefined));
     const cookie = await sessionCookie();
     try {
       const stuck = get(new http.Agent({ keepAlive: true }), `${running.url}/api/catchments`, cookie).catch((error: Error) => error);

@@ -1,44 +1,35 @@
 import http from 'node:http';
 import type { AddressInfo } from 'node:net';
-import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
+import { describe, expect, it, vi } from 'vitest';
 import { catchmentFields } from '../support/catchments';
-import { createOrganisation, signedInAgent, TEST_PASSWORD, type TestOrg } from '../support/factories';
-import { createTestApp, type TestApp } from '../support/test-app';
+import { TEST_PASSWORD } from '../support/factories';
+import { withOrganisation } from '../support/test-org';
 import { fixture, uploadSeries } from '../support/uploads';
 
-let t: TestApp;
-let org: TestOrg;
-let agent: Awaited<ReturnType<typeof signedInAgent>>;
+const f = withOrganisation();
 
-beforeAll(async () => {
-  t = createTestApp();
-  org = await createOrganisation(t.db);
-  agent = await signedInAgent(t.app, org.users.consultant.email);
-});
-afterAll(() => t.close());
-
-const newCatchment = async (): Promise<number> => (await agent.post('/api/catchments').send(catchmentFields())).body.catchment.id;
-const datasetCount = async (catchmentId: number) => Number((await t.db('datasets').where('catchment_id', catchmentId).count({ n: '*' }))[0]!.n);
+const newCatchment = async (): Promise<number> => (await f.agent.post('/api/catchments').send(catchmentFields())).body.catchment.id;
+const datasetCount = async (catchmentId: number) => Number((await f.t.db('datasets').where('catchment_id', catchmentId).count({ n: '*' }))[0]!.n);
 
 describe('confirming one preview several times at once', () => {
   it('stores it once: one 201, the other four 409, and the values once', async () => {
     const id = await newCatchment();
-    const preview = await uploadSeries(agent, id, fixture('temperature-hourly.csv'));
+    const preview = await uploadSeries(f.agent, id, fixture('temperature-hourly.csv'));
     expect(preview.status).toBe(201);
-    const answers = await Promise.all(Array.from({ length: 5 }, () => agent.post(`/api/catchments/${id}/uploads/${preview.body.token}/confirm`)));
+    const answers = await Promise.all(Array.from({ length: 5 }, () => f.agent.post(`/api/catchments/${id}/uploads/${preview.body.token}/confirm`)));
     const statuses = answers.map((a) => a.status).sort();
     expect(statuses).toEqual([201, 409, 409, 409, 409].sort());
     expect(answers.find((a) => a.status === 409)!.body.error.code).toBe('conflict');
     expect(await datasetCount(id)).toBe(1);
-    const [{ n }] = await t.db('dataset_values').join('datasets', 'datasets.id', 'dataset_values.dataset_id').where('datasets.catchment_id', id).count({ n: '*' });
+    const [{ n }] = await f.t.db('dataset_values').join('datasets', 'datasets.id', 'dataset_values.dataset_id').where('datasets.catchment_id', id).count({ n: '*' });
     expect(Number(n)).toBe(72);
   });
 
   it('stores ten previews confirmed five times each as exactly ten datasets', async () => {
     const id = await newCatchment();
     const tokens: string[] = [];
-    for (let i = 0; i < 10; i++) tokens.push((await uploadSeries(agent, id, fixture('temperature-hourly.csv'))).body.token);
-    const answers = await Promise.all(tokens.flatMap((token) => Array.from({ length: 5 }, () => agent.post(`/api/catchments/${id}/uploads/${token}/confirm`))));
+    for (let i = 0; i < 10; i++) tokens.push((await uploadSeries(f.agent, id, fixture('temperature-hourly.csv'))).body.token);
+    const answers = await Promise.all(tokens.flatMap((token) => Array.from({ length: 5 }, () => f.agent.post(`/api/catchments/${id}/uploads/${token}/confirm`))));
     expect(answers.filter((a) => a.status === 201)).toHaveLength(10);
     expect(answers.filter((a) => a.status === 409)).toHaveLength(40);
     expect(await datasetCount(id)).toBe(10);
@@ -48,11 +39,11 @@ describe('confirming one preview several times at once', () => {
 describe('reading a file once, off the event loop', () => {
   it('reads the file in a worker thread at preview and never again at confirm', async () => {
     const id = await newCatchment();
-    const reads = vi.spyOn(t.ctx.uploads.pool, 'run');
+    const reads = vi.spyOn(f.t.ctx.uploads.pool, 'run');
     try {
-      const preview = await uploadSeries(agent, id, fixture('temperature-hourly.csv'));
+      const preview = await uploadSeries(f.agent, id, fixture('temperature-hourly.csv'));
       expect(reads).toHaveBeenCalledTimes(1);
-      expect((await agent.post(`/api/catchments/${id}/uploads/${preview.body.token}/confirm`)).status).toBe(201);
+      expect((await f.agent.post(`/api/catchments/${id}/uploads/${preview.body.token}/confirm`)).status).toBe(201);
       expect(reads).toHaveBeenCalledTimes(1);
     } finally {
       reads.mockRestore();
@@ -61,7 +52,7 @@ describe('reading a file once, off the event loop', () => {
 
   it('answers a refusal found in the worker with its own status and message', async () => {
     const id = await newCatchment();
-    const binary = await uploadSeries(agent, id, Buffer.from([0x74, 0x69, 0x6d, 0x65, 0x00, 0x01]));
+    const binary = await uploadSeries(f.agent, id, Buffer.from([0x74, 0x69, 0x6d, 0x65, 0x00, 0x01]));
     expect(binary.status).toBe(415);
     expect(binary.body.error.code).toBe('not_csv');
   });
@@ -69,7 +60,7 @@ describe('reading a file once, off the event loop', () => {
 
 /** A multipart body written by hand, sent to the preview step. */
 const rawUpload = (catchmentId: number, contentType: string, body: string) =>
-  agent.post(`/api/catchments/${catchmentId}/uploads`).set('Content-Type', contentType).send(body);
+  f.agent.post(`/api/catchments/${catchmentId}/uploads`).set('Content-Type', contentType).send(body);
 
 describe('malformed multipart bodies', () => {
   const boundary = 'tarnishboundary';
@@ -92,17 +83,17 @@ describe('malformed multipart bodies', () => {
     const res = await rawUpload(id, contentType, body);
     expect(res.status).toBe(400);
     expect(res.body.error.message).toMatch(/upload|file/i);
-    expect(await t.db('pending_uploads').where('catchment_id', id).count({ n: '*' }).then((r) => Number(r[0]!.n))).toBe(0);
+    expect(await f.t.db('pending_uploads').where('catchment_id', id).count({ n: '*' }).then((r) => Number(r[0]!.n))).toBe(0);
   });
 });
 
 describe('uploads in progress per organisation', () => {
   it('answers one of three uploads sent at once with 429 and Retry-After while two are still arriving, and takes uploads again after', async () => {
     const id = await newCatchment();
-    const server = t.app.listen(0, '127.0.0.1');
+    const server = f.t.app.listen(0, '127.0.0.1');
     await new Promise<void>((resolve) => server.once('listening', () => resolve()));
     const { port } = server.address() as AddressInfo;
-    const signIn = await agent.post('/api/auth/sign-in').send({ email: org.users.consultant.email, password: TEST_PASSWORD });
+    const signIn = await f.agent.post('/api/auth/sign-in').send({ email: f.org.users.consultant.email, password: TEST_PASSWORD });
     const cookie = signIn.headers['set-cookie']![0]!.split(';')[0]!;
     const answers: { status: number; retryAfter?: string; body: string }[] = [];
     // Three uploads whose bodies have only begun to arrive (the rest never comes).
@@ -127,7 +118,7 @@ describe('uploads in progress per organisation', () => {
     } finally {
       for (const req of slow) req.destroy();
     }
-    await vi.waitFor(async () => expect((await uploadSeries(agent, id, fixture('temperature-hourly.csv'))).status).toBe(201));
+    await vi.waitFor(async () => expect((await uploadSeries(f.agent, id, fixture('temperature-hourly.csv'))).status).toBe(201));
     expect(answers).toHaveLength(1);
     await new Promise<void>((resolve) => server.close(() => resolve()));
   });
