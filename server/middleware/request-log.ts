@@ -13,7 +13,7 @@ const maskTokens = (path: string) => path.replace(/\/[A-Za-z0-9_-]{20,}(?=\/|$)/
 const routeOf = (res: ServerResponse): string | undefined => (res as Response).locals?.route as string | undefined;
 
 /**
- * One log line per request: request id, method, path without its query string (links carry
+ * One log line per request (health probes aside): request id, method, path without its query string (links carry
  * tokens there), the matched route, status and duration. Headers, bodies and client addresses
  * are never logged. A request id a proxy sent (`X-Request-Id`) is kept, otherwise one is made,
  * and it is sent back so a user's report can be matched to the line.
@@ -35,6 +35,8 @@ export function requestLog(logger: Logger): RequestHandler {
       err: safeError,
     },
     customProps: (_req, res) => ({ route: routeOf(res) }),
+    // Health probes come every few seconds from every balancer: noise, and a quarter of their cost.
+    autoLogging: { ignore: (req) => req.method === 'GET' && (req.url ?? '').startsWith('/api/health') },
     customLogLevel: (_req, res, error) => (error || res.statusCode >= 500 ? 'error' : res.statusCode >= 400 ? 'warn' : 'info'),
     customSuccessMessage: () => 'request',
     customErrorMessage: () => 'request failed',
