@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
 import type Stripe from 'stripe';
+import { isUniqueViolation } from '../../db-errors';
 import { badRequest } from '../../errors';
 import type { Logger } from '../../logger';
 import { callPayments, toAppError } from './payments-client';
@@ -19,8 +20,6 @@ export function subscriptionRefOf(event: Stripe.Event): string | null {
   if (event.type === 'checkout.session.completed') return refOf(object.subscription as RefField);
   return null;
 }
-
-const isDuplicateKey = (error: unknown) => (error as { code?: string }).code === 'ER_DUP_ENTRY';
 
 /**
  * Applies signed webhook events. Each event id is stored once (primary key) in the same
@@ -70,7 +69,7 @@ export class WebhookService {
         if (current.status === 'active') await trx('pending_checkouts').where({ organisation_id: organisationId }).delete();
       });
     } catch (error) {
-      if (isDuplicateKey(error)) return false;
+      if (isUniqueViolation(error)) return false;
       throw error;
     }
     if (second) await this.cancelAndRefund(organisationId!, second);
