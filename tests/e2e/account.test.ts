@@ -1,23 +1,11 @@
 import type { Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { SIGN_UP_REPLY } from '../../shared/schemas/auth';
-import { launchBrowser, settled, signInThroughForm, type BrowserWindow } from '../support/browser';
-import { createOrganisation, TEST_PASSWORD, unique, type TestOrg } from '../support/factories';
-import { startTeamHarness, type TeamHarness } from '../support/team-harness';
+import { launchBrowser, settled, signInThroughForm } from '../support/browser';
+import { createOrganisation, TEST_PASSWORD, unique } from '../support/factories';
+import { withTeamBrowser } from '../support/team-browser';
 
-let h: TeamHarness;
-let browser: BrowserWindow;
-let org: TestOrg;
-
-beforeAll(async () => {
-  h = await startTeamHarness({ CLIENT_DIR: 'dist' });
-  browser = await launchBrowser();
-  org = await createOrganisation(h.t.db);
-});
-afterAll(async () => {
-  await browser?.close();
-  await h?.close();
-});
+const f = withTeamBrowser();
 
 const shot = async (page: Page, name: string) => {
   await settled(page);
@@ -25,7 +13,7 @@ const shot = async (page: Page, name: string) => {
 };
 
 async function signUp(page: Page, email: string): Promise<string> {
-  await page.goto(`${h.baseUrl}/sign-up`);
+  await page.goto(`${f.h.baseUrl}/sign-up`);
   await page.fill('[data-test=organisation]', 'Glenmoor Water Studies');
   await page.fill('[data-test=name]', 'Rhona Vey');
   await page.fill('[data-test=email]', email);
@@ -36,15 +24,15 @@ async function signUp(page: Page, email: string): Promise<string> {
 
 describe('accounts in the browser', () => {
   it('answers a sign-up the same for a new and a taken address, and the mailed link finishes the new account', async () => {
-    const page = await browser.newPage();
+    const page = await f.browser.newPage();
     const fresh = `${unique('founder')}@glenmoor.example`;
-    expect(await signUp(page, org.users.consultant.email)).toBe(SIGN_UP_REPLY);
+    expect(await signUp(page, f.org.users.consultant.email)).toBe(SIGN_UP_REPLY);
     await shot(page, 'sign-up-sent');
     expect(await signUp(page, fresh)).toBe(SIGN_UP_REPLY);
 
-    const note = await h.catcher.waitFor((m) => m.to.includes(org.users.consultant.email));
+    const note = await f.h.catcher.waitFor((m) => m.to.includes(f.org.users.consultant.email));
     expect(note.subject).toContain('already has');
-    const mail = await h.catcher.waitFor((m) => m.to.includes(fresh));
+    const mail = await f.h.catcher.waitFor((m) => m.to.includes(fresh));
     const link = /(http\S+\/confirm-sign-up\?token=[A-Za-z0-9_-]{43})/.exec(mail.text)![1]!;
     await page.goto(link);
     await page.waitForSelector('[data-test=main-nav]');
@@ -54,13 +42,13 @@ describe('accounts in the browser', () => {
   });
 
   it('changes the password from the user menu: wrong and breached ones refused, other sessions ended', async () => {
-    const mine = await createOrganisation(h.t.db);
+    const mine = await createOrganisation(f.h.t.db);
     // Another browser (a profile of its own), signed in as the same person.
     const secondBrowser = await launchBrowser();
     const elsewhere = await secondBrowser.newPage();
-    await signInThroughForm(elsewhere, h.baseUrl, mine.users.scientist.email, TEST_PASSWORD);
-    const page = await browser.newPage();
-    await signInThroughForm(page, h.baseUrl, mine.users.scientist.email, TEST_PASSWORD);
+    await signInThroughForm(elsewhere, f.h.baseUrl, mine.users.scientist.email, TEST_PASSWORD);
+    const page = await f.browser.newPage();
+    await signInThroughForm(page, f.h.baseUrl, mine.users.scientist.email, TEST_PASSWORD);
     await page.click('[data-test=user-menu]');
     await page.click('[data-test=account]');
 
