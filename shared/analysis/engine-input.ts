@@ -18,6 +18,8 @@ export function engineInputOf(changes: ScenarioChanges, parameters: ParameterOve
       blackCarbonIceNgG: changes.blackCarbonIceNgG,
       dustSnowUgG: changes.dustSnowUgG,
       dustIceUgG: changes.dustIceUgG,
+      blackCarbonDepositionUgM2Day: changes.blackCarbonDepositionUgM2Day,
+      dustDepositionMgM2Day: changes.dustDepositionMgM2Day,
       debrisThicknessChangeM: changes.debrisThicknessChangeM,
       debrisExtentChange: changes.debrisExtentChange,
     },

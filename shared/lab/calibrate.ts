@@ -16,12 +16,13 @@ export interface DischargeEvaluation {
 }
 
 /**
- * Catchment discharge (m³ s⁻¹, daily mean of all melt and rain, no routing) from the start of the
- * forcing to the end of the period, so the snowpack is built before the scored days begin.
+ * Catchment discharge (m³ s⁻¹, daily mean of all melt and rain, no routing) over the period, after
+ * the engine's spin-up through the record before it, so the snowpack is built before the scored
+ * days begin.
  */
 export function simulateDischarge(site: LabSite, period: Period): { startDate: string; values: Float64Array } {
-  const from = site.forcing.start;
-  const last = addDays(from, forcingDays(site.forcing) - 1);
+  const from = site.forcing.start > period.from ? site.forcing.start : period.from;
+  const last = addDays(site.forcing.start, forcingDays(site.forcing) - 1);
   const result = simulate(catchmentInput(site, { from, to: period.to < last ? period.to : last }));
   return { startDate: result.startDate, values: result.catchmentDaily.dischargeM3s.total };
 }
