@@ -14,45 +14,69 @@ export const GROUND_ALBEDO = 0.2;
 /** Band-mean SWE below which the last snow patches are taken as melted, mm w.e. (assumption). */
 export const MELT_OUT_MM = 0.01;
 
-/** Snow-covered share of band b now (snow-cover.ts): 1 while fresh snow lies on top. */
+/**
+ * New snow lies evenly over the whole band as a fresh layer (covering it fully once it holds
+ * FRESH_FULL_COVER_MM) on top of the older snow, whose depth varies across the band (the lognormal
+ * depletion curve of snow-cover.ts). Melt takes the fresh layer first. Where nothing melts, wind
+ * and settling work the fresh snow into the band's pattern: it joins the older snow with a time
+ * scale of FRESH_MERGE_HOURS (assumption; see mergeFresh). So a summer
+ * snowfall briefly whitens bare ice, and a winter's snowfalls build one lognormal pack, with no
+ * jump in the snow-covered share either way.
+ */
+export const FRESH_FULL_COVER_MM = 5;
+export const FRESH_MERGE_HOURS = 72;
+const MERGE_PER_HOUR = 1 - Math.exp(-1 / FRESH_MERGE_HOURS);
+
+/** Snow-covered share of band b now (snow-cover.ts plus the fresh layer). */
 export function coverOf(c: LoopContext, b: number): number {
   const s = c.run.state;
-  if (s.sweMm[b] <= 0) return 0;
-  if (s.freshSweMm[b] > 0) return 1;
+  const fresh = s.freshSweMm[b];
+  const old = s.sweMm[b] - fresh;
   const peak = s.peakSweMm[b];
-  return peak > 0 ? readCover(c.run.cover, s.sweMm[b] / peak) : 1;
+  const oldCover = old > 0 && peak > 0 ? readCover(c.run.cover, old / peak) : 0;
+  if (fresh <= 0) return oldCover;
+  const freshCover = fresh >= FRESH_FULL_COVER_MM ? 1 : fresh / FRESH_FULL_COVER_MM;
+  return oldCover + (1 - oldCover) * freshCover;
 }
 
-/** Snowfall of `snow` mm w.e. over band b at air temperature `airC`. */
+/** Snowfall of `snow` mm w.e. over band b at air temperature `airC`: it joins the fresh layer. */
 function addSnowfall(c: LoopContext, b: number, snow: number, airC: number, month: number): void {
   const s = c.run.state;
   const p = c.run.params;
   const t = c.run.tables;
   const old = s.sweMm[b];
   const snowC = airC < 0 ? airC : 0;
+  const layer = p.snowSurfaceLayerMm;
   if (old <= 0) {
-    s.sweMm[b] = snow;
-    s.peakSweMm[b] = snow;
-    s.freshSweMm[b] = 0;
     s.grainRadiusUm[b] = p.freshGrainRadiusUm;
     s.snowSurfaceC[b] = snowC;
     s.snowDeepC[b] = snowC;
-    buryUnderSnowfall(s, b, snow, 0, p.snowSurfaceLayerMm, t.freshBlackCarbonNgG[month], t.freshDustUgG[month]);
-    return;
+  } else {
+    s.grainRadiusUm[b] = (s.grainRadiusUm[b] * layer + p.freshGrainRadiusUm * snow) / (layer + snow);
+    const surfaceMass = c.layers.surfaceMass;
+    const mixed = snow < surfaceMass ? snow : surfaceMass;
+    s.snowSurfaceC[b] = (s.snowSurfaceC[b] * (surfaceMass - mixed) + snowC * mixed) / surfaceMass;
   }
-  const layer = p.snowSurfaceLayerMm;
-  s.grainRadiusUm[b] = (s.grainRadiusUm[b] * layer + p.freshGrainRadiusUm * snow) / (layer + snow);
-  const surfaceMass = c.layers.surfaceMass;
-  const mixed = snow < surfaceMass ? snow : surfaceMass;
-  s.snowSurfaceC[b] = (s.snowSurfaceC[b] * (surfaceMass - mixed) + snowC * mixed) / surfaceMass;
   buryUnderSnowfall(s, b, snow, old, layer, t.freshBlackCarbonNgG[month], t.freshDustUgG[month]);
   s.sweMm[b] = old + snow;
   s.freshSweMm[b] += snow;
-  // New snow that outweighs what was left starts a new depletion curve.
-  if (s.freshSweMm[b] >= old || s.sweMm[b] > s.peakSweMm[b]) {
-    s.peakSweMm[b] = s.sweMm[b];
-    s.freshSweMm[b] = 0;
-  }
+}
+
+/**
+ * An hour without melt works part of the fresh layer into the older snow's pattern. The merged
+ * pack's relative SWE (its place on the depletion curve) is the mass-weighted mean of the older
+ * snow's and the new snow's (1, undepleted), so a winter's snow on last summer's remnants starts
+ * the next melt season almost fully covering the band, while a little new snow on a deep, partly
+ * melted pack leaves its depletion where it was.
+ */
+function mergeFresh(s: LoopContext['run']['state'], b: number): void {
+  const fresh = s.freshSweMm[b];
+  const old = s.sweMm[b] - fresh;
+  const moved = fresh * MERGE_PER_HOUR;
+  const relative = old > 0 && s.peakSweMm[b] > 0 ? old / s.peakSweMm[b] : 1;
+  const merged = old + moved;
+  s.freshSweMm[b] = fresh - moved;
+  s.peakSweMm[b] = (merged * merged) / (old * relative + moved);
 }
 
 /** Broadband albedo of band b's snow this hour, with the thin-snow effect over what lies below. */
@@ -128,8 +152,13 @@ function snowHour(c: LoopContext, b: number, h: number, month: number, cover: nu
   s.snowSurfaceC[b] = out[SNOW.surfaceC];
   s.snowDeepC[b] = out[SNOW.deepC];
   const left = cover * out[SNOW.solid];
-  if (left < w) s.freshSweMm[b] = Math.max(0, s.freshSweMm[b] - (w - left));
+  if (left < w) {
+    const fresh = s.freshSweMm[b] - (w - left);
+    s.freshSweMm[b] = fresh > 0 ? fresh : 0;
+  }
   s.sweMm[b] = left;
+  if (s.peakSweMm[b] < left - s.freshSweMm[b]) s.peakSweMm[b] = left - s.freshSweMm[b];
+  if (melt <= 0 && s.freshSweMm[b] > 0) mergeFresh(s, b);
 
   a[ACC.weight] += cover;
   a[ACC.shortwaveIn] += cover * global;

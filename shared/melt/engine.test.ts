@@ -161,9 +161,9 @@ describe('property: slopes, hemispheres and horizons', () => {
 describe('how a run starts', () => {
   const record = inventedValley({ years: 3, bandCount: 4 });
   const season = { from: '2023-04-01', to: '2023-09-30' };
-  it('spins up through the year before the period by default and reports only the period', () => {
+  it('spins up through at least a year before the period, from the start of a hydrological year, and reports only the period', () => {
     const r = simulate({ ...record, period: season });
-    expect(r.start).toMatchObject({ method: 'spin-up-record', spinUpFrom: '2022-04-01', spinUpTo: '2023-03-31', spinUpDays: 365, adequate: true });
+    expect(r.start).toMatchObject({ method: 'spin-up-record', spinUpFrom: '2021-10-01', spinUpTo: '2023-03-31', spinUpDays: 547, adequate: true });
     expect(r.startDate).toBe('2023-04-01');
     expect(r.dayCount).toBe(183);
     expect(r.bandTotals.sweStartMm[3]).toBeGreaterThan(100);
@@ -171,7 +171,7 @@ describe('how a run starts', () => {
   it('accepts a shorter stretch that still covers the accumulation season, and says so', () => {
     const r = simulate({ ...record, period: { from: '2022-04-01', to: '2022-09-30' } });
     expect(r.start).toMatchObject({ method: 'spin-up-record', spinUpDays: 182, adequate: true });
-    expect(r.start.note).toMatch(/182 days of record .*365 asked for/);
+    expect(r.start.note).toMatch(/182 days of record .*547 wanted/);
   });
   it('repeats the period\'s first year when the record starts with the period, and says the record was too short', () => {
     const r = simulate({ ...record, period: { from: '2021-10-01', to: '2022-09-30' } });
@@ -190,9 +190,11 @@ describe('how a run starts', () => {
     for (let b = 0; b < 4; b++) expect(second.bandTotals.runoffMm[b] + first.bandTotals.runoffMm[b]).toBeCloseTo(whole.bandTotals.runoffMm[b], 9);
   });
   it('a longer spin-up changes a season\'s runoff by less than 3 % in every band', () => {
-    const one = simulate({ ...record, period: season });
-    const two = simulate({ ...record, period: season, start: { method: 'spin-up', years: 2 } });
-    expect(two.start.spinUpDays).toBe(365 + 182);
+    const longer = inventedValley({ years: 4, bandCount: 4 });
+    const later = { from: '2024-04-01', to: '2024-09-30' };
+    const one = simulate({ ...longer, period: later });
+    const two = simulate({ ...longer, period: later, start: { method: 'spin-up', years: 2 } });
+    expect([one.start.spinUpDays, two.start.spinUpDays]).toEqual([548, 913]);
     for (let b = 0; b < 4; b++) expect(Math.abs(two.bandTotals.runoffMm[b] - one.bandTotals.runoffMm[b])).toBeLessThan(0.03 * one.bandTotals.runoffMm[b] + 1);
   });
 });

@@ -43,9 +43,10 @@ export function hydrologicalYearStartBefore(date: string, latitudeDeg: number): 
 
 /**
  * Plans the days a run simulates. With a spin-up of N years (the default, N = 1) the loop first
- * runs the N·365 days before the period where the record has them; a shorter stretch is still
- * accepted when it reaches back to the start of the hydrological year (it covers the accumulation
- * season), and is reported as shortened. Where the record starts later than that, the period's
+ * runs at least N·365 days before the period, from the start of a hydrological year, so the spin-up
+ * begins with an accumulation season rather than on bare ground in spring; where the record starts
+ * later, a shorter stretch is still accepted when it reaches back to the start of the hydrological
+ * year before the period (it covers the accumulation season), and is reported as shortened. Where the record starts later than that, the period's
  * first year is simulated once before the period ("repeated first year") and the result says
  * the record was too short for a proper spin-up. A given initial SWE or state starts the period
  * at once.
@@ -58,19 +59,19 @@ export function planDays(forcingStart: string, forcingDays: number, period: { fr
     const note = start.method === 'initial-swe' ? 'Started from the snow water equivalent given per band.' : 'Started from the state of an earlier run.';
     return { segments: [main], report: { method: start.method, spinUpFrom: null, spinUpTo: null, spinUpDays: 0, adequate: true, note } };
   }
-  const wanted = start.years * DAYS_PER_YEAR;
-  const minimum = daysBetween(hydrologicalYearStartBefore(period.from, latitudeDeg), period.from);
-  if (first >= minimum) {
-    const days = Math.min(wanted, first);
-    const from = first - days;
-    const shortened = days < wanted;
+  const wantedFrom = hydrologicalYearStartBefore(addDays(period.from, -start.years * DAYS_PER_YEAR + 1), latitudeDeg);
+  const wanted = daysBetween(wantedFrom, period.from);
+  const earliest = firstYearStartFrom(forcingStart, latitudeDeg);
+  if (earliest < period.from) {
+    const from = Math.max(daysBetween(forcingStart, wantedFrom), daysBetween(forcingStart, earliest));
+    const days = first - from;
     return {
       segments: [{ firstDay: from, lastDay: first - 1, record: false }, main],
       report: {
         method: 'spin-up-record', spinUpFrom: addDays(forcingStart, from), spinUpTo: addDays(forcingStart, first - 1), spinUpDays: days, adequate: true,
-        note: shortened
-          ? `Spun up through the ${days} days of record before the period (${wanted} asked for; the record starts on ${forcingStart}).`
-          : `Spun up through the ${days} days before the period.`,
+        note: days < wanted
+          ? `Spun up through the ${days} days of record before the period, from the start of a hydrological year (${wanted} wanted; the record starts on ${forcingStart}).`
+          : `Spun up through the ${days} days before the period, from the start of a hydrological year.`,
       },
     };
   }
@@ -84,4 +85,10 @@ export function planDays(forcingStart: string, forcingDays: number, period: { fr
         `the period's first ${days === DAYS_PER_YEAR ? 'year' : `${days} days`} (${addDays(forcingStart, first)} to ${addDays(forcingStart, repeatLast)}) were simulated once before it instead.`,
     },
   };
+}
+
+/** The first start of a hydrological year on or after a date. */
+export function firstYearStartFrom(date: string, latitudeDeg: number): string {
+  const before = hydrologicalYearStartBefore(addDays(date, 1), latitudeDeg);
+  return before === date ? date : `${Number(before.slice(0, 4)) + 1}${before.slice(4)}`;
 }

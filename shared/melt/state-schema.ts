@@ -4,6 +4,7 @@ import { z } from 'zod';
 export const STATE_FIELDS = [
   'sweMm', 'liquidMeltMm', 'liquidRainMm', 'peakSweMm', 'freshSweMm', 'grainRadiusUm',
   'snowSurfaceC', 'snowDeepC', 'surfaceBlackCarbonNgG', 'surfaceDustUgG', 'packBlackCarbonNgG', 'packDustUgG',
+  'horizonBlackCarbonNgM2', 'horizonDustUgM2', 'horizonDepthMm',
   'iceSurfaceC', 'iceDeepC', 'debrisSurfaceC', 'debrisUpperC', 'debrisLowerC',
 ] as const;
 export type StateField = (typeof STATE_FIELDS)[number];

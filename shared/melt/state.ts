@@ -6,12 +6,13 @@ import { STATE_FIELDS, type EngineState, type StateField } from './state-schema'
  *   sweMm            solid snow water equivalent, mm w.e. over the band
  *   liquidMeltMm     liquid water held in the pack that came from melt, mm over the band
  *   liquidRainMm     liquid water held in the pack that came from rain, mm over the band
- *   peakSweMm        SWE at which the band's snow-cover depletion started (snow-cover.ts)
- *   freshSweMm       snow fallen since, which covers the whole band until it melts
+ *   peakSweMm        peak SWE of the older snow, from which its cover depletes (snow-cover.ts)
+ *   freshSweMm       new snow lying evenly over the band until it melts or joins the older snow (band-day.ts)
  *   grainRadiusUm    optical grain radius of the surface snow
  *   snowSurfaceC     temperature of the snow surface layer (≤ 0)
  *   snowDeepC        temperature of the snow below it (≤ 0)
  *   surface…/pack…   black carbon (ng g⁻¹) and dust (µg g⁻¹) in the surface layer and in the pack below
+ *   horizon…         impurity of a buried dirty horizon (ng or µg per m²) and the snow above it (impurities.ts)
  *   iceSurfaceC, iceDeepC                           bare-ice layers (≤ 0)
  *   debrisSurfaceC, debrisUpperC, debrisLowerC      debris nodes (surface, 15 % and 50 % of the thickness)
  */
