@@ -17,12 +17,16 @@ describe('added melt totals', () => {
     expect(totals.meanExtraAbsorbedShortwaveWm2).toBe(0);
   });
 
-  it('show more melt, more absorbed shortwave and no later runoff when snow and ice darken', () => {
+  it('show more melt and more absorbed shortwave when snow and ice darken', () => {
     const totals = addedMeltTotals(baseline, sooty);
     expect(totals.addedVolumeM3).toBeGreaterThan(0);
     expect(totals.meanExtraAbsorbedShortwaveWm2).toBeGreaterThan(0);
-    expect(totals.timingShiftDays).toBeLessThanOrEqual(0);
     expect(totals.meltSeason).not.toBeNull();
+  });
+
+  it('bring runoff earlier when only the snow darkens (it melts out sooner)', () => {
+    const sootySnow = summariseSimulation(simulate({ ...input, period: season, scenario: { blackCarbonSnowNgG: 500 } }));
+    expect(addedMeltTotals(baseline, sootySnow).timingShiftDays).toBeLessThanOrEqual(0);
   });
 
   it('keep depth, volume, share and discharge consistent with each other', () => {

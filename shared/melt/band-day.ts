@@ -211,6 +211,7 @@ export function bandDay(c: LoopContext, b: number, d: number, month: number): vo
 
   for (let h = d * 24; h < d * 24 + 24; h++) {
     const airC = f.temperatureC[h] + temperatureOffset;
+    a[ACC.airTemperature] += airC;
     const precipitation = f.precipitationMm[h] * precipitationFactor;
     let rain = 0;
     if (precipitation > 0) {

@@ -73,4 +73,5 @@ function writeBandDay(c: LoopContext, result: SimulationResult, b: number, d: nu
   out.latentHeatWm2[i] = weight > 0 ? a[ACC.latent] / weight : 0;
   out.albedo[i] = a[ACC.shortwaveIn] > 0 ? a[ACC.albedoWeighted] / a[ACC.shortwaveIn] : 0;
   out.debrisSurfaceMaxC[i] = a[ACC.debrisSeen] > 0 ? a[ACC.debrisMax] : 0;
+  out.airTemperatureC[i] = a[ACC.airTemperature] / 24;
 }

@@ -7,6 +7,9 @@ import { ACC, type LoopContext } from './loop-context';
  * bare ice between debris patches, and debris. Energy balance (surface temperatures, melt,
  * vapour exchange) or, for the reference models, their melt index; debris in the reference
  * models melts the clean-ice amount times H* / (H* + h) (Anderson & Anderson 2016).
+ * Debris always takes the stability correction: midday debris is far warmer than the air, and the
+ * free convection over it is what keeps its surface within measured temperatures (Reid & Brock
+ * 2010; Collier et al. 2014) [memory]; the run's option applies to snow and ice.
  */
 export function glacierHour(c: LoopContext, b: number, month: number, exposed: number, global: number, longIn: number, airC: number, airK: number): void {
   const run = c.run;
@@ -60,7 +63,7 @@ export function glacierHour(c: LoopContext, b: number, month: number, exposed: n
     const absorbed = global * (1 - p.debrisAlbedo);
     const column = c.columns[b];
     column.sensibleCoefficient = (g.pressurePa[b] / airK) * c.cpOverRd * c.debrisExchange * c.air.windMs;
-    stepDebris(out, column, absorbed, p.debrisEmissivity * longIn, airC, c.air.windMs, s.debrisSurfaceC[b], s.debrisUpperC[b], s.debrisLowerC[b], c.stability);
+    stepDebris(out, column, absorbed, p.debrisEmissivity * longIn, airC, c.air.windMs, s.debrisSurfaceC[b], s.debrisUpperC[b], s.debrisLowerC[b], true);
     s.debrisSurfaceC[b] = out[DEBRIS.surfaceC];
     s.debrisUpperC[b] = out[DEBRIS.upperC];
     s.debrisLowerC[b] = out[DEBRIS.lowerC];

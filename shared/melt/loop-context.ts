@@ -14,9 +14,9 @@ import type { MeltModel } from './result';
 export const ACC = {
   snowRunoff: 0, iceMelt: 1, debrisMelt: 2, rainRunoff: 3, snowfall: 4, rainfall: 5, surfaceMelt: 6, refrozen: 7,
   sublimation: 8, evaporation: 9, iceVapour: 10, weight: 11, shortwaveIn: 12, shortwaveAbsorbed: 13, longwaveNet: 14,
-  sensible: 15, latent: 16, albedoWeighted: 17, snowCover: 18, debrisMax: 19, debrisSeen: 20,
+  sensible: 15, latent: 16, albedoWeighted: 17, snowCover: 18, debrisMax: 19, debrisSeen: 20, airTemperature: 21,
 } as const;
-export const ACC_SIZE = 21;
+export const ACC_SIZE = 22;
 
 /** Everything the hour step reads, gathered once per run so the loop allocates nothing. */
 export interface LoopContext {

@@ -14,13 +14,13 @@ import type { ShortwaveSource } from './schema';
  * Energy: daily means over the band's snow and ice surfaces (W m⁻²); absorbedShortwaveWm2 per m²
  * of band; albedo shortwave-weighted. snowCoverFraction is the daily mean snow-covered share of
  * the band; debrisSurfaceMaxC the day's highest debris surface temperature (0 when no debris was
- * exposed).
+ * exposed); airTemperatureC the day's mean air temperature at the band's mean elevation.
  */
 export const BAND_DAY_FIELDS = [
   'snowMeltMm', 'iceMeltMm', 'debrisIceMeltMm', 'rainMm', 'snowfallMm', 'sweMm', 'albedo',
   'incomingShortwaveWm2', 'netShortwaveWm2', 'absorbedShortwaveWm2', 'netLongwaveWm2', 'sensibleHeatWm2',
   'rainfallMm', 'liquidWaterMm', 'surfaceMeltMm', 'refrozenMm', 'sublimationMm', 'evaporationMm', 'iceVapourLossMm',
-  'latentHeatWm2', 'snowCoverFraction', 'debrisSurfaceMaxC',
+  'latentHeatWm2', 'snowCoverFraction', 'debrisSurfaceMaxC', 'airTemperatureC',
 ] as const;
 export type BandDayField = (typeof BAND_DAY_FIELDS)[number];
 

@@ -149,9 +149,15 @@ export const simulationInputSchema = z.object({
   period: z.object({ from: isoDate, to: isoDate }).optional(),
   shortwaveSource: z.enum(['auto', ...SHORTWAVE_SOURCES]).default('auto'),
   physics: z.object({
-    /** Louis stability correction of the turbulent fluxes (on by default). */
-    stabilityCorrection: z.boolean().default(true),
-  }).default({ stabilityCorrection: true }),
+    /**
+     * Stability correction of the turbulent fluxes by the bulk Richardson number (turbulence.ts).
+     * Off by default: over melting glaciers such corrections tend to shut down the exchange that
+     * katabatic winds keep going, and several glacier energy-balance studies found their melt
+     * better without them (e.g. Denby & Greuell 2000; Conway & Cullen 2013) [memory]; the neutral
+     * exchange coefficient then stands for the effective one.
+     */
+    stabilityCorrection: z.boolean().default(false),
+  }).default({ stabilityCorrection: false }),
 }).superRefine(checkForcing);
 
 export type SimulationInput = z.input<typeof simulationInputSchema>;
