@@ -40,7 +40,7 @@ export function coverOf(c: LoopContext, b: number): number {
 }
 
 /** Snowfall of `snow` mm w.e. over band b at air temperature `airC`: it joins the fresh layer. */
-function addSnowfall(c: LoopContext, b: number, snow: number, airC: number, month: number): void {
+export function addSnowfall(c: LoopContext, b: number, snow: number, airC: number, month: number): void {
   const s = c.run.state;
   const p = c.run.params;
   const t = c.run.tables;
@@ -104,7 +104,7 @@ function snowAlbedoNow(c: LoopContext, b: number, h: number, month: number, soli
 }
 
 /** One hour of band b's snow, given the shortwave on the band and the incoming longwave. */
-function snowHour(c: LoopContext, b: number, h: number, month: number, cover: number, global: number, longIn: number, rain: number, airC: number): void {
+export function snowHour(c: LoopContext, b: number, h: number, month: number, cover: number, global: number, longIn: number, rain: number, airC: number): void {
   const s = c.run.state;
   const p = c.run.params;
   const a = c.acc;
