@@ -11,7 +11,19 @@ export default tseslint.config(
   ...pluginVue.configs['flat/recommended'],
   {
     files: ['**/*.vue'],
-    languageOptions: { parserOptions: { parser: tseslint.parser } },
+    languageOptions: { parserOptions: { parser: tseslint.parser, extraFileExtensions: ['.vue'] } },
+  },
+  {
+    // Type-aware rules: a promise is either awaited, returned or marked `void`, and never handed
+    // to something that does not wait for it. The client and shared code, then the rest.
+    files: ['**/*.ts', '**/*.vue'],
+    languageOptions: {
+      parserOptions: { project: ['./tsconfig.json', './tsconfig.server.json'], tsconfigRootDir: import.meta.dirname, extraFileExtensions: ['.vue'] },
+    },
+    rules: {
+      '@typescript-eslint/no-floating-promises': 'error',
+      '@typescript-eslint/no-misused-promises': 'error',
+    },
   },
   {
     languageOptions: { globals: { ...globals.browser, ...globals.node }, ecmaVersion: 2022, sourceType: 'module' },

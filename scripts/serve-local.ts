@@ -32,8 +32,8 @@ async function main(): Promise<void> {
     await catcher.close();
     process.exit(0);
   };
-  process.once('SIGINT', stop);
-  process.once('SIGTERM', stop);
+  process.once('SIGINT', () => void stop());
+  process.once('SIGTERM', () => void stop());
 }
 
 void main();

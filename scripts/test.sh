@@ -14,8 +14,12 @@ export NODE_ENV=test
 ensure_node_modules
 ensure_mariadb_installed
 ensure_chromium_installed
+ensure_gdal_installed
 trap mariadb_stop EXIT
 mariadb_start .local/mariadb-test "$DB_PORT" "$DB_NAME" "$DB_USER" "$DB_PASSWORD" fresh
+# A second, empty database where the migrations are run up, down and up again.
+export MIGRATIONS_DB_NAME=tarnish_migrations_test
+mariadb_extra_database "$MIGRATIONS_DB_NAME" "$DB_USER"
 
 log "Migrating the empty test database"
 npm run --silent migrate

@@ -1,6 +1,8 @@
 import type { Knex } from 'knex';
 import { variableSpec, type Variable } from '../shared/schemas/dataset-variables';
-import { insertDatasetValues, insertStakeReadings } from '../server/services/dataset-values';
+import { insertBaseline } from '../server/services/catchments/baseline-scenario';
+import { insertDatasetValues, insertStakeReadings } from '../server/services/catchments/dataset-values';
+import { TenantScope } from '../server/services/tenant-scope';
 import { DEMO_ACCOUNTS, DEMO_ORGANISATION } from './data/demo-accounts';
 import { DEMO_BANDS, DEMO_CATCHMENT } from './data/demo-catchment';
 import { demoStation } from './data/demo-forcing';
@@ -40,6 +42,8 @@ export async function seed(knex: Knex): Promise<void> {
     const existing = await trx('catchments').where({ organisation_id: organisationId, name: c.name }).first('id');
     const catchmentId: number = existing ? existing.id : (await trx('catchments').insert({ ...columns, created_by: user?.id ?? null }))[0];
     if (existing) await trx('catchments').where('id', catchmentId).update(columns);
+    // A new catchment gets its baseline in the same transaction, as through the API.
+    else await insertBaseline(new TenantScope(trx, organisationId), catchmentId, user?.id ?? null);
 
     await trx('elevation_bands').where({ catchment_id: catchmentId }).delete();
     await trx('elevation_bands').insert(DEMO_BANDS.map((b, position) => ({

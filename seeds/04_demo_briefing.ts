@@ -1,22 +1,13 @@
 import type { Knex } from 'knex';
 import { startRunSchema } from '../shared/schemas/runs';
 import { loadConfig } from '../server/config';
-import { AuthService, type UserRow } from '../server/services/auth-service';
-import { BandService } from '../server/services/band-service';
-import { BriefingService } from '../server/services/briefings/briefing-service';
-import { BriefingSharing } from '../server/services/briefings/briefing-sharing';
-import { RunsResultsSource } from '../server/services/briefings/runs-results-source';
-import { ResultsService } from '../server/services/runs/results-service';
-import { RunExecutor } from '../server/services/runs/run-executor';
-import { RunService } from '../server/services/runs/run-service';
-import { storedCatchmentInputs } from '../server/services/runs/stored-catchment-inputs';
-import { ScenarioService } from '../server/services/scenario-service';
-import { createTeamServices } from '../server/services/team-services';
+import { createContext, type AppContext } from '../server/context';
+import type { UserRow } from '../server/services/auth/auth-service';
 import { TenantScope } from '../server/services/tenant-scope';
 import { DEMO_ACCOUNTS, DEMO_ORGANISATION } from './data/demo-accounts';
 import { DEMO_BRIEFING, DEMO_VARIANT_SCENARIO } from './data/demo-briefing';
 import { DEMO_CATCHMENT } from './data/demo-catchment';
-import { InProcessSimulations } from './data/in-process-simulations';
+import { inProcessSimulator } from './data/in-process-simulations';
 
 const accountOf = (role: 'consultant' | 'client') => DEMO_ACCOUNTS.find((a) => a.role === role)!;
 
@@ -36,24 +27,30 @@ export async function seed(knex: Knex): Promise<void> {
   const consultant = await scope.from<UserRow>('users').where({ email: accountOf('consultant').email }).first();
   if (!consultant) throw new Error('The demo consultant is missing; seed the demo organisation first.');
 
-  // Wired as in server/services/runs/run-services.ts, with the simulations on this thread.
-  const executor = new RunExecutor(knex, new InProcessSimulations(), 1);
-  const runs = new RunService(new ScenarioService(), storedCatchmentInputs(new BandService()), executor);
-  const { run } = await runs.start(scope, catchment.id, startRunSchema.parse({ scenarioId: scenario.id }), consultant.id);
-  await executor.idle();
-  const finished = await runs.get(scope, catchment.id, run.id);
+  // The API's own services, with the simulations on this thread.
+  const ctx = createContext(loadConfig(), knex, { simulator: inProcessSimulator });
+  try {
+    await runAndPublish(ctx, scope, catchment.id, scenario.id, consultant);
+  } finally {
+    await ctx.close();
+  }
+}
+
+async function runAndPublish(ctx: AppContext, scope: TenantScope, catchmentId: number, scenarioId: number, consultant: UserRow): Promise<void> {
+  const { runs, briefings, briefingSharing: sharing } = ctx;
+  const { run } = await runs.start(scope, catchmentId, startRunSchema.parse({ scenarioId }), consultant.id);
+  await ctx.runExecutor.idle();
+  const finished = await runs.get(scope, catchmentId, run.id);
   if (finished.status !== 'done') {
     // Left queued or running by an interrupted process; the server marks it failed on start-up and the next seed runs it afresh.
     console.warn(`Demo briefing skipped: run #${finished.id} is ${finished.status}${finished.errorMessage ? ` (${finished.errorMessage})` : ''}.`);
     return;
   }
 
-  const briefings = new BriefingService(new RunsResultsSource(new ResultsService(runs)));
-  const sharing = new BriefingSharing(createTeamServices(loadConfig(), knex, new AuthService(knex, 10)).invitations);
   const selection = { runIds: [finished.id] };
-  const existing = await scope.from('briefings').where({ catchment_id: catchment.id, title: DEMO_BRIEFING.title }).first('id', 'latest_version');
+  const existing = await scope.from('briefings').where({ catchment_id: catchmentId, title: DEMO_BRIEFING.title }).first('id', 'latest_version');
   const id: number = existing?.id
-    ?? (await briefings.create(scope, consultant, { catchmentId: catchment.id, title: DEMO_BRIEFING.title, summary: DEMO_BRIEFING.summary, selection })).id;
+    ?? (await briefings.create(scope, consultant, { catchmentId, title: DEMO_BRIEFING.title, summary: DEMO_BRIEFING.summary, selection })).id;
   const published = Boolean(existing?.latest_version);
   if (!published) await briefings.saveDraft(scope, consultant, id, { ...DEMO_BRIEFING, selection });
   // Sharing is idempotent: on a re-run it restores a removed share and otherwise changes nothing.

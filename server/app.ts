@@ -4,16 +4,15 @@ import helmet from 'helmet';
 import { existsSync } from 'node:fs';
 import path from 'node:path';
 import type { AppContext } from './context';
-import { apiNotFound, errorHandler } from './middleware/error-handler';
-import { apiRoutes } from './routes';
-import { billingWebhookRoute } from './routes/billing';
+import { errorHandler } from './middleware/error-handler';
+import { apiRouter } from './routes';
 
 export interface AppOptions {
   /** Folder of the built client to serve (with SPA fallback); omitted in API-only tests. */
   clientDir?: string;
 }
 
-/** The Express app: security headers, JSON API under /api, the built client, one error handler. */
+/** The Express app: security headers, the API under /api (server/routes), the built client, one error handler. */
 export function createApp(ctx: AppContext, options: AppOptions = {}): Express {
   const app = express();
   app.disable('x-powered-by');
@@ -40,11 +39,7 @@ export function createApp(ctx: AppContext, options: AppOptions = {}): Express {
     }),
   );
   app.use(cookieParser());
-  // Before the JSON parser: webhook signatures cover the raw bytes.
-  app.use(billingWebhookRoute(ctx));
-  app.use('/api', express.json({ limit: '1mb' }));
-  app.use('/api', apiRoutes(ctx));
-  app.use('/api', apiNotFound);
+  app.use('/api', apiRouter(ctx));
 
   if (options.clientDir && existsSync(options.clientDir)) {
     const dir = path.resolve(options.clientDir);

@@ -1,5 +1,5 @@
-import { availableParallelism } from 'node:os';
 import { z } from 'zod';
+import { defaultThreadCount } from './services/thread-budget';
 
 /**
  * Server settings, read from the environment once. Defaults suit the local set-up
@@ -38,8 +38,11 @@ const envSchema = z.object({
   SMTP_PASSWORD: z.string().optional(),
   MAIL_FROM: z.string().min(3).default('Tarnish <no-reply@tarnish.localhost>'),
   MAILS_PER_ADDRESS_PER_HOUR: z.coerce.number().int().positive().default(5),
-  /** Worker threads for simulations; 0 = one fewer than the machine's cores (at least 1), keeping a core for the API. */
-  RUN_WORKER_THREADS: z.coerce.number().int().min(0).max(64).default(0),
+  /**
+   * Worker threads shared by every pool (runs, lab, PDFs); 0 = one fewer than the machine's cores
+   * (at least 1), keeping a core for the API.
+   */
+  WORKER_THREADS: z.coerce.number().int().min(0).max(64).default(0),
   /** Runs simulated at the same time; their simulations share the worker threads. */
   RUN_CONCURRENCY: z.coerce.number().int().min(1).max(16).default(2),
 });
@@ -75,7 +78,9 @@ export interface AppConfig {
     from: string;
     perAddressPerHour: number;
   };
-  runs: { workerThreads: number; concurrency: number };
+  /** Worker threads all pools share (see server/services/thread-budget.ts). */
+  workerThreads: number;
+  runs: { concurrency: number };
 }
 
 /** Parses an environment map into the typed config; throws one readable message listing every bad variable. */
@@ -124,7 +129,8 @@ export function parseConfig(env: Record<string, string | undefined>): AppConfig 
       from: e.MAIL_FROM,
       perAddressPerHour: e.MAILS_PER_ADDRESS_PER_HOUR,
     },
-    runs: { workerThreads: e.RUN_WORKER_THREADS || Math.max(1, availableParallelism() - 1), concurrency: e.RUN_CONCURRENCY },
+    workerThreads: e.WORKER_THREADS || defaultThreadCount(),
+    runs: { concurrency: e.RUN_CONCURRENCY },
   };
 }
 

@@ -1,52 +1,84 @@
 import type { Knex } from 'knex';
 import type { AppConfig } from './config';
-import { AuthService } from './services/auth-service';
-import { createTeamServices, type TeamServices, type TeamServicesOptions } from './services/team-services';
-import { BandService } from './services/band-service';
-import { CatchmentService } from './services/catchment-service';
-import { DatasetService } from './services/dataset-service';
-import { UploadService } from './services/upload-service';
-import { LabService } from './services/lab/lab-service';
-import { LabPool } from './services/lab/lab-pool';
-import { createRunServices, type RunServices, type RunServicesOptions } from './services/runs/run-services';
-import { createBriefingServices, type BriefingServices, type BriefingServicesOptions } from './services/briefings/briefing-services';
+import { createAuthServices, type AuthServices } from './services/auth';
+import { createBillingServices, type BillingServices } from './services/billing';
+import { createBriefingServices, type BriefingServices } from './services/briefings';
+import type { BriefingResultsSource } from './services/briefings/comparison';
+import { createCatchmentServices, type CatchmentServices } from './services/catchments';
+import { createLabServices, type LabServices } from './services/lab';
+import { createMailServices, type MailServices } from './services/mail';
+import type { MailInbox } from './services/mail/mail-catcher';
+import { createMemberServices, type MemberServices } from './services/members';
+import { createRunServices, type RunServices } from './services/runs';
+import type { CatchmentInputSource } from './services/runs/catchment-inputs';
+import type { Simulator } from './services/runs/simulator';
+import { ThreadBudget } from './services/thread-budget';
 
-/** Everything the routes need, built once per app so tests can build their own. */
-export interface AppContext extends TeamServices, RunServices, BriefingServices {
+/** Everything the routes need, built once per app by `createContext` (tests and seeds build their own). */
+export interface AppContext
+  extends AuthServices, MailServices, BillingServices, MemberServices, CatchmentServices, LabServices, RunServices, BriefingServices {
   config: AppConfig;
   db: Knex;
-  auth: AuthService;
-  catchments: CatchmentService;
-  bands: BandService;
-  datasets: DatasetService;
-  uploads: UploadService;
-  lab: LabService;
+  /** The worker threads the run, lab and PDF pools share (`config.workerThreads`). */
+  threads: ThreadBudget;
+  /** Marks work an earlier process left unfinished as failed and starts a thread per pool (server start). */
+  start(): Promise<void>;
+  /** Waits for runs and lab jobs under way, then stops the worker threads and the mail transport. The database stays open. */
+  close(): Promise<void>;
 }
 
-export interface ContextOptions extends TeamServicesOptions, RunServicesOptions, BriefingServicesOptions {
-  /** bcrypt work factor; 12 in production, lower locally to keep tests quick. */
+export interface ContextOptions {
+  /** bcrypt work factor; 12 in production, 10 elsewhere, lower in tests to keep them quick. */
   bcryptCost?: number;
-  /** Worker threads for the lab's computations; one less than the cores by default. */
-  labThreads?: number;
+  /** Simulates run members (`{ threads; simulate() }`); the worker pool unless given. */
+  simulator?: Simulator;
+  /** Where run engine inputs come from; the catchment's stored data unless given. */
+  catchmentInputs?: CatchmentInputSource;
+  /** Where briefing numbers come from; finished runs unless given. */
+  briefingResults?: BriefingResultsSource;
+  /** The local mail catcher, when one runs beside the app (development and tests). */
+  inbox?: MailInbox;
 }
 
+/** The composition root: every service built here, from the config, the database and the options. */
 export function createContext(config: AppConfig, db: Knex, options: ContextOptions = {}): AppContext {
-  const bcryptCost = options.bcryptCost ?? (config.env === 'production' ? 12 : 10);
-  const auth = new AuthService(db, bcryptCost);
-  const bands = new BandService();
-  const team = createTeamServices(config, db, auth, options);
-  const runServices = createRunServices(config, db, bands, options);
+  const threads = new ThreadBudget(config.workerThreads);
+  const authServices = createAuthServices({ config, db, bcryptCost: options.bcryptCost });
+  const mailServices = createMailServices({ config, db, inbox: options.inbox });
+  const memberServices = createMemberServices({ config, db, auth: authServices.auth, mail: mailServices.mail });
+  const catchmentServices = createCatchmentServices();
+  const labServices = createLabServices({ db, bands: catchmentServices.bands, threads });
+  const runServices = createRunServices({
+    config, db, bands: catchmentServices.bands, calibrations: labServices.lab.calibrations, threads,
+    simulator: options.simulator, catchmentInputs: options.catchmentInputs,
+  });
+  const briefingServices = createBriefingServices({
+    results: runServices.results, invitations: memberServices.invitations, threads, briefingResults: options.briefingResults,
+  });
+  const pools = [runServices.simulationPool, labServices.lab.pool, briefingServices.pdfPool];
   return {
     config,
     db,
-    auth,
-    ...team,
-    catchments: new CatchmentService(),
-    bands,
-    datasets: new DatasetService(),
-    uploads: new UploadService(),
-    lab: new LabService(db, new BandService(), new LabPool(options.labThreads)),
+    threads,
+    ...authServices,
+    ...mailServices,
+    ...createBillingServices({ config, db }),
+    ...memberServices,
+    ...catchmentServices,
+    ...labServices,
     ...runServices,
-    ...createBriefingServices({ results: runServices.results, invitations: team.invitations }, options),
+    ...briefingServices,
+    async start() {
+      // Runs and lab jobs left running cannot resume: their inputs were in the earlier process's memory.
+      await runServices.runExecutor.recover();
+      await labServices.lab.jobs.recover();
+      for (const pool of pools) pool.warm();
+    },
+    async close() {
+      await runServices.runExecutor.idle();
+      await labServices.lab.jobs.idle();
+      await Promise.all(pools.map((pool) => pool.close()));
+      mailServices.mail.close();
+    },
   };
 }

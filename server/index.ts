@@ -8,13 +8,7 @@ export async function startServer(options: ContextOptions = {}): Promise<{ close
   const config = loadConfig();
   const db = createDb(config.db);
   const ctx = createContext(config, db, options);
-  // Lab jobs left running by an earlier process cannot resume: their work was in its memory.
-  await ctx.lab.jobs.recover();
-  ctx.lab.pool.warm();
-  // Runs left queued or running by an earlier process cannot resume: their inputs were in its memory.
-  await ctx.runExecutor.recover();
-  ctx.simulationPool.warm();
-  ctx.pdfPool.warm();
+  await ctx.start();
   const app = createApp(ctx, { clientDir: 'dist' });
   const server = app.listen(config.port, config.host);
   await new Promise<void>((resolve, reject) => server.once('listening', resolve).once('error', reject));
@@ -24,14 +18,12 @@ export async function startServer(options: ContextOptions = {}): Promise<{ close
     ctx,
     close: async () => {
       await new Promise<void>((resolve) => server.close(() => resolve()));
-      await ctx.lab.pool.close();
-      await ctx.simulationPool.close();
-      await ctx.pdfPool.close();
+      await ctx.close();
       await db.destroy();
     },
   };
 }
 
 if (import.meta.url === `file://${process.argv[1]}`) {
-  startServer().then(({ url }) => console.log(`[tarnish] serving ${url}`));
+  void startServer().then(({ url }) => console.log(`[tarnish] serving ${url}`));
 }

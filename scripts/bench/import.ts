@@ -4,10 +4,11 @@
  * transaction (confirm). Runs against the database in the environment (DB_* variables, as the
  * server), inside a throw-away organisation that is removed afterwards.
  */
+import { datasetUploadFieldsSchema } from '../../shared/schemas/datasets';
 import { loadConfig } from '../../server/config';
+import { createContext } from '../../server/context';
 import { createDb } from '../../server/db';
 import { TenantScope } from '../../server/services/tenant-scope';
-import { UploadService } from '../../server/services/upload-service';
 
 const HOURS = 87_600;
 
@@ -24,18 +25,20 @@ function tenYearsHourly(): Buffer {
 }
 
 async function main(): Promise<void> {
-  const db = createDb(loadConfig().db);
+  const config = loadConfig();
+  const db = createDb(config.db);
+  const ctx = createContext(config, db);
   const file = { originalname: 'ten-years-hourly.csv', buffer: tenYearsHourly() };
   const [organisationId] = await db('organisations').insert({ name: `Import benchmark ${Date.now()}` });
   try {
     const [userId] = await db('users').insert({ organisation_id: organisationId, email: `bench.${Date.now()}@bench.invalid`, name: 'Benchmark', role: 'consultant' });
     const scope = new TenantScope(db, organisationId);
-    const catchmentId = await scope.insert('catchments', {
-      name: 'Benchmark basin', description: '', latitude_deg: 33, longitude_deg: 75, time_zone: 'Asia/Kolkata', station_name: 'Bench', station_elevation_m: 3000,
-    });
-    const uploads = new UploadService();
+    const { id: catchmentId } = await ctx.catchments.create(scope, {
+      name: 'Benchmark basin', description: '', latitudeDeg: 33, longitudeDeg: 75, timeZone: 'Asia/Kolkata', stationName: 'Bench', stationElevationM: 3000, outletDescription: '',
+    }, userId);
+    const { uploads } = ctx;
     const user = { id: userId, name: 'Benchmark' };
-    const fields = { variable: 'temperature', timeZone: 'Asia/Kolkata', source: 'Synthetic benchmark series', accuracy: '' };
+    const fields = datasetUploadFieldsSchema.parse({ variable: 'temperature', timeZone: 'Asia/Kolkata', source: 'Synthetic benchmark series' });
     const started = performance.now();
     const preview = await uploads.preview(scope, catchmentId, file, fields, user);
     const previewed = performance.now();
@@ -48,6 +51,7 @@ async function main(): Promise<void> {
     console.log(`  total: ${((stored - started) / 1000).toFixed(2)} s (target under 5 s)`);
   } finally {
     await db('organisations').where('id', organisationId).delete();
+    await ctx.close();
     await db.destroy();
   }
 }

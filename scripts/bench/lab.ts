@@ -88,8 +88,7 @@ async function main(): Promise<void> {
     console.log(`  /api/health meanwhile: slowest of ${healthCalls} answers ${slowestHealthMs.toFixed(0)} ms (target under 100 ms);` +
       ` longest event-loop stall ${(loopDelay.max / 1e6).toFixed(0)} ms`);
   } finally {
-    await ctx.lab.jobs.idle();
-    await ctx.lab.pool.close();
+    await ctx.close();
     server.close();
     await db('organisations').where('id', organisationId).delete();
     await db.destroy();

@@ -7,7 +7,9 @@ import { cpus, loadavg } from 'node:os';
 import { performance } from 'node:perf_hooks';
 import { assembleSnapshot } from '../../server/services/briefings/assemble';
 import { briefingPdf } from '../../server/services/briefings/pdf/briefing-pdf';
-import { PdfPool } from '../../server/services/briefings/pdf/pdf-pool';
+import { loadConfig } from '../../server/config';
+import { createContext } from '../../server/context';
+import { createDb } from '../../server/db';
 import { briefingComparison } from '../../tests/fixtures/briefing-comparison';
 import { TEN_SECTIONS } from '../../tests/fixtures/briefing-draft';
 
@@ -35,13 +37,17 @@ console.log(`briefing PDF, ${snapshot.sections.length} sections, ${(bytes / 1024
 console.log(`first (cold) ${times[0].toFixed(0)} ms · median of 5 ${sorted[2].toFixed(0)} ms · worst ${sorted[4].toFixed(0)} ms (target < 3000 ms)`);
 console.log('written to test-results/bench-briefing.pdf');
 
-// The same through the worker thread the API uses (first call includes starting the thread).
-const pool = new PdfPool();
+// The same through the worker thread the API uses (first call includes starting the thread); no database is reached.
+const config = loadConfig();
+const db = createDb(config.db);
+const ctx = createContext(config, db);
+const pool = ctx.pdfPool;
 const viaPool: number[] = [];
 for (let i = 0; i < 3; i++) {
   const start = performance.now();
   await pool.render(snapshot);
   viaPool.push(performance.now() - start);
 }
-await pool.close();
+await ctx.close();
+await db.destroy();
 console.log(`through the worker thread: first ${viaPool[0].toFixed(0)} ms (thread start included) · then ${viaPool[1].toFixed(0)} ms, ${viaPool[2].toFixed(0)} ms`);

@@ -10,8 +10,9 @@ import { loadConfig } from '../../server/config';
 import { createContext } from '../../server/context';
 import { createDb } from '../../server/db';
 
-const db = createDb(loadConfig().db);
-const ctx = createContext(loadConfig(), db);
+const config = loadConfig();
+const db = createDb(config.db);
+const ctx = createContext(config, db);
 ctx.simulationPool.warm();
 // As at server start: the worker threads load the engine before the first run arrives.
 await new Promise((r) => setTimeout(r, 3000));
@@ -31,5 +32,5 @@ process.once('SIGTERM', () => {
     busyShare: performance.eventLoopUtilization(utilisationAtStart).utilization,
   }));
   server.close();
-  void ctx.runExecutor.idle().then(() => ctx.simulationPool.close()).then(() => db.destroy()).then(() => process.exit(0));
+  void ctx.close().then(() => db.destroy()).then(() => process.exit(0));
 });

@@ -18,7 +18,9 @@ import { createInterface } from 'node:readline';
 import { availableParallelism, loadavg } from 'node:os';
 import { loadConfig } from '../../server/config';
 import { createDb } from '../../server/db';
-import { insertDatasetValues } from '../../server/services/dataset-values';
+import { insertBaseline } from '../../server/services/catchments/baseline-scenario';
+import { insertDatasetValues } from '../../server/services/catchments/dataset-values';
+import { TenantScope } from '../../server/services/tenant-scope';
 import { DEMO_BANDS, DEMO_CATCHMENT } from '../../seeds/data/demo-catchment';
 import { syntheticStation } from '../../seeds/data/synthetic-station';
 import type { Run } from '../../shared/schemas/runs';
@@ -44,6 +46,7 @@ async function setUp(): Promise<number> {
     organisation_id: organisationId, name: c.name, description: c.description, latitude_deg: c.latitudeDeg, longitude_deg: c.longitudeDeg,
     time_zone: c.timeZone, station_name: c.stationName, station_elevation_m: c.stationElevationM, outlet_description: c.outletDescription,
   });
+  await insertBaseline(new TenantScope(db, organisationId), catchmentId, null);
   await db('elevation_bands').insert(DEMO_BANDS.map((b, position) => ({
     organisation_id: organisationId, catchment_id: catchmentId, position, lower_m: b.lowerM, upper_m: b.upperM, area_km2: b.areaKm2,
     slope_deg: b.slopeDeg, aspect_deg: b.aspectDeg, glacier_fraction: b.glacierFraction, debris_fraction: b.debrisFraction, debris_thickness_m: b.debrisThicknessM,

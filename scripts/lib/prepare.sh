@@ -1,6 +1,6 @@
 # Shared preparation for `npm start`, `npm test` and `npm run dev`: install what is
-# missing (npm packages, Debian's MariaDB, Chromium for browser tests) and run a
-# private MariaDB server on loopback. Sourced by the scripts beside it.
+# missing (npm packages, Debian's MariaDB, Chromium for browser tests, GDAL's tools for the
+# geodata tests) and run a private MariaDB server on loopback. Sourced by the scripts beside it.
 
 log() { printf '\033[1;34m[tarnish]\033[0m %s\n' "$*"; }
 
@@ -30,6 +30,15 @@ ensure_mariadb_installed() {
     apt_install mariadb-server
   fi
   export PATH="$PATH:/usr/sbin"
+}
+
+# GDAL's command-line tools: the geodata tests check slope, aspect, rasterising and
+# reprojection against gdaldem, gdal_rasterize, gdalwarp and gdaltransform.
+ensure_gdal_installed() {
+  if ! command -v gdaldem >/dev/null 2>&1; then
+    log "Installing Debian's gdal-bin for the geodata reference tests"
+    apt_install gdal-bin
+  fi
 }
 
 ensure_chromium_installed() {
@@ -77,6 +86,18 @@ $drop
 CREATE DATABASE IF NOT EXISTS \`$db\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;
 CREATE USER IF NOT EXISTS '$user'@'127.0.0.1' IDENTIFIED BY '$pass';
 CREATE USER IF NOT EXISTS '$user'@'localhost' IDENTIFIED BY '$pass';
+GRANT ALL PRIVILEGES ON \`$db\`.* TO '$user'@'127.0.0.1';
+GRANT ALL PRIVILEGES ON \`$db\`.* TO '$user'@'localhost';
+SQL
+}
+
+# mariadb_extra_database DATABASE USER: another empty database on the server started by
+# mariadb_start, for the same application user (dropped first: it always starts empty).
+mariadb_extra_database() {
+  local db=$1 user=$2
+  mariadb --no-defaults --socket="$MARIADB_DIR/mysqld.sock" -uroot <<SQL
+DROP DATABASE IF EXISTS \`$db\`;
+CREATE DATABASE \`$db\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;
 GRANT ALL PRIVILEGES ON \`$db\`.* TO '$user'@'127.0.0.1';
 GRANT ALL PRIVILEGES ON \`$db\`.* TO '$user'@'localhost';
 SQL

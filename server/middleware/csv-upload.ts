@@ -1,7 +1,7 @@
 import type { NextFunction, Request, RequestHandler, Response } from 'express';
 import multer from 'multer';
 import { AppError, badRequest } from '../errors';
-import { MAX_UPLOAD_BYTES, MAX_UPLOAD_LABEL, notCsv } from '../services/csv/read-table';
+import { MAX_UPLOAD_BYTES, MAX_UPLOAD_LABEL, notCsv } from '../services/catchments/csv/read-table';
 
 const ALLOWED_EXTENSIONS = /\.(csv|txt)$/i;
 const ALLOWED_TYPES = new Set(['text/csv', 'text/plain', 'application/csv', 'application/vnd.ms-excel', 'text/x-csv', 'application/octet-stream', '']);

@@ -1,8 +1,8 @@
 import type { NextFunction, Request, RequestHandler, Response } from 'express';
 import type { AppContext } from '../context';
 import { unauthorized } from '../errors';
-import type { UserRow } from '../services/auth-service';
-import { verifySessionToken } from '../services/session-tokens';
+import type { UserRow } from '../services/auth/auth-service';
+import { verifySessionToken } from '../services/auth/session-tokens';
 import { TenantScope } from '../services/tenant-scope';
 
 export const SESSION_COOKIE = 'tarnish_session';

@@ -1,28 +1,29 @@
-import type { NextFunction, Request, RequestHandler, Response } from 'express';
 import type { z } from 'zod';
-import { validationFailed } from '../errors';
+import { issueField } from '../../shared/schemas/field-errors';
+import { notFound, validationFailed, type AppError } from '../errors';
 
-/** Parses a value with a shared schema; a failure names the first bad field in plain words. */
-export function parseWith<S extends z.ZodType>(schema: S, value: unknown): z.infer<S> {
+/** How a failed parse is answered; by default a 422 naming the first bad field. */
+export type Refusal = (issues: readonly z.core.$ZodIssue[]) => AppError;
+
+const namingFirstField: Refusal = (issues) => {
+  const issue = issues[0]!;
+  const field = issueField(issue) || undefined;
+  const all = issues.map((i) => ({ field: issueField(i), message: i.message }));
+  return validationFailed(field ? `${field}: ${issue.message}` : issue.message, field, { issues: all });
+};
+
+/** Parses a value with a shared schema; a failure is refused by `refuse` (a 422 naming the first bad field). */
+export function parseWith<S extends z.ZodType>(schema: S, value: unknown, refuse: Refusal = namingFirstField): z.infer<S> {
   const result = schema.safeParse(value);
   if (result.success) return result.data;
-  const issue = result.error.issues[0]!;
-  const field = issue.path.map(String).join('.') || undefined;
-  const issues = result.error.issues.map((i) => ({ field: i.path.map(String).join('.'), message: i.message }));
-  throw validationFailed(field ? `${field}: ${issue.message}` : issue.message, field, { issues });
+  throw refuse(result.error.issues);
 }
 
-/** Replaces `req.body` with its parsed, typed form or answers 422. */
-export function validateBody(schema: z.ZodType): RequestHandler {
-  return (req: Request, _res: Response, next: NextFunction) => {
-    req.body = parseWith(schema, req.body ?? {});
-    next();
-  };
-}
+/** A 422 with the first issue's message alone, for values that are not form fields (a link's token). */
+export const messageOnly: Refusal = (issues) => validationFailed(issues[0]?.message ?? 'The request is not valid.');
 
-/** Parses a positive integer route parameter; anything else is simply not found. */
-export function idParam(req: Request, name = 'id'): number {
-  const raw = req.params[name];
-  const id = typeof raw === 'string' && /^\d{1,10}$/.test(raw) ? Number(raw) : -1;
-  return id;
-}
+/**
+ * Path parameters that do not parse name a record that does not exist: 404, with the schema's
+ * message as the record's name (see `idOf`).
+ */
+export const paramsNotFound: Refusal = (issues) => notFound(issues[0]?.message);

@@ -1,15 +1,14 @@
-import { Router, type CookieOptions, type Response } from 'express';
+import type { CookieOptions, Response } from 'express';
 import { signInSchema, signUpSchema } from '../../shared/schemas/auth';
 import type { AppContext } from '../context';
-import { authOf, requireAuth, SESSION_COOKIE } from '../middleware/require-auth';
+import { SESSION_COOKIE } from '../middleware/require-auth';
 import { signInLimits } from '../middleware/sign-in-limits';
-import { validateBody } from '../middleware/validate';
-import type { UserRow } from '../services/auth-service';
-import { signSessionToken } from '../services/session-tokens';
+import type { UserRow } from '../services/auth/auth-service';
+import { signSessionToken } from '../services/auth/session-tokens';
+import { memberArea, publicArea, type ApiArea } from './route-table';
 
-/** /api/auth/* and /api/me: sign-up, sign-in, sign-out and the current user. */
-export function authRoutes(ctx: AppContext): Router {
-  const router = Router();
+/** /api/auth/* and /api/me: sign-up and sign-in (public), sign-out and the current user. */
+export function authRoutes(ctx: AppContext): ApiArea[] {
   const { auth, config } = ctx;
 
   const cookieOptions = (): CookieOptions => ({
@@ -30,26 +29,32 @@ export function authRoutes(ctx: AppContext): Router {
     res.json(await auth.me(user));
   };
 
-  router.post('/auth/sign-up', validateBody(signUpSchema), async (req, res) => {
-    const user = await auth.signUp(req.body);
-    res.status(201);
-    await startSession(res, user);
+  const signing = publicArea('/auth', (route) => {
+    route.post('/sign-up', { body: signUpSchema }, async ({ body }, res) => {
+      const user = await auth.signUp(body);
+      res.status(201);
+      await startSession(res, user);
+    });
+
+    route.post('/sign-in', { before: signInLimits(config.auth.signInLimits), body: signInSchema }, async ({ body }, res) => {
+      await startSession(res, await auth.signIn(body));
+    });
   });
 
-  router.post('/auth/sign-in', ...signInLimits(config.auth.signInLimits), validateBody(signInSchema), async (req, res) => {
-    await startSession(res, await auth.signIn(req.body));
+  const session = memberArea('/auth', (route) => {
+    route.post('/sign-out', 'signedIn', {}, async ({ auth: { user } }, res) => {
+      await auth.signOut(user.id);
+      const { maxAge: _unused, ...clear } = cookieOptions();
+      res.clearCookie(SESSION_COOKIE, clear);
+      res.status(204).end();
+    });
   });
 
-  router.post('/auth/sign-out', requireAuth(ctx), async (req, res) => {
-    await auth.signOut(authOf(req).user.id);
-    const { maxAge: _unused, ...clear } = cookieOptions();
-    res.clearCookie(SESSION_COOKIE, clear);
-    res.status(204).end();
+  const me = memberArea('/me', (route) => {
+    route.get('/', 'signedIn', {}, async ({ auth: { user } }, res) => {
+      res.json(await auth.me(user));
+    });
   });
 
-  router.get('/me', requireAuth(ctx), async (req, res) => {
-    res.json(await auth.me(authOf(req).user));
-  });
-
-  return router;
+  return [signing, session, me];
 }

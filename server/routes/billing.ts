@@ -1,59 +1,53 @@
-import express, { Router } from 'express';
+import express from 'express';
 import { checkoutRequestSchema, resizeRequestSchema } from '../../shared/schemas/billing';
 import type { AppContext } from '../context';
-import { authOf, requireAuth } from '../middleware/require-auth';
-import { requireRole } from '../middleware/require-role';
-import { validateBody } from '../middleware/validate';
+import { memberArea, publicArea, type ApiArea } from './route-table';
 
 /** /api/billing/*: the seat plan, for admins. */
-export function billingRoutes(ctx: AppContext): Router {
-  const router = Router();
+export function billingRoutes(ctx: AppContext): ApiArea {
   const { billing } = ctx;
-  router.use('/billing', requireAuth(ctx), requireRole('admin'));
+  return memberArea('/billing', (route) => {
+    route.get('/', 'manageSeats', {}, async ({ auth: { scope } }, res) => {
+      res.json(await billing.summary(scope));
+    });
 
-  router.get('/billing', async (req, res) => {
-    res.json(await billing.summary(authOf(req).scope));
+    route.get('/plans', 'manageSeats', {}, async (_input, res) => {
+      res.json({ plans: await billing.plans() });
+    });
+
+    route.post('/checkout', 'manageSeats', { body: checkoutRequestSchema }, async ({ auth: { user, scope }, body }, res) => {
+      res.status(201).json({ url: await billing.startCheckout(scope, user, body) });
+    });
+
+    route.put('/seats', 'manageSeats', { body: resizeRequestSchema }, async ({ auth: { scope }, body }, res) => {
+      res.json({ subscription: await billing.resize(scope, body.seats) });
+    });
+
+    route.post('/cancel', 'manageSeats', {}, async ({ auth: { scope } }, res) => {
+      res.json({ subscription: await billing.setCancelAtPeriodEnd(scope, true) });
+    });
+
+    route.post('/resume', 'manageSeats', {}, async ({ auth: { scope } }, res) => {
+      res.json({ subscription: await billing.setCancelAtPeriodEnd(scope, false) });
+    });
+
+    route.get('/invoices', 'manageSeats', {}, async ({ auth: { scope } }, res) => {
+      res.json({ invoices: await billing.invoices(scope) });
+    });
   });
-
-  router.get('/billing/plans', async (_req, res) => {
-    res.json({ plans: await billing.plans() });
-  });
-
-  router.post('/billing/checkout', validateBody(checkoutRequestSchema), async (req, res) => {
-    const { user, scope } = authOf(req);
-    res.status(201).json({ url: await billing.startCheckout(scope, user, req.body) });
-  });
-
-  router.put('/billing/seats', validateBody(resizeRequestSchema), async (req, res) => {
-    res.json({ subscription: await billing.resize(authOf(req).scope, req.body.seats) });
-  });
-
-  router.post('/billing/cancel', async (req, res) => {
-    res.json({ subscription: await billing.setCancelAtPeriodEnd(authOf(req).scope, true) });
-  });
-
-  router.post('/billing/resume', async (req, res) => {
-    res.json({ subscription: await billing.setCancelAtPeriodEnd(authOf(req).scope, false) });
-  });
-
-  router.get('/billing/invoices', async (req, res) => {
-    res.json({ invoices: await billing.invoices(authOf(req).scope) });
-  });
-
-  return router;
 }
 
 /**
- * POST /api/billing/webhook: events from the payment service. Mounted before the JSON
- * parser because the signature covers the exact bytes received.
+ * POST /api/billing/webhook: events from the payment service, trusted by their signature. Mounted
+ * before the JSON parser because the signature covers the exact bytes received.
  */
-export function billingWebhookRoute(ctx: AppContext): Router {
-  const router = Router();
-  router.post('/api/billing/webhook', express.raw({ type: '*/*', limit: '256kb' }), async (req, res) => {
-    const body = Buffer.isBuffer(req.body) ? req.body : Buffer.alloc(0);
-    const event = ctx.webhooks.verify(body, req.get('stripe-signature'));
-    const applied = await ctx.webhooks.receive(event);
-    res.json({ received: true, duplicate: !applied });
-  });
-  return router;
+export function billingWebhookRoutes(ctx: AppContext): ApiArea {
+  return publicArea('/billing/webhook', (route) => {
+    route.post('/', { before: [express.raw({ type: '*/*', limit: '256kb' })] }, async ({ req }, res) => {
+      const body = Buffer.isBuffer(req.body) ? req.body : Buffer.alloc(0);
+      const event = ctx.webhooks.verify(body, req.get('stripe-signature'));
+      const applied = await ctx.webhooks.receive(event);
+      res.json({ received: true, duplicate: !applied });
+    });
+  }, { rawBody: true });
 }

@@ -1,42 +1,35 @@
-import { Router } from 'express';
+import { z } from 'zod';
+import { bandTableRefusal, bandTableRequestSchema } from '../../shared/schemas/catchment-bands';
 import type { AppContext } from '../context';
+import { validationFailed } from '../errors';
 import { csvUpload } from '../middleware/csv-upload';
-import { authOf, requireAuth } from '../middleware/require-auth';
-import { requireRole } from '../middleware/require-role';
-import { idParam } from '../middleware/validate';
-import { readBandFile } from '../services/csv/band-file';
-import { safeFileName } from '../../shared/csv/csv-writing';
-import { decodeCsvText } from '../services/csv/read-table';
-import { READERS, WRITERS } from './catchments';
+import { requireCatchment } from '../middleware/require-catchment';
+import { sendDownload } from './download';
+import { idOf, memberArea, type ApiArea } from './route-table';
 
-/** /api/catchments/:id/bands: the band table, as JSON or CSV; a CSV read into rows for the editor. */
-export function catchmentBandRoutes(ctx: AppContext): Router {
-  const router = Router();
-  const path = '/catchments/:id/bands';
-  router.use(path, requireAuth(ctx), requireRole(...READERS));
+const params = z.object({ catchmentId: idOf('Catchment') });
 
-  router.get(path, async (req, res) => {
-    res.json({ bands: await ctx.bands.list(authOf(req).scope, idParam(req)) });
+/** /api/catchments/:catchmentId/bands: the band table, as JSON or CSV; a CSV read into rows for the editor. */
+export function catchmentBandRoutes(ctx: AppContext): ApiArea {
+  const refuse = (issues: Parameters<typeof bandTableRefusal>[0]) => {
+    const { message, field, problems } = bandTableRefusal(issues);
+    return validationFailed(message, field, { problems });
+  };
+  return memberArea('/catchments/:catchmentId', (route) => {
+    route.get('/bands', 'readCatchments', { params }, async ({ auth: { scope }, params }, res) => {
+      res.json({ bands: await ctx.bands.list(scope, params.catchmentId) });
+    });
+
+    route.put('/bands', 'editCatchments', { params, body: bandTableRequestSchema, refuse }, async ({ auth: { scope }, params, body }, res) => {
+      res.json({ bands: await ctx.bands.replace(scope, params.catchmentId, body.bands) });
+    });
+
+    route.get('/bands.csv', 'readCatchments', { params }, async ({ auth: { scope }, params }, res) => {
+      sendDownload(res, await ctx.bands.csvFile(scope, params.catchmentId));
+    });
+
+    route.post('/bands/file', 'editCatchments', { params, before: [requireCatchment(ctx), csvUpload()] }, ({ req }, res) => {
+      res.json(ctx.bands.readFile(req.file!));
+    });
   });
-
-  router.put(path, requireRole(...WRITERS), async (req, res) => {
-    res.json({ bands: await ctx.bands.replace(authOf(req).scope, idParam(req), req.body?.bands) });
-  });
-
-  router.get(`${path}.csv`, requireAuth(ctx), requireRole(...READERS), async (req, res) => {
-    const { scope } = authOf(req);
-    const catchment = await ctx.catchments.get(scope, idParam(req));
-    const text = await ctx.bands.csv(scope, catchment.id);
-    res.attachment(`${safeFileName(catchment.name)}-bands.csv`).type('text/csv').send(text);
-  });
-
-  // Reads a band file into rows and problems without storing it: the editor shows them, then saves.
-  router.post(`${path}/file`, requireRole(...WRITERS), async (req, _res, next) => {
-    await ctx.catchments.get(authOf(req).scope, idParam(req));
-    next();
-  }, csvUpload(), async (req, res) => {
-    res.json(readBandFile(decodeCsvText(req.file!.buffer)));
-  });
-
-  return router;
 }

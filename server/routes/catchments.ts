@@ -1,46 +1,36 @@
-import { Router } from 'express';
-import { catchmentFormSchema, catchmentListQuerySchema } from '../../shared/schemas/catchments';
-import type { AppContext } from '../context';
-import { authOf, requireAuth } from '../middleware/require-auth';
-import { requireRole } from '../middleware/require-role';
-import { idParam, parseWith, validateBody } from '../middleware/validate';
 import { z } from 'zod';
+import { catchmentArchiveSchema, catchmentFormSchema, catchmentListQuerySchema } from '../../shared/schemas/catchments';
+import type { AppContext } from '../context';
+import { idOf, memberArea, type ApiArea } from './route-table';
 
-/** Everyone with workshop access reads catchments; clients have none. */
-export const READERS = ['admin', 'consultant', 'scientist'] as const;
-export const WRITERS = ['admin', 'consultant'] as const;
+const catchmentParams = z.object({ id: idOf('Catchment') });
 
 /** /api/catchments: list, read, create, edit, archive, delete. */
-export function catchmentRoutes(ctx: AppContext): Router {
-  const router = Router();
+export function catchmentRoutes(ctx: AppContext): ApiArea {
   const service = ctx.catchments;
-  router.use('/catchments', requireAuth(ctx), requireRole(...READERS));
+  return memberArea('/catchments', (route) => {
+    route.get('/', 'readCatchments', { query: catchmentListQuerySchema }, async ({ auth: { scope }, query }, res) => {
+      res.json(await service.list(scope, query));
+    });
 
-  router.get('/catchments', async (req, res) => {
-    const query = parseWith(catchmentListQuerySchema, req.query);
-    res.json(await service.list(authOf(req).scope, query));
+    route.post('/', 'editCatchments', { body: catchmentFormSchema }, async ({ auth: { scope, user }, body }, res) => {
+      res.status(201).json({ catchment: await service.create(scope, body, user.id) });
+    });
+
+    route.get('/:id', 'readCatchments', { params: catchmentParams }, async ({ auth: { scope }, params }, res) => {
+      res.json({ catchment: await service.get(scope, params.id) });
+    });
+
+    route.put('/:id', 'editCatchments', { params: catchmentParams, body: catchmentFormSchema }, async ({ auth: { scope }, params, body }, res) => {
+      res.json({ catchment: await service.update(scope, params.id, body) });
+    });
+
+    route.post('/:id/archive', 'editCatchments', { params: catchmentParams, body: catchmentArchiveSchema }, async ({ auth: { scope }, params, body }, res) => {
+      res.json({ catchment: await service.setArchived(scope, params.id, body.archived) });
+    });
+
+    route.delete('/:id', 'editCatchments', { params: catchmentParams }, async ({ auth: { scope }, params }, res) => {
+      res.json({ outcome: await service.remove(scope, params.id) });
+    });
   });
-
-  router.post('/catchments', requireRole(...WRITERS), validateBody(catchmentFormSchema), async (req, res) => {
-    const { scope, user } = authOf(req);
-    res.status(201).json({ catchment: await service.create(scope, req.body, user.id) });
-  });
-
-  router.get('/catchments/:id', async (req, res) => {
-    res.json({ catchment: await service.get(authOf(req).scope, idParam(req)) });
-  });
-
-  router.put('/catchments/:id', requireRole(...WRITERS), validateBody(catchmentFormSchema), async (req, res) => {
-    res.json({ catchment: await service.update(authOf(req).scope, idParam(req), req.body) });
-  });
-
-  router.post('/catchments/:id/archive', requireRole(...WRITERS), validateBody(z.object({ archived: z.boolean() })), async (req, res) => {
-    res.json({ catchment: await service.setArchived(authOf(req).scope, idParam(req), req.body.archived) });
-  });
-
-  router.delete('/catchments/:id', requireRole(...WRITERS), async (req, res) => {
-    res.json({ outcome: await service.remove(authOf(req).scope, idParam(req)) });
-  });
-
-  return router;
 }

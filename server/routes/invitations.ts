@@ -1,36 +1,35 @@
-import { Router } from 'express';
-import { acceptInvitationSchema, invitationRequestSchema, mailTokenSchema } from '../../shared/schemas/members';
+import { z } from 'zod';
+import { acceptInvitationSchema, invitationPreviewQuerySchema, invitationRequestSchema } from '../../shared/schemas/members';
 import type { AppContext } from '../context';
-import { authOf, requireAuth } from '../middleware/require-auth';
-import { requireRole } from '../middleware/require-role';
-import { idParam, parseWith, validateBody } from '../middleware/validate';
+import { messageOnly } from '../middleware/validate';
+import { idOf, memberArea, publicArea, type ApiArea } from './route-table';
 
 /** /api/invitations: admins invite; the invited person opens the mailed link without signing in. */
-export function invitationRoutes(ctx: AppContext): Router {
-  const router = Router();
+export function invitationRoutes(ctx: AppContext): ApiArea[] {
   const { invitations } = ctx;
-  const admin = [requireAuth(ctx), requireRole('admin')];
 
   // Public: the token itself is the credential.
-  router.get('/invitations/preview', async (req, res) => {
-    res.json(await invitations.preview(parseWith(mailTokenSchema, req.query.token)));
+  const links = publicArea('/invitations', (route) => {
+    route.get('/preview', { query: invitationPreviewQuerySchema, refuse: messageOnly }, async ({ query }, res) => {
+      res.json(await invitations.preview(query.token));
+    });
+
+    route.post('/accept', { body: acceptInvitationSchema }, async ({ body }, res) => {
+      const { email } = await invitations.accept(body);
+      res.json({ message: `Welcome aboard. Sign in as ${email} with your new password.` });
+    });
   });
 
-  router.post('/invitations/accept', validateBody(acceptInvitationSchema), async (req, res) => {
-    const { email } = await invitations.accept(req.body);
-    res.json({ message: `Welcome aboard. Sign in as ${email} with your new password.` });
+  const inviting = memberArea('/invitations', (route) => {
+    route.post('/', 'manageMembers', { body: invitationRequestSchema }, async ({ auth: { user, scope }, body }, res) => {
+      res.status(201).json({ member: await invitations.invite(scope, user, body) });
+    });
+
+    route.post('/:id/resend', 'manageMembers', { params: z.object({ id: idOf('Invitation') }) }, async ({ auth: { user, scope }, params }, res) => {
+      await invitations.resend(scope, user, params.id);
+      res.json({ message: 'A new invitation mail is on its way; earlier links no longer work.' });
+    });
   });
 
-  router.post('/invitations', ...admin, validateBody(invitationRequestSchema), async (req, res) => {
-    const { user, scope } = authOf(req);
-    res.status(201).json({ member: await invitations.invite(scope, user, req.body) });
-  });
-
-  router.post('/invitations/:id/resend', ...admin, async (req, res) => {
-    const { user, scope } = authOf(req);
-    await invitations.resend(scope, user, idParam(req));
-    res.json({ message: 'A new invitation mail is on its way; earlier links no longer work.' });
-  });
-
-  return router;
+  return [links, inviting];
 }

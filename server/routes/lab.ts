@@ -1,73 +1,62 @@
-import { Router } from 'express';
+import { z } from 'zod';
+import {
+  bandQuerySchema, calibrateRequestSchema, saveCalibrationSchema, skillRequestSchema, stakeSkillRequestSchema, sweepRequestSchema,
+} from '../../shared/schemas/lab';
 import type { AppContext } from '../context';
-import { bandQuerySchema } from '../../shared/schemas/lab';
-import { authOf, requireAuth } from '../middleware/require-auth';
-import { requireRole } from '../middleware/require-role';
 import { requireActiveSubscription } from '../middleware/require-active-subscription';
-import { idParam, parseWith } from '../middleware/validate';
+import { idOf, memberArea, type ApiArea } from './route-table';
 
-/** Who reaches the lab (DESIGN.md: scientists, and the consultants and admins who run the work). */
-const LAB_ROLES = ['admin', 'consultant', 'scientist'] as const;
+const params = z.object({ catchmentId: idOf('Catchment') });
+const jobParams = z.object({ jobId: idOf('Lab job') });
 
 /** /api/lab: surface response, reference models, skill, calibration and sweeps per catchment. */
-export function labRoutes(ctx: AppContext): Router {
-  const router = Router();
-  const base = '/lab/catchments/:id';
-  router.use('/lab', requireAuth(ctx), requireRole(...LAB_ROLES));
-
-  router.get(`${base}/surface-response`, async (req, res) => {
-    res.json(await ctx.lab.surfaceResponse(authOf(req).scope, idParam(req), parseWith(bandQuerySchema, req.query)));
-  });
-
-  router.get(`${base}/reference-models`, async (req, res) => {
-    res.json(await ctx.lab.referenceModels(authOf(req).scope, idParam(req), parseWith(bandQuerySchema, req.query)));
-  });
-
-  router.post(`${base}/skill`, async (req, res) => {
-    res.json(await ctx.lab.skill(authOf(req).scope, idParam(req), req.body));
-  });
-
-  router.post(`${base}/stake-skill`, async (req, res) => {
-    res.json(await ctx.lab.stakeSkill(authOf(req).scope, idParam(req), req.body));
-  });
-
-  router.get(`${base}/calibration`, async (req, res) => {
-    const { scope } = authOf(req);
-    await scope.findOr404('catchments', idParam(req), 'Catchment');
-    const history = await ctx.lab.calibrations.history(scope, idParam(req));
-    res.json({ current: history[0] ?? null, history });
-  });
-
-  router.put(`${base}/calibration`, async (req, res) => {
-    const { scope, user } = authOf(req);
-    await scope.findOr404('catchments', idParam(req), 'Catchment');
-    res.status(201).json(await ctx.lab.saveCalibration(scope, user, idParam(req), req.body));
-  });
-
+export function labRoutes(ctx: AppContext): ApiArea {
+  const { lab } = ctx;
   // Sweeps and automatic calibrations are paid work, like runs; reading and scoring stay open.
-  router.post(`${base}/sweeps`, requireActiveSubscription(ctx), async (req, res) => {
-    const { scope, user } = authOf(req);
-    res.status(202).json(await ctx.lab.startSweep(scope, user, idParam(req), req.body));
-  });
+  const paid = [requireActiveSubscription(ctx)];
+  return memberArea('/lab', (route) => {
+    route.get('/catchments/:catchmentId/surface-response', 'useLab', { params, query: bandQuerySchema }, async ({ auth: { scope }, params, query }, res) => {
+      res.json(await lab.surfaceResponse(scope, params.catchmentId, query));
+    });
 
-  router.post(`${base}/calibrations`, requireActiveSubscription(ctx), async (req, res) => {
-    const { scope, user } = authOf(req);
-    res.status(202).json(await ctx.lab.startCalibration(scope, user, idParam(req), req.body));
-  });
+    route.get('/catchments/:catchmentId/reference-models', 'useLab', { params, query: bandQuerySchema }, async ({ auth: { scope }, params, query }, res) => {
+      res.json(await lab.referenceModels(scope, params.catchmentId, query));
+    });
 
-  router.get(`${base}/jobs`, async (req, res) => {
-    const { scope } = authOf(req);
-    await scope.findOr404('catchments', idParam(req), 'Catchment');
-    res.json({ jobs: await ctx.lab.jobs.list(scope, idParam(req)) });
-  });
+    route.post('/catchments/:catchmentId/skill', 'useLab', { params, body: skillRequestSchema }, async ({ auth: { scope }, params, body }, res) => {
+      res.json(await lab.skill(scope, params.catchmentId, body));
+    });
 
-  router.get('/lab/jobs/:jobId', async (req, res) => {
-    res.json(await ctx.lab.jobs.get(authOf(req).scope, idParam(req, 'jobId')));
-  });
+    route.post('/catchments/:catchmentId/stake-skill', 'useLab', { params, body: stakeSkillRequestSchema }, async ({ auth: { scope }, params, body }, res) => {
+      res.json(await lab.stakeSkill(scope, params.catchmentId, body));
+    });
 
-  router.post('/lab/jobs/:jobId/cancel', async (req, res) => {
-    res.json(await ctx.lab.jobs.cancel(authOf(req).scope, idParam(req, 'jobId')));
-  });
+    route.get('/catchments/:catchmentId/calibration', 'useLab', { params }, async ({ auth: { scope }, params }, res) => {
+      res.json(await lab.calibrationHistory(scope, params.catchmentId));
+    });
 
-  return router;
+    route.put('/catchments/:catchmentId/calibration', 'useLab', { params, body: saveCalibrationSchema }, async ({ auth: { scope, user }, params, body }, res) => {
+      res.status(201).json(await lab.saveCalibration(scope, user, params.catchmentId, body));
+    });
+
+    route.post('/catchments/:catchmentId/sweeps', 'useLab', { params, before: paid, body: sweepRequestSchema }, async ({ auth: { scope, user }, params, body }, res) => {
+      res.status(202).json(await lab.startSweep(scope, user, params.catchmentId, body));
+    });
+
+    route.post('/catchments/:catchmentId/calibrations', 'useLab', { params, before: paid, body: calibrateRequestSchema }, async ({ auth: { scope, user }, params, body }, res) => {
+      res.status(202).json(await lab.startCalibration(scope, user, params.catchmentId, body));
+    });
+
+    route.get('/catchments/:catchmentId/jobs', 'useLab', { params }, async ({ auth: { scope }, params }, res) => {
+      res.json({ jobs: await lab.jobList(scope, params.catchmentId) });
+    });
+
+    route.get('/jobs/:jobId', 'useLab', { params: jobParams }, async ({ auth: { scope }, params }, res) => {
+      res.json(await lab.jobs.get(scope, params.jobId));
+    });
+
+    route.post('/jobs/:jobId/cancel', 'useLab', { params: jobParams }, async ({ auth: { scope }, params }, res) => {
+      res.json(await lab.jobs.cancel(scope, params.jobId));
+    });
+  });
 }

@@ -1,34 +1,29 @@
-import { Router } from 'express';
+import { z } from 'zod';
 import { roleChangeSchema } from '../../shared/schemas/members';
 import type { AppContext } from '../context';
-import { authOf, requireAuth } from '../middleware/require-auth';
-import { requireRole } from '../middleware/require-role';
-import { idParam, validateBody } from '../middleware/validate';
+import { idOf, memberArea, type ApiArea } from './route-table';
+
+const memberParams = z.object({ id: idOf('Member') });
 
 /** /api/members: the organisation's people and its seats, for its admins. */
-export function memberRoutes(ctx: AppContext): Router {
-  const router = Router();
+export function memberRoutes(ctx: AppContext): ApiArea {
   const { members } = ctx;
-  router.use('/members', requireAuth(ctx), requireRole('admin'));
+  return memberArea('/members', (route) => {
+    route.get('/', 'manageMembers', {}, async ({ auth: { scope } }, res) => {
+      res.json(await members.list(scope));
+    });
 
-  router.get('/members', async (req, res) => {
-    res.json(await members.list(authOf(req).scope));
+    route.get('/:id', 'manageMembers', { params: memberParams }, async ({ auth: { scope }, params }, res) => {
+      res.json({ member: await members.get(scope, params.id) });
+    });
+
+    route.patch('/:id', 'manageMembers', { params: memberParams, body: roleChangeSchema }, async ({ auth: { user, scope }, params, body }, res) => {
+      res.json({ member: await members.changeRole(scope, user, params.id, body.role) });
+    });
+
+    route.delete('/:id', 'manageMembers', { params: memberParams }, async ({ auth: { user, scope }, params }, res) => {
+      await members.remove(scope, user, params.id);
+      res.status(204).end();
+    });
   });
-
-  router.get('/members/:id', async (req, res) => {
-    res.json({ member: await members.get(authOf(req).scope, idParam(req)) });
-  });
-
-  router.patch('/members/:id', validateBody(roleChangeSchema), async (req, res) => {
-    const { user, scope } = authOf(req);
-    res.json({ member: await members.changeRole(scope, user, idParam(req), req.body.role) });
-  });
-
-  router.delete('/members/:id', async (req, res) => {
-    const { user, scope } = authOf(req);
-    await members.remove(scope, user, idParam(req));
-    res.status(204).end();
-  });
-
-  return router;
 }

@@ -1,61 +1,48 @@
-import { Router, type Response } from 'express';
+import { z } from 'zod';
 import { startRunSchema } from '../../shared/schemas/runs';
 import type { AppContext } from '../context';
-import { authOf, requireAuth } from '../middleware/require-auth';
-import { requireRole } from '../middleware/require-role';
-import { idParam, validateBody } from '../middleware/validate';
-import { READERS } from './catchments';
+import { requireActiveSubscription } from '../middleware/require-active-subscription';
+import { sendDownload } from './download';
+import { idOf, memberArea, type ApiArea } from './route-table';
 
-function sendCsv(res: Response, name: string, body: string): void {
-  res.set('Content-Type', 'text/csv; charset=utf-8');
-  res.set('Content-Disposition', `attachment; filename="${name}"`);
-  // A byte-order mark so spreadsheet programs read the units (°, ³, ²) as UTF-8.
-  res.send(`\uFEFF${body}`);
-}
+const catchmentParams = z.object({ catchmentId: idOf('Catchment') });
+const runParams = catchmentParams.extend({ id: idOf('Run') });
 
 /**
  * /api/catchments/:catchmentId/runs: admins, consultants and scientists start, follow and cancel
  * runs and read their results; clients nothing. Starting needs an active seat plan.
  */
-export function runRoutes(ctx: AppContext): Router {
-  const router = Router();
-  const base = '/catchments/:catchmentId/runs';
-  router.use(base, requireAuth(ctx), requireRole(...READERS));
-  const catchmentOf = (req: Parameters<typeof idParam>[0]) => idParam(req, 'catchmentId');
+export function runRoutes(ctx: AppContext): ApiArea {
+  const { runs, results } = ctx;
+  return memberArea('/catchments/:catchmentId/runs', (route) => {
+    route.get('/', 'runScenarios', { params: catchmentParams }, async ({ auth: { scope }, params }, res) => {
+      res.json({ runs: await runs.list(scope, params.catchmentId) });
+    });
 
-  router.get(base, async (req, res) => {
-    res.json({ runs: await ctx.runs.list(authOf(req).scope, catchmentOf(req)) });
+    route.post('/', 'runScenarios', { params: catchmentParams, before: [requireActiveSubscription(ctx)], body: startRunSchema },
+      async ({ auth: { scope, user }, params, body }, res) => {
+        const { run, reused } = await runs.start(scope, params.catchmentId, body, user.id);
+        res.status(reused ? 200 : 202).json({ run, reused });
+      });
+
+    route.get('/:id', 'runScenarios', { params: runParams }, async ({ auth: { scope }, params }, res) => {
+      res.json({ run: await runs.get(scope, params.catchmentId, params.id) });
+    });
+
+    route.post('/:id/cancel', 'runScenarios', { params: runParams }, async ({ auth: { scope }, params }, res) => {
+      res.json({ run: await runs.cancel(scope, params.catchmentId, params.id) });
+    });
+
+    route.get('/:id/results', 'runScenarios', { params: runParams }, async ({ auth: { scope }, params }, res) => {
+      res.json({ results: await results.results(scope, params.catchmentId, params.id) });
+    });
+
+    route.get('/:id/export/bands.csv', 'runScenarios', { params: runParams }, async ({ auth: { scope }, params }, res) => {
+      sendDownload(res, await results.bandMonthCsv(scope, params.catchmentId, params.id));
+    });
+
+    route.get('/:id/export/daily.csv', 'runScenarios', { params: runParams }, async ({ auth: { scope }, params }, res) => {
+      sendDownload(res, await results.dailyCsv(scope, params.catchmentId, params.id));
+    });
   });
-
-  router.post(base, validateBody(startRunSchema), async (req, res) => {
-    const { scope, user } = authOf(req);
-    await scope.findOr404('catchments', catchmentOf(req), 'Catchment');
-    await ctx.billing.assertCanUsePaidFeatures(scope);
-    const { run, reused } = await ctx.runs.start(scope, catchmentOf(req), req.body, user.id);
-    res.status(reused ? 200 : 202).json({ run, reused });
-  });
-
-  router.get(`${base}/:id`, async (req, res) => {
-    res.json({ run: await ctx.runs.get(authOf(req).scope, catchmentOf(req), idParam(req)) });
-  });
-
-  router.post(`${base}/:id/cancel`, async (req, res) => {
-    res.json({ run: await ctx.runs.cancel(authOf(req).scope, catchmentOf(req), idParam(req)) });
-  });
-
-  router.get(`${base}/:id/results`, async (req, res) => {
-    res.json({ results: await ctx.results.results(authOf(req).scope, catchmentOf(req), idParam(req)) });
-  });
-
-  router.get(`${base}/:id/export/bands.csv`, async (req, res) => {
-    const csv = await ctx.results.bandMonthCsv(authOf(req).scope, catchmentOf(req), idParam(req));
-    sendCsv(res, `run-${idParam(req)}-bands-by-month.csv`, csv);
-  });
-
-  router.get(`${base}/:id/export/daily.csv`, async (req, res) => {
-    const csv = await ctx.results.dailyCsv(authOf(req).scope, catchmentOf(req), idParam(req));
-    sendCsv(res, `run-${idParam(req)}-daily.csv`, csv);
-  });
-
-  return router;
 }

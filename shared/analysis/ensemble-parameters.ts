@@ -5,8 +5,8 @@ import { seededRandom } from './random';
 
 /**
  * Parameters an ensemble varies: those that dominate the uncertainty of added melt — grain growth,
- * the impurity albedo effect and its enrichment in melting snow, lapse rate, radiation from the temperature range, debris conductivity (SCIENCE.md,
- * "Evaluation and scenarios").
+ * the impurity albedo effect and its enrichment in melting snow, lapse rate, radiation from the temperature range, debris conductivity (docs/science.md,
+ * "Uncertainty").
  */
 export const ENSEMBLE_PARAMETERS = [
   'wetGrainGrowthMm3PerDay', 'dustToBlackCarbon', 'iceAlbedoBlackCarbonSlope', 'iceAlbedoDustSlope',

@@ -4,6 +4,7 @@ import { groupBands, scenarioForBand, type BandPart } from './band-parts';
 import { changedDrivers, combinedScenario, DRIVER_NAMES, type Driver } from './drivers';
 import { engineInputOf, type ScenarioEngineInput } from './engine-input';
 import { ensembleParameterSets } from './ensemble-parameters';
+import { simulationSettings } from './variant-settings';
 
 export const MEMBER_KINDS = ['scenario', 'baseline', 'combination', 'ensemble-scenario', 'ensemble-baseline'] as const;
 export type MemberKind = (typeof MEMBER_KINDS)[number];
@@ -36,12 +37,6 @@ export interface RunPlan {
 
 export class RunPlanError extends Error {}
 
-/**
- * The simulations a run needs. A variant is always paired with its baseline simulated on the
- * same period and parameters (the variant's, over the baseline's), so added melt reflects only the changes; attribution adds the
- * 2^N − 2 mixed combinations of its N changed drivers (Stein & Alpert 1993); an ensemble adds, per
- * Latin hypercube parameter set, the scenario and (for a variant) the baseline.
- */
 /** Drivers a variant changes relative to its baseline anywhere: catchment-wide or in any band's elevation range. */
 export function attributionDrivers(changes: ScenarioChanges, baselineChanges: ScenarioChanges, bandElevationsM: readonly number[]): Driver[] {
   const pairs: [Scenario, Scenario][] = [
@@ -52,13 +47,16 @@ export function attributionDrivers(changes: ScenarioChanges, baselineChanges: Sc
   return DRIVER_NAMES.filter((d) => changed.has(d));
 }
 
+/**
+ * The simulations a run needs. A variant is always paired with its baseline simulated on the
+ * same period and parameters (see `simulationSettings`), so added melt reflects only the changes; attribution adds the
+ * 2^N − 2 mixed combinations of its N changed drivers (Stein & Alpert 1993); an ensemble adds, per
+ * Latin hypercube parameter set, the scenario and (for a variant) the baseline.
+ */
 export function planRun(request: RunRequest, bandElevationsM: readonly number[]): RunPlan {
   const { changes, baselineChanges, attribution, ensembleSize, ensembleSeed } = request;
-  // A variant inherits the baseline's parameters and period where it sets none of its own.
-  const variant = engineInputOf(
-    { ...changes, period: changes.period ?? baselineChanges?.period ?? null },
-    { ...baselineChanges?.parameters, ...changes.parameters },
-  );
+  const { period, parameters } = simulationSettings(changes, baselineChanges);
+  const variant = engineInputOf({ ...changes, period }, parameters);
   const variantBands = bandElevationsM.map((m) => scenarioForBand(changes, m));
   const baselineBands = baselineChanges ? bandElevationsM.map((m) => scenarioForBand(baselineChanges, m)) : null;
   const member = (perBand: Scenario[], scenario: Scenario, parameters: ParameterOverrides) =>

@@ -1,14 +1,8 @@
 import type { Ranged } from '../schemas/briefings';
+import { formatNumber } from '../text/numbers';
 
 /** What the timing shift measures (shared/analysis/added-melt-totals.ts), in the reader's words. */
 export const TIMING_NOTE = 'shift of the date by which half of the melt has run off; negative = earlier';
-
-/** A number for reading: grouped thousands, `digits` significant decimals, a real minus sign. */
-export function formatNumber(value: number | null, digits = 2): string {
-  if (value === null || !Number.isFinite(value)) return '–';
-  const text = value.toLocaleString('en-GB', { maximumFractionDigits: digits, minimumFractionDigits: 0 });
-  return text.replace(/^-/, '−');
-}
 
 /** "12.3 (9.8 to 14.1)" when a range exists, else "12.3". */
 export function formatRanged(r: Ranged, digits = 2): string {

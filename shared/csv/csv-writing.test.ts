@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { csvCell, csvDocument } from './csv-writing';
+import { csvCell, csvDocument, withByteOrderMark } from './csv-writing';
 
 describe('CSV cells that look like formulas', () => {
   it.each(['=SUM(A1:A2)', '+1+1', '-2+3', '@cmd', '\tx', '\rx'])('prefixes %j with a single quote', (text) => {
@@ -14,5 +14,10 @@ describe('CSV cells that look like formulas', () => {
   it('quotes commas and quotes', () => {
     expect(csvCell('a,"b"')).toBe('"a,""b"""');
     expect(csvDocument(['x'], [['=1']])).toBe("x\r\n'=1\r\n");
+  });
+
+  it('starts every download with one byte-order mark', () => {
+    expect(withByteOrderMark('temperature (°C)\r\n')).toBe('\uFEFFtemperature (°C)\r\n');
+    expect(withByteOrderMark(withByteOrderMark('x'))).toBe('\uFEFFx');
   });
 });

@@ -25,3 +25,10 @@ export function csvDocument(header: readonly string[], rows: Iterable<readonly (
 export function safeFileName(name: string): string {
   return name.replace(/[^A-Za-z0-9._-]+/g, '-').replace(/^-+|-+$/g, '').slice(0, 80) || 'download';
 }
+
+const BYTE_ORDER_MARK = '\uFEFF';
+
+/** CSV text as every download sends it: with a byte-order mark, so spreadsheet programs read °C, m³ and km² as UTF-8. */
+export function withByteOrderMark(text: string): string {
+  return text.startsWith(BYTE_ORDER_MARK) ? text : `${BYTE_ORDER_MARK}${text}`;
+}

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { kgeParts, skillScores } from './skill-scores';
+import { kgeParts } from '../melt/skill';
+import { skillScores } from './skill-scores';
 import { monthlyMeans, pairDaily } from './paired-series';
 
 describe('skill scores against hand-computed values', () => {

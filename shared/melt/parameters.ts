@@ -5,13 +5,16 @@
  */
 
 export interface ParameterSpec {
-  /** Plain name for forms, tables, PDFs and CSV headers. */
-  label: string;
   default: number;
   min: number;
   max: number;
   unit: string;
   source: string;
+}
+
+/** An engine parameter: with the plain name forms, tables, PDFs and CSV headers show. */
+export interface LabelledParameterSpec extends ParameterSpec {
+  label: string;
 }
 
 export const PARAMETER_SPECS = {
@@ -55,7 +58,7 @@ export const PARAMETER_SPECS = {
   etiTemperatureFactor: { label: 'Temperature factor (reference model)', default: 0.05, min: 0.01, max: 0.1, unit: 'mm h⁻¹ °C⁻¹', source: 'TF, Pellicciotti et al. 2005 (J. Glaciol. 51:573) [memory]' },
   etiShortwaveFactor: { label: 'Shortwave factor (reference model)', default: 0.0094, min: 0.002, max: 0.02, unit: 'm² mm W⁻¹ h⁻¹', source: 'SRF, Pellicciotti et al. 2005 [memory]' },
   etiThresholdC: { label: 'Melt threshold (reference model)', default: 1, min: -2, max: 3, unit: '°C', source: 'melt threshold TT, Pellicciotti et al. 2005 [memory]' },
-} as const satisfies Record<string, ParameterSpec>;
+} as const satisfies Record<string, LabelledParameterSpec>;
 
 export type ParameterName = keyof typeof PARAMETER_SPECS;
 export type Parameters = Record<ParameterName, number>;

@@ -37,15 +37,24 @@ export function nse(observed: ArrayLike<number>, simulated: ArrayLike<number>): 
   return 1 - err / varO;
 }
 
+/** The three parts of the Kling–Gupta efficiency (Gupta et al. 2009, J. Hydrol. 377:80). */
+export interface KgeParts {
+  /** Pearson correlation; 0 for a constant simulation (Knoben et al. 2019 convention). */
+  r: number;
+  /** Variability ratio σs/σo (population standard deviations, as Gupta et al. 2009). */
+  alpha: number;
+  /** Bias ratio μs/μo. */
+  beta: number;
+}
+
 /**
- * Kling–Gupta efficiency (Gupta et al. 2009, J. Hydrol. 377:80):
- * 1 − √((r − 1)² + (α − 1)² + (β − 1)²), α = σs/σo, β = μs/μo.
- * A constant simulation has r = 0 by convention, so the mean-flow predictor scores 1 − √2
- * (Knoben et al. 2019, HESS 23:4323). The observed mean must not be 0.
+ * r, α = σs/σo and β = μs/μo of the Kling–Gupta efficiency (Gupta et al. 2009, J. Hydrol. 377:80).
+ * A constant simulation has r = 0 by convention (Knoben et al. 2019, HESS 23:4323). The observed
+ * series must vary and its mean must not be 0.
  *
- * @example kge([1, 2, 3], [2, 3, 4]) // 0.5
+ * @example kgeParts([1, 2, 3], [2, 3, 4]) // { r: 1, alpha: 1, beta: 1.5 }
  */
-export function kge(observed: ArrayLike<number>, simulated: ArrayLike<number>): number {
+export function kgeParts(observed: ArrayLike<number>, simulated: ArrayLike<number>): KgeParts {
   checkSeries(observed, simulated, 'kge');
   const mo = mean(observed);
   const ms = mean(simulated);
@@ -59,8 +68,17 @@ export function kge(observed: ArrayLike<number>, simulated: ArrayLike<number>): 
   }
   if (varO === 0) throw new RangeError('kge: the observed series does not vary');
   if (mo === 0) throw new RangeError('kge: the observed mean is 0, so the bias ratio is undefined');
-  const r = varS === 0 ? 0 : cov / Math.sqrt(varO * varS);
-  const alpha = Math.sqrt(varS / varO);
-  const beta = ms / mo;
+  return { r: varS === 0 ? 0 : cov / Math.sqrt(varO * varS), alpha: Math.sqrt(varS / varO), beta: ms / mo };
+}
+
+/**
+ * Kling–Gupta efficiency (Gupta et al. 2009, J. Hydrol. 377:80):
+ * 1 − √((r − 1)² + (α − 1)² + (β − 1)²), from `kgeParts`.
+ * The mean-flow predictor scores 1 − √2 (Knoben et al. 2019, HESS 23:4323).
+ *
+ * @example kge([1, 2, 3], [2, 3, 4]) // 0.5
+ */
+export function kge(observed: ArrayLike<number>, simulated: ArrayLike<number>): number {
+  const { r, alpha, beta } = kgeParts(observed, simulated);
   return 1 - Math.sqrt((r - 1) ** 2 + (alpha - 1) ** 2 + (beta - 1) ** 2);
 }

@@ -10,6 +10,3 @@ export const apiErrorSchema = z.object({
   }),
 });
 export type ApiErrorBody = z.infer<typeof apiErrorSchema>;
-
-export const healthSchema = z.object({ status: z.enum(['ok', 'degraded']), db: z.enum(['up', 'down']) });
-export type Health = z.infer<typeof healthSchema>;

@@ -8,9 +8,6 @@ export type Role = z.infer<typeof roleSchema>;
 export const USER_STATUSES = ['active', 'invited', 'disabled'] as const;
 export const userStatusSchema = z.enum(USER_STATUSES);
 
-/** Roles that take a paid seat; clients are free read-only guests. */
-export const SEAT_ROLES: readonly Role[] = ['admin', 'consultant', 'scientist'];
-
 export const PASSWORD_MIN_CHARS = 12;
 /** bcrypt reads at most 72 bytes; longer passwords would be silently cut, so they are refused. */
 export const PASSWORD_MAX_BYTES = 72;

@@ -49,6 +49,7 @@ export const createBriefingSchema = z.object({
   selection: runSelectionSchema,
 });
 export type CreateBriefingRequest = z.input<typeof createBriefingSchema>;
+export type CreateBriefing = z.output<typeof createBriefingSchema>;
 
 export const saveDraftSchema = z.object({
   title,
@@ -57,6 +58,7 @@ export const saveDraftSchema = z.object({
   sections: z.array(draftSectionSchema).max(30, { error: 'A briefing holds at most 30 sections.' }),
 });
 export type SaveDraftRequest = z.input<typeof saveDraftSchema>;
+export type SaveDraft = z.output<typeof saveDraftSchema>;
 
 export const shareSchema = z.object({ emails: z.array(emailSchema).min(1, { error: 'Enter at least one e-mail address.' }).max(50) });
 export const commentSchema = z.object({

@@ -63,3 +63,15 @@ export function bandIssuesToProblems(issues: readonly { path: readonly PropertyK
       : { row: 0, column: '', message: issue.message };
   });
 }
+
+/**
+ * Why a band table request was refused, for the first problem named by row and column
+ * ("Row 2, lowerM: overlaps …"), its field path in the request (`bands.1.lowerM`) and every problem.
+ */
+export function bandTableRefusal(issues: readonly { path: readonly PropertyKey[]; message: string }[]): { message: string; field: string; problems: BandProblem[] } {
+  // Issues on the request point below its `bands` key.
+  const problems = bandIssuesToProblems(issues.map((i) => ({ ...i, path: i.path[0] === 'bands' ? i.path.slice(1) : i.path })));
+  const first = problems[0];
+  const where = first.row > 0 ? `Row ${first.row}, ${first.column}: ` : 'Band table: ';
+  return { message: `${where}${first.message}`, field: first.row > 0 ? `bands.${first.row - 1}.${first.column}` : 'bands', problems };
+}

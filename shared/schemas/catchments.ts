@@ -50,3 +50,6 @@ export const catchmentListSchema = z.object({
 export type CatchmentList = z.infer<typeof catchmentListSchema>;
 
 export const catchmentReplySchema = z.object({ catchment: catchmentSchema });
+
+/** POST /api/catchments/:id/archive */
+export const catchmentArchiveSchema = z.object({ archived: z.boolean() });

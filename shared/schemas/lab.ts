@@ -35,8 +35,11 @@ export const calibrationSetSchema = z.object({
 export type CalibrationSetInput = z.input<typeof calibrationSetSchema>;
 
 export const skillRequestSchema = z.object({ period: labPeriodSchema, set: calibrationSetSchema.optional() });
+export type SkillRequest = z.output<typeof skillRequestSchema>;
 export const stakeSkillRequestSchema = z.object({ set: calibrationSetSchema.optional() });
+export type StakeSkillRequest = z.output<typeof stakeSkillRequestSchema>;
 export const saveCalibrationSchema = z.object({ period: labPeriodSchema, set: calibrationSetSchema, note: z.string().trim().max(500).default('') });
+export type SaveCalibrationRequest = z.output<typeof saveCalibrationSchema>;
 
 export const calibrateRequestSchema = z.object({
   /** What the search fits: daily discharge (KGE) or stake balances (KGE over the readings). */
@@ -49,6 +52,7 @@ export const calibrateRequestSchema = z.object({
   seed: z.number().int().min(0).max(2 ** 31).default(1),
 });
 export type CalibrateRequest = z.input<typeof calibrateRequestSchema>;
+export type CalibrationJobRequest = z.output<typeof calibrateRequestSchema>;
 
 const sweepAxisSchema = z.object({
   variable: z.enum(SWEEP_VARIABLES as [SweepVariable, ...SweepVariable[]]),
@@ -69,6 +73,7 @@ export const sweepRequestSchema = z.object({
   period: labPeriodSchema,
 });
 export type SweepRequest = z.input<typeof sweepRequestSchema>;
+export type SweepJobRequest = z.output<typeof sweepRequestSchema>;
 
 // Replies
 

@@ -64,3 +64,6 @@ export const inboxMessageSchema = z.object({
 });
 export type InboxMessage = z.infer<typeof inboxMessageSchema>;
 export const inboxReplySchema = z.object({ messages: z.array(inboxMessageSchema) });
+
+/** GET /api/invitations/preview?token=… */
+export const invitationPreviewQuerySchema = z.object({ token: mailTokenSchema });

@@ -16,6 +16,7 @@ export const startRunSchema = z.object({
   ensembleSeed: z.number().int().min(1).max(2 ** 31 - 1).default(1),
 }).strict();
 export type StartRun = z.input<typeof startRunSchema>;
+export type StartRunRequest = z.output<typeof startRunSchema>;
 
 export const runSchema = z.object({
   id: z.number().int(),

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { PARAMETER_NAMES, PARAMETER_SPECS, type ParameterName } from '../melt/parameters';
-import { isIsoDate } from '../melt/calendar';
+import { daysBetween, isIsoDate } from '../melt/calendar';
 
 /**
  * Version of the stored scenario-changes JSON; bump it (and migrate old rows) when its shape changes.
@@ -84,18 +84,28 @@ export const scenarioChangesSchema = z.object({
 export type ScenarioChanges = z.output<typeof scenarioChangesSchema>;
 export type ScenarioChangesInput = z.input<typeof scenarioChangesSchema>;
 
+/** The name of every catchment's baseline, made with the catchment; no variant may take it. */
+export const BASELINE_NAME = 'Baseline';
+/** Whether a name is the baseline's (compared as the database does: trimmed, any case). */
+export const isReservedScenarioName = (name: string) => name.trim().toLowerCase() === BASELINE_NAME.toLowerCase();
+
 const name = z.string().trim().min(1, 'is required').max(120, 'must be at most 120 characters');
+const variantName = name.refine((n) => !isReservedScenarioName(n), { message: `"${BASELINE_NAME}" is the catchment's baseline; give the variant another name` });
+const description = z.string().trim().max(2000, 'must be at most 2000 characters');
+
+/** Name and description as the scenario builder's form edits them (the baseline keeps its name). */
+export const scenarioFieldsSchema = z.object({ name, description });
 
 export const scenarioCreateSchema = z.object({
-  name,
-  description: z.string().trim().max(2000, 'must be at most 2000 characters').default(''),
+  name: variantName,
+  description: description.default(''),
   changes: scenarioChangesSchema,
 });
 export type ScenarioCreate = z.input<typeof scenarioCreateSchema>;
 
 export const scenarioUpdateSchema = z.object({
-  name: name.optional(),
-  description: z.string().trim().max(2000, 'must be at most 2000 characters').optional(),
+  name: variantName.optional(),
+  description: description.optional(),
   changes: scenarioChangesSchema.optional(),
   archived: z.boolean().optional(),
 }).strict();
@@ -129,3 +139,9 @@ export const scenarioSetupSchema = z.object({
   }).nullable(),
 });
 export type ScenarioSetup = z.infer<typeof scenarioSetupSchema>;
+
+/** GET …/scenarios?archived=true|false */
+export const scenarioListQuerySchema = z.object({ archived: z.enum(['true', 'false']).default('false').transform((v) => v === 'true') });
+
+/** GET …/preview-input?from&to: the preview simulates one band in the browser; a year at most keeps the download small. */
+export const previewPeriodSchema = periodSchema.refine((p) => daysBetween(p.from, p.to) <= 366, { path: ['to'], message: 'the preview covers at most one year' });

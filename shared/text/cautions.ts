@@ -1,6 +1,6 @@
 /**
  * The cautions shown with every run result, in every briefing and every export
- * (DESIGN.md, "Cautions the product shows"). One place, so all copies agree.
+ * (docs/design.md, "Cautions the product shows"). One place, so all copies agree.
  */
 export const CAUTIONS: readonly string[] = [
   'These results are scenario estimates, not forecasts.',

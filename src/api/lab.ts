@@ -21,7 +21,7 @@ export const labApi = {
     api.put(`${base(id)}/calibration`, { period, set, note }, { schema: savedCalibrationSchema }),
   startSweep: (id: number, request: SweepRequest) => api.post(`${base(id)}/sweeps`, request, { schema: labJobSchema }),
   startCalibration: (id: number, request: CalibrateRequest) => api.post(`${base(id)}/calibrations`, request, { schema: labJobSchema }),
-  job: (jobId: number) => api.get(`/api/lab/jobs/${jobId}`, labJobSchema, { quiet: true }),
+  job: (jobId: number, signal?: AbortSignal) => api.get(`/api/lab/jobs/${jobId}`, labJobSchema, { quiet: true, signal }),
   cancelJob: (jobId: number) => api.post(`/api/lab/jobs/${jobId}/cancel`, undefined, { schema: labJobSchema }),
   jobs: (id: number) => api.get(`${base(id)}/jobs`, z.object({ jobs: z.array(labJobSchema) })),
 };

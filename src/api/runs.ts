@@ -24,7 +24,7 @@ export const runsApi = {
   setup: (catchmentId: number) => api.get(`${base(catchmentId)}/scenario-setup`, scenarioSetupSchema),
   previewInput: (catchmentId: number, period: { from: string; to: string }) =>
     api.get(`${base(catchmentId)}/preview-input?${new URLSearchParams(period).toString()}`, previewInputSchema, { quiet: true }),
-  runs: (catchmentId: number) => api.get(`${base(catchmentId)}/runs`, runListSchema),
+  runs: (catchmentId: number, signal?: AbortSignal) => api.get(`${base(catchmentId)}/runs`, runListSchema, { signal }),
   startRun: (catchmentId: number, body: StartRun) => api.post(`${base(catchmentId)}/runs`, body, { schema: runReplySchema }),
   cancelRun: (catchmentId: number, id: number) => api.post(`${base(catchmentId)}/runs/${id}/cancel`, undefined, { schema: runReplySchema }),
   results: (catchmentId: number, id: number) => api.get(`${base(catchmentId)}/runs/${id}/results`, runResultsReplySchema),

@@ -42,6 +42,7 @@ describe('BaseChart', () => {
       global: { plugins: [Quasar] },
     });
     (wrapper.vm as unknown as { downloadTable(): void }).downloadTable();
-    expect(saved.at(-1)).toEqual({ fileName: 'stakes.csv', text: 'Stake\r\n"\'=HYPERLINK(""x"")"\r\n' });
+    // With the byte-order mark every CSV download carries (units such as °C read right in spreadsheets).
+    expect(saved.at(-1)).toEqual({ fileName: 'stakes.csv', text: '\uFEFFStake\r\n"\'=HYPERLINK(""x"")"\r\n' });
   });
 });

@@ -1,5 +1,5 @@
 /** Saving files from the browser (CSV through the shared writer, which escapes formula-like cells). */
-export { csvDocument as toCsv } from '@shared/csv/csv-writing';
+export { csvDocument as toCsv, withByteOrderMark } from '@shared/csv/csv-writing';
 
 export function downloadUrl(url: string, fileName: string): void {
   const link = document.createElement('a');

@@ -1,4 +1,4 @@
-import { ref, shallowRef, watch, type Ref, type ShallowRef, type WatchSource } from 'vue';
+import { getCurrentScope, onScopeDispose, ref, shallowRef, watch, type Ref, type ShallowRef, type WatchSource } from 'vue';
 
 export interface LatestFetch<T> {
   data: ShallowRef<T | null>;
@@ -9,7 +9,7 @@ export interface LatestFetch<T> {
 
 /**
  * Loads again whenever `source` changes, aborting the request still under way, so only the
- * answer for the latest choice is ever shown.
+ * answer for the latest choice is ever shown; the last request is aborted when the component goes.
  */
 export function useLatestFetch<T>(source: WatchSource, load: (signal: AbortSignal) => Promise<T>): LatestFetch<T> {
   const data = shallowRef<T | null>(null);
@@ -33,5 +33,6 @@ export function useLatestFetch<T>(source: WatchSource, load: (signal: AbortSigna
     loading.value = false;
   }, { immediate: true });
 
+  if (getCurrentScope()) onScopeDispose(() => controller?.abort());
   return { data, loading, error };
 }

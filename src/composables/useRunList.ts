@@ -1,6 +1,7 @@
-import { onBeforeUnmount, ref, shallowRef, type Ref, type ShallowRef } from 'vue';
+import { ref, shallowRef, type Ref, type ShallowRef } from 'vue';
 import type { Run } from '@shared/schemas/runs';
 import { runsApi } from 'src/api/runs';
+import { usePoll } from './usePoll';
 
 const POLL_MS = 1000;
 
@@ -17,25 +18,17 @@ export interface RunList {
 export function useRunList(options: { catchmentId: () => number }): RunList {
   const runs = shallowRef<Run[]>([]);
   const error = ref<string | null>(null);
-  let timer: ReturnType<typeof setTimeout> | undefined;
-  let stopped = false;
 
-  async function refresh(): Promise<void> {
-    clearTimeout(timer);
+  const poll = usePoll(async (signal) => {
     try {
-      runs.value = (await runsApi.runs(options.catchmentId())).runs;
+      runs.value = (await runsApi.runs(options.catchmentId(), signal)).runs;
       error.value = null;
     } catch (e) {
+      if (signal.aborted) return false;
       error.value = e instanceof Error ? e.message : 'The runs could not be loaded.';
     }
-    if (!stopped && runs.value.some((r) => r.status === 'queued' || r.status === 'running')) {
-      timer = setTimeout(() => void refresh(), POLL_MS);
-    }
-  }
+    return runs.value.some((r) => r.status === 'queued' || r.status === 'running');
+  }, POLL_MS);
 
-  onBeforeUnmount(() => {
-    stopped = true;
-    clearTimeout(timer);
-  });
-  return { runs, error, refresh };
+  return { runs, error, refresh: () => poll.start({ immediate: true }) };
 }

@@ -1,3 +1,4 @@
+import { fieldErrors } from '@shared/schemas/field-errors';
 import { reactive, ref, type Ref, type UnwrapRef } from 'vue';
 import type { z } from 'zod';
 import { ApiError } from 'src/api/http';
@@ -29,10 +30,7 @@ export function useZodForm<S extends z.ZodObject>(schema: S, initial: z.input<S>
     clearErrors();
     const parsed = schema.safeParse(values);
     if (!parsed.success) {
-      for (const issue of parsed.error.issues) {
-        const key = issue.path.map(String).join('.');
-        errors[key] ??= issue.message;
-      }
+      Object.assign(errors, fieldErrors(parsed.error.issues));
       return false;
     }
     busy.value = true;

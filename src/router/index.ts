@@ -1,9 +1,10 @@
 import { Notify } from 'quasar';
+import { allows } from '@shared/access/capabilities';
 import { createRouter, createWebHistory, type Router } from 'vue-router';
 import { useAuthStore } from 'src/stores/auth-store';
 import { routes } from './routes';
 
-/** The router with its one guard: signed-out visitors go to sign-in, roles are checked by `meta.roles`. */
+/** The router with its one guard: signed-out visitors go to sign-in, roles are checked against `meta.access`. */
 export function createAppRouter(): Router {
   const router = createRouter({ history: createWebHistory(), routes, scrollBehavior: () => ({ top: 0 }) });
 
@@ -11,9 +12,9 @@ export function createAppRouter(): Router {
     const auth = useAuthStore();
     if (!auth.loaded) await auth.load();
     if (to.meta.guestOnly && auth.user) return { name: 'overview' };
-    if (!to.meta.roles) return true;
+    if (!to.meta.access) return true;
     if (!auth.user) return { name: 'sign-in', query: to.fullPath === '/' ? {} : { next: to.fullPath } };
-    if (!to.meta.roles.includes(auth.user.role)) {
+    if (!allows(auth.user.role, to.meta.access)) {
       Notify.create({ type: 'warning', message: 'Your role does not give access to that page.', position: 'top' });
       return { name: 'overview' };
     }

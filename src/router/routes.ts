@@ -1,20 +1,17 @@
 import type { RouteRecordRaw } from 'vue-router';
-import type { Role } from '@shared/schemas/auth';
+import type { Access } from '@shared/access/capabilities';
 
 declare module 'vue-router' {
   interface RouteMeta {
-    /** Who may enter; absent on public pages. */
-    roles?: readonly Role[];
-    /** Shown in the left navigation (to the roles above) when set. */
+    /** What entering needs (a capability from shared/access/capabilities.ts, or just a session); absent on public pages. */
+    access?: Access;
+    /** Shown in the left navigation (to the roles the access allows) when set. */
     nav?: { label: string; icon: string; caption?: string };
     /** Pages for signed-out visitors only. */
     guestOnly?: boolean;
     title?: string;
   }
 }
-
-const WORKSHOP: readonly Role[] = ['admin', 'consultant', 'scientist'];
-const EVERYONE: readonly Role[] = ['admin', 'consultant', 'scientist', 'client'];
 
 export const routes: RouteRecordRaw[] = [
   {
@@ -25,67 +22,67 @@ export const routes: RouteRecordRaw[] = [
         path: '',
         name: 'overview',
         component: () => import('src/pages/OverviewPage.vue'),
-        meta: { roles: EVERYONE, nav: { label: 'Overview', icon: 'dashboard' }, title: 'Overview' },
+        meta: { access: 'signedIn', nav: { label: 'Overview', icon: 'dashboard' }, title: 'Overview' },
       },
       {
         path: 'catchments',
         name: 'catchments',
         component: () => import('src/pages/CatchmentsPage.vue'),
-        meta: { roles: WORKSHOP, nav: { label: 'Catchments', icon: 'terrain', caption: 'Bands, climate, scenarios' }, title: 'Catchments' },
+        meta: { access: 'readCatchments', nav: { label: 'Catchments', icon: 'terrain', caption: 'Bands, climate, scenarios' }, title: 'Catchments' },
       },
       {
         path: 'catchments/:id(\\d+)',
         name: 'catchment',
         component: () => import('src/pages/CatchmentDetailPage.vue'),
-        meta: { roles: WORKSHOP, title: 'Catchment' },
+        meta: { access: 'readCatchments', title: 'Catchment' },
       },
       {
         path: 'catchments/:id(\\d+)/scenarios/:scenarioId(\\d+|new)',
         name: 'scenario',
         component: () => import('src/pages/ScenarioBuilderPage.vue'),
-        meta: { roles: WORKSHOP, title: 'Scenario' },
+        meta: { access: 'readCatchments', title: 'Scenario' },
       },
       {
         path: 'catchments/:id(\\d+)/results',
         name: 'run-results',
         component: () => import('src/pages/RunResultsPage.vue'),
-        meta: { roles: WORKSHOP, title: 'Results' },
+        meta: { access: 'runScenarios', title: 'Results' },
       },
       {
         path: 'lab',
         name: 'lab',
         component: () => import('src/pages/LabPage.vue'),
-        meta: { roles: WORKSHOP, nav: { label: 'Lab', icon: 'science', caption: 'Surface response, calibration' }, title: 'Lab' },
+        meta: { access: 'useLab', nav: { label: 'Lab', icon: 'science', caption: 'Surface response, calibration' }, title: 'Lab' },
       },
       {
         path: 'briefings',
         name: 'briefings',
         component: () => import('src/pages/BriefingsPage.vue'),
-        meta: { roles: ['admin', 'consultant', 'client'], nav: { label: 'Briefings', icon: 'article', caption: 'Published results' }, title: 'Briefings' },
+        meta: { access: 'readBriefings', nav: { label: 'Briefings', icon: 'article', caption: 'Published results' }, title: 'Briefings' },
       },
       {
         path: 'briefings/:id(\\d+)/edit',
         name: 'briefing-edit',
         component: () => import('src/pages/BriefingEditorPage.vue'),
-        meta: { roles: ['admin', 'consultant'], title: 'Briefing draft' },
+        meta: { access: 'writeBriefings', title: 'Briefing draft' },
       },
       {
         path: 'briefings/:id(\\d+)/:version(\\d+)?',
         name: 'briefing-read',
         component: () => import('src/pages/BriefingReadingPage.vue'),
-        meta: { roles: ['admin', 'consultant', 'client'], title: 'Briefing' },
+        meta: { access: 'readBriefings', title: 'Briefing' },
       },
       {
         path: 'team',
         name: 'team',
         component: () => import('src/pages/TeamPage.vue'),
-        meta: { roles: ['admin'], nav: { label: 'Team', icon: 'group', caption: 'Members and invitations' }, title: 'Team' },
+        meta: { access: 'manageMembers', nav: { label: 'Team', icon: 'group', caption: 'Members and invitations' }, title: 'Team' },
       },
       {
         path: 'billing',
         name: 'billing',
         component: () => import('src/pages/BillingPage.vue'),
-        meta: { roles: ['admin'], nav: { label: 'Seats & billing', icon: 'credit_card' }, title: 'Seats & billing' },
+        meta: { access: 'manageSeats', nav: { label: 'Seats & billing', icon: 'credit_card' }, title: 'Seats & billing' },
       },
     ],
   },

@@ -94,6 +94,7 @@ describe('band files', () => {
     await agent.put(`/api/catchments/${id}/bands`).send({ bands: [band(3000, 3200)] });
     const res = await agent.get(`/api/catchments/${id}/bands.csv`);
     expect(res.headers['content-disposition']).toContain('attachment');
-    expect(res.text).toBe('lowerM,upperM,areaKm2,slopeDeg,aspectDeg,glacierFraction,debrisFraction,debrisThicknessM\r\n3000,3200,3.2,20,180,0.4,0.5,0.2\r\n');
+    // With a byte-order mark, so spreadsheet programs read it as UTF-8.
+    expect(res.text).toBe('\uFEFFlowerM,upperM,areaKm2,slopeDeg,aspectDeg,glacierFraction,debrisFraction,debrisThicknessM\r\n3000,3200,3.2,20,180,0.4,0.5,0.2\r\n');
   });
 });

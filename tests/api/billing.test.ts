@@ -1,3 +1,5 @@
+import { allows } from '../../shared/access/capabilities';
+import { ROLES } from '../../shared/schemas/auth';
 import { createServer } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import cookieParser from 'cookie-parser';
@@ -269,7 +271,7 @@ describe('payment service down', () => {
 });
 
 describe('who may reach billing', () => {
-  it.each(['consultant', 'scientist', 'client'] as const)('answers 403 to a %s on every billing route', async (role) => {
+  it.each(ROLES.filter((r) => !allows(r, 'manageSeats')))('answers 403 to a %s on every billing route', async (role) => {
     const org = await createOrganisation(h.t.db);
     const agent = await signedInAgent(h.t.app, org.users[role].email);
     expect((await agent.get('/api/billing')).status).toBe(403);

@@ -48,9 +48,6 @@ beforeAll(async () => {
   expect(saved.status).toBe(200);
 });
 afterAll(async () => {
-  await t.ctx.runExecutor.idle();
-  await t.ctx.simulationPool.close();
-  await t.ctx.pdfPool.close();
   await t.close();
   await catcher?.close();
 });

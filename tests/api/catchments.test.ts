@@ -62,7 +62,7 @@ describe('a catchment with runs', () => {
   it('is archived, not deleted, so its runs stay reproducible', async () => {
     const agent = await signedInAgent(t.app, orgA.users.consultant.email);
     const id = (await agent.post('/api/catchments').send(catchmentFields())).body.catchment.id;
-    const [scenarioId] = await t.db('scenarios').insert({ organisation_id: orgA.organisationId, catchment_id: id, name: 'Baseline', description: '', is_baseline: true, schema_version: 1, changes: '{}' });
+    const { id: scenarioId } = await t.db('scenarios').where({ catchment_id: id, is_baseline: true }).first('id');
     await t.db('runs').insert({
       organisation_id: orgA.organisationId, catchment_id: id, scenario_id: scenarioId, scenario_name: 'Baseline', is_baseline: true,
       changes: '{}', engine_version: 'test', input_hash: 'x'.repeat(64),
@@ -107,23 +107,13 @@ describe('roles and organisations', () => {
   });
 
   it.each([
-    ['GET', '/api/catchments'], ['POST', '/api/catchments'], ['GET', '/api/catchments/1'], ['PUT', '/api/catchments/1'],
-    ['DELETE', '/api/catchments/1'], ['GET', '/api/catchments/1/bands'], ['PUT', '/api/catchments/1/bands'],
-    ['GET', '/api/catchments/1/bands.csv'], ['POST', '/api/catchments/1/bands/file'], ['GET', '/api/catchments/1/datasets'],
-    ['GET', '/api/catchments/1/datasets/1/series'], ['GET', '/api/catchments/1/datasets/1/monthly'], ['GET', '/api/catchments/1/datasets/1/csv'],
-    ['DELETE', '/api/catchments/1/datasets/1'], ['POST', '/api/catchments/1/uploads'], ['POST', '/api/catchments/1/uploads/x/confirm'],
-  ])('answers 403 to a client on %s %s', async (method, url) => {
-    const agent = await signedInAgent(t.app, orgA.users.client.email);
-    const res = await agent[method.toLowerCase() as 'get'](url);
-    expect(res.status).toBe(403);
-  });
-
-  it.each([
     ['GET', ''], ['PUT', ''], ['DELETE', ''], ['POST', '/archive'], ['GET', '/bands'], ['PUT', '/bands'], ['GET', '/bands.csv'],
     ['GET', '/datasets'], ['POST', '/uploads'],
   ])("answers 404 for another organisation's catchment on %s …%s", async (method, suffix) => {
     const agent = await signedInAgent(t.app, orgA.users.consultant.email);
-    const body = method === 'PUT' && suffix === '' ? catchmentFields() : method === 'POST' ? { archived: true } : { bands: [] };
+    // Well-formed bodies: a malformed one is refused (422) before any catchment is looked up.
+    const oneBand = { lowerM: 3000, upperM: 3200, areaKm2: 1, slopeDeg: 20, aspectDeg: 180, glacierFraction: 0.4, debrisFraction: 0, debrisThicknessM: 0 };
+    const body = method === 'PUT' && suffix === '' ? catchmentFields() : method === 'POST' ? { archived: true } : { bands: [oneBand] };
     const res = await agent[method.toLowerCase() as 'post'](`/api/catchments/${foreignId}${suffix}`).send(body);
     expect(res.status).toBe(404);
     const list = await agent.get('/api/catchments').query({ perPage: 100 });

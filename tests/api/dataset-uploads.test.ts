@@ -199,7 +199,9 @@ describe('reading stored data back', () => {
     expect(monthly.body.months).toEqual([{ month: '2024-01', value: Math.round(total * 100) / 100, statistic: 'total', count: 30, expected: 30, completeness: 1 }]);
     const csv = await agent.get(`/api/catchments/${id}/datasets/${dataset.id}/csv`);
     expect(csv.headers['content-type']).toContain('text/csv');
-    expect(csv.text.split('\r\n')[0]).toBe('date,precipitation (mm)');
+    // The byte-order mark makes spreadsheet programs read units such as °C as UTF-8.
+    expect(csv.text.split('\r\n')[0]).toBe('\uFEFFdate,precipitation (mm)');
+    expect(csv.headers['content-disposition']).toBe(`attachment; filename="precipitation-${dataset.id}.csv"`);
     expect(csv.text.split('\r\n')[1]).toBe('2024-01-01,0');
   });
 });

@@ -27,7 +27,7 @@ async function waitForJob(agent: Awaited<ReturnType<typeof signedInAgent>>, id: 
 }
 
 beforeAll(async () => {
-  t = createTestApp({}, { labThreads: 1 });
+  t = createTestApp({ WORKER_THREADS: "1" });
   app = t.app;
   org = await createOrganisation(t.db);
   other = await createOrganisation(t.db);

@@ -1,3 +1,5 @@
+import { allows } from '../../shared/access/capabilities';
+import { ROLES } from '../../shared/schemas/auth';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createOrganisation, signedInAgent, unique, type TestOrg } from '../support/factories';
 import { startTeamHarness, type TeamHarness } from '../support/team-harness';
@@ -92,7 +94,7 @@ describe('role changes and removal', () => {
 });
 
 describe('who may manage members', () => {
-  it.each(['consultant', 'scientist', 'client'] as const)('answers 403 to a %s', async (role) => {
+  it.each(ROLES.filter((r) => !allows(r, 'manageMembers')))('answers 403 to a %s', async (role) => {
     const org = await createOrganisation(h.t.db);
     const agent = await signedInAgent(h.t.app, org.users[role].email);
     expect((await agent.get('/api/members')).status).toBe(403);

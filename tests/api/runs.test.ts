@@ -1,12 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type TestAgent from 'supertest/lib/agent';
 import { CAUTIONS } from '../../shared/text/cautions';
-import { planRun } from '../../shared/analysis/run-plan';
-import type { MemberInput } from '../../shared/analysis/simulate-summary';
-import { scenarioChangesSchema } from '../../shared/schemas/scenarios';
-import { RunExecutor } from '../../server/services/runs/run-executor';
-import type { SimulationPool } from '../../server/services/runs/simulation-pool';
-import { TenantScope } from '../../server/services/tenant-scope';
+import type { Simulator } from '../../server/services/runs/simulator';
 import { createOrganisation, signedInAgent, type TestOrg } from '../support/factories';
 import { createTestApp, type TestApp } from '../support/test-app';
 import { createCatchment, giveActivePlan, inventedValleyInputs, SEASON, waitForRun } from '../support/runs';
@@ -37,16 +32,36 @@ beforeAll(async () => {
   baselineId = list.body.scenarios[0].id;
   await consultant.patch(`/api/catchments/${catchmentId}/scenarios/${baselineId}`).send({ changes: { period: SEASON } });
 });
-afterAll(async () => {
-  await t.ctx.runExecutor.idle();
-  await t.ctx.simulationPool.close();
-  await t.close();
-});
+afterAll(() => t.close());
 
 describe('scenarios', () => {
   it('give every catchment a baseline first', async () => {
     const res = await consultant.get(`/api/catchments/${catchmentId}/scenarios`);
     expect(res.body.scenarios[0]).toMatchObject({ name: 'Baseline', isBaseline: true, archived: false });
+  });
+
+  it('are made with the catchment: its baseline exists before anyone lists scenarios', async () => {
+    const id = await createCatchment(consultant);
+    const rows = await t.db('scenarios').where({ catchment_id: id }).select('name', 'is_baseline');
+    expect(rows).toEqual([{ name: 'Baseline', is_baseline: 1 }]);
+  });
+
+  it("keep the baseline's name for the baseline, so listing and running never trip over a variant called that", async () => {
+    const id = await createCatchment(consultant);
+    for (const name of ['Baseline', ' baseline ', 'BASELINE']) {
+      const res = await consultant.post(`/api/catchments/${id}/scenarios`).send({ name, changes: {} });
+      expect(res.status, name).toBe(422);
+      expect(res.body.error.field).toBe('name');
+    }
+    const variant = await createScenario(consultant, 'Darker', { ...SOOT, period: SEASON }, id);
+    const rename = await consultant.patch(`/api/catchments/${id}/scenarios/${variant}`).send({ name: 'Baseline' });
+    expect(rename.status).toBe(422);
+    const listed = await consultant.get(`/api/catchments/${id}/scenarios`);
+    expect(listed.status).toBe(200);
+    expect(listed.body.scenarios.map((s: { name: string; isBaseline: boolean }) => [s.name, s.isBaseline])).toEqual([['Baseline', true], ['Darker', false]]);
+    const started = await consultant.post(`/api/catchments/${id}/runs`).send({ scenarioId: variant });
+    expect(started.status).toBe(202);
+    expect((await waitForRun(consultant, id, started.body.run.id)).status).toBe('done');
   });
 
   it('refuse invalid changes naming the field and the allowed range', async () => {
@@ -112,8 +127,8 @@ describe('roles and organisations', () => {
     const own = await createCatchment(outsider);
     const foreignScenario = await outsider.post(`/api/catchments/${own}/runs`).send({ scenarioId: baselineId });
     expect(foreignScenario.status).toBe(404);
-    const runs = await consultant.get(`/api/catchments/${catchmentId}/runs`);
-    const runId = runs.body.runs[0].id;
+    const started = await consultant.post(`/api/catchments/${catchmentId}/runs`).send({ scenarioId: baselineId });
+    const runId = (await waitForRun(consultant, catchmentId, started.body.run.id)).id;
     for (const path of ['', '/results', '/export/bands.csv', '/export/daily.csv']) {
       expect((await outsider.get(`/api/catchments/${catchmentId}/runs/${runId}${path}`)).status).toBe(404);
     }
@@ -163,6 +178,17 @@ describe('run lifecycle', () => {
     await waitForRun(consultant, catchmentId, changed.body.run.id);
   });
 
+  it('reuses a run only within its catchment (another catchment with identical data runs its own)', async () => {
+    const changes = { ...SOOT, dustIceUgG: 7 };
+    const first = await createCatchment(consultant);
+    const second = await createCatchment(consultant);
+    const a = await consultant.post(`/api/catchments/${first}/runs`).send({ scenarioId: await createScenario(consultant, 'Twin', changes, first) });
+    const b = await consultant.post(`/api/catchments/${second}/runs`).send({ scenarioId: await createScenario(consultant, 'Twin', changes, second) });
+    expect([a.status, b.status]).toEqual([202, 202]);
+    expect((await waitForRun(consultant, second, b.body.run.id)).catchmentId).toBe(second);
+    await waitForRun(consultant, first, a.body.run.id);
+  });
+
   it('can be cancelled while it runs', async () => {
     const scenarioId = await createScenario(consultant, 'Long ensemble', { ...SOOT, dustSnowUgG: 30 });
     const started = await consultant.post(`/api/catchments/${catchmentId}/runs`).send({ scenarioId, ensembleSize: 200 });
@@ -176,19 +202,20 @@ describe('run lifecycle', () => {
   });
 
   it('ends failed and keeps the error message when a simulation fails', async () => {
-    const failingPool = { threads: 1, simulate: async () => { throw new Error('the engine stopped: no energy balance closure'); } } as unknown as SimulationPool;
-    const executor = new RunExecutor(t.db, failingPool, 1);
-    const scenarioId = await createScenario(consultant, 'Bound to fail', { ...SOOT, dustIceUgG: 5 });
-    const scope = new TenantScope(t.db, org.organisationId);
-    const runId = await scope.insert('runs', {
-      catchment_id: catchmentId, scenario_id: scenarioId, scenario_name: 'Bound to fail', is_baseline: false, changes: '{}',
-      engine_version: '1.0.0', input_hash: 'f'.repeat(64), status: 'queued', simulation_count: 1,
-    });
-    executor.enqueue({ runId, organisationId: org.organisationId, members: [{ plan: planRun({ changes: scenarioChangesSchema.parse(SOOT), baselineChanges: null, attribution: false, ensembleSize: 0, ensembleSeed: 1 }, [3000]).members[0], input: {} as MemberInput }] });
-    await executor.idle();
-    const run = await waitForRun(consultant, catchmentId, runId);
-    expect(run).toMatchObject({ status: 'failed', errorMessage: 'the engine stopped: no energy balance closure' });
-    expect(run.finishedAt).not.toBeNull();
+    const failing: Simulator = { threads: 1, simulate: () => Promise.reject(new Error('the engine stopped: no energy balance closure')) };
+    const broken = createTestApp({}, { catchmentInputs: inventedValleyInputs, simulator: failing });
+    try {
+      const agent = await signedInAgent(broken.app, org.users.consultant.email);
+      const id = await createCatchment(agent);
+      const scenarioId = await createScenario(agent, 'Bound to fail', SOOT, id);
+      const started = await agent.post(`/api/catchments/${id}/runs`).send({ scenarioId });
+      expect(started.status).toBe(202);
+      const run = await waitForRun(agent, id, started.body.run.id);
+      expect(run).toMatchObject({ status: 'failed', errorMessage: 'the engine stopped: no energy balance closure' });
+      expect(run.finishedAt).not.toBeNull();
+    } finally {
+      await broken.close();
+    }
   });
 
   it('refuses a run whose catchment data are missing, naming what is missing', async () => {

@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { simulationInputSchema } from '../../shared/melt/schema';
-import { BandService } from '../../server/services/band-service';
-import { buildSimulationInputs, requireReadyInputs } from '../../server/services/simulation-inputs';
+import { BandService } from '../../server/services/catchments/band-service';
+import { buildSimulationInputs, requireReadyInputs } from '../../server/services/catchments/simulation-inputs';
 import { TenantScope } from '../../server/services/tenant-scope';
 import { catchmentFields } from '../support/catchments';
 import { createOrganisation, signedInAgent, type TestOrg } from '../support/factories';

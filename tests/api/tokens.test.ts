@@ -1,7 +1,7 @@
 import jwt from 'jsonwebtoken';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { signSessionToken } from '../../server/services/session-tokens';
+import { signSessionToken } from '../../server/services/auth/session-tokens';
 import { createOrganisation, type TestOrg } from '../support/factories';
 import { createTestApp, type TestApp } from '../support/test-app';
 

@@ -40,9 +40,6 @@ beforeAll(async () => {
   expect(run.status).toBe('done');
 });
 afterAll(async () => {
-  await b?.t.ctx.runExecutor.idle();
-  await b?.t.ctx.simulationPool.close();
-  await b?.t.ctx.pdfPool.close();
   await b?.close();
 });
 

@@ -1,11 +1,10 @@
 import path from 'node:path';
-import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { seed as seedOrganisation } from '../../seeds/01_demo_organisation';
 import { seed as seedCatchment } from '../../seeds/02_demo_catchment';
 import { DEMO_ACCOUNTS } from '../../seeds/data/demo-accounts';
 import { DEMO_CATCHMENT } from '../../seeds/data/demo-catchment';
-import { openBrowser, signInThroughForm, type BrowserSession } from '../support/browser';
+import { openBrowser, settled, signInThroughForm, type BrowserSession } from '../support/browser';
 import { unique } from '../support/factories';
 
 let b: BrowserSession;
@@ -16,8 +15,6 @@ const GAP_FILE = path.join(FIXTURES, 'temperature-hourly-gap.csv');
 const GOOD_BANDS = path.join(FIXTURES, 'bands.csv');
 const BAD_BANDS = path.join(FIXTURES, 'bands-overlap.csv');
 
-/** Charts draw on the next animation frame after their canvas appears; wait for it before a screenshot. */
-const settle = (page: Page) => page.waitForTimeout(400);
 
 beforeAll(async () => {
   b = await openBrowser();
@@ -35,17 +32,17 @@ describe('catchments in the browser', () => {
     const row = page.locator('[data-test=catchment-table] tbody tr', { hasText: DEMO_CATCHMENT.name });
     await row.waitFor();
     await page.waitForFunction(() => document.querySelectorAll('[data-test=catchment-table] tbody tr').length === 1);
-    await settle(page);
+    await settled(page);
     await page.screenshot({ path: 'test-results/catchments-list.png' });
     await row.click();
     await page.waitForSelector(`[data-test=catchment-title]:has-text("${DEMO_CATCHMENT.name}")`);
-    await settle(page);
+    await settled(page);
     await page.screenshot({ path: 'test-results/catchment-details.png' });
 
     await page.click('[data-test=tab-bands]');
     await page.waitForSelector('[data-test=hypsometry-chart] canvas');
     expect(await page.locator('[data-test=band-table] tbody tr').count()).toBe(21);
-    await settle(page);
+    await settled(page);
     await page.screenshot({ path: 'test-results/catchment-bands.png', fullPage: true });
 
     await page.click('[data-test=tab-climate]');
@@ -53,17 +50,17 @@ describe('catchments in the browser', () => {
     await page.waitForSelector('[data-test=series-chart]:has-text("Air temperature") canvas');
     await page.waitForSelector('[data-test=monthly-table]');
     expect(await page.textContent('[data-test=completeness-temperature]')).toBe('99.98 % complete');
-    await settle(page);
+    await settled(page);
     await page.screenshot({ path: 'test-results/catchment-climate.png', fullPage: true });
 
     await page.click('[data-test=tab-observations]');
     await page.waitForSelector('[data-test=dataset-discharge]');
     await page.waitForSelector('[data-test=series-chart] canvas');
-    await settle(page);
+    await settled(page);
     await page.screenshot({ path: 'test-results/catchment-observations.png', fullPage: true });
     await page.click('[data-test=dataset-pointBalance]');
     await page.waitForSelector('[data-test=stake-chart] canvas');
-    await settle(page);
+    await settled(page);
     await page.screenshot({ path: 'test-results/catchment-stakes.png', fullPage: true });
     await page.close();
   });
@@ -91,13 +88,13 @@ describe('catchments in the browser', () => {
     const problems = await page.textContent('[data-test=preview-problems]');
     expect(problems).toContain('no values from 2024-01-02 06:00 to 2024-01-02 11:00 (6 hours)');
     expect(await page.textContent('[data-test=preview-unit]')).toContain('°C');
-    await settle(page);
+    await settled(page);
     await page.screenshot({ path: 'test-results/upload-preview.png', fullPage: true });
 
     await page.click('[data-test=upload-confirm]');
     await page.waitForSelector('[data-test=series-chart] canvas');
     expect(await page.textContent('[data-test=completeness-temperature]')).toContain('91.67 %');
-    await settle(page);
+    await settled(page);
     await page.screenshot({ path: 'test-results/upload-chart.png', fullPage: true });
 
     const [svg] = await Promise.all([page.waitForEvent('download'), page.click('[data-test=series-chart-download]').then(() => page.click('text=Drawing (SVG)'))]);
@@ -113,7 +110,7 @@ describe('catchments in the browser', () => {
     await page.click('[data-test=band-save]');
     await page.waitForSelector('[data-test=hypsometry-chart] canvas');
     await page.waitForSelector('[data-test=tab-bands] >> text=Bands (5)');
-    await settle(page);
+    await settled(page);
     await page.screenshot({ path: 'test-results/bands-from-file.png', fullPage: true });
     await page.close();
   });

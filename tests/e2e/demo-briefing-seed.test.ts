@@ -48,7 +48,6 @@ beforeAll(async () => {
   catchmentId = (await b.t.db('catchments').where({ organisation_id: organisationId, name: DEMO_CATCHMENT.name }).first('id')).id;
 });
 afterAll(async () => {
-  await b?.t.ctx.pdfPool.close();
   await b?.close();
 });
 

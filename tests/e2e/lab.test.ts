@@ -92,7 +92,9 @@ describe('the lab in the browser', () => {
     await signInThroughForm(page, b.baseUrl, client.email, client.password);
     expect(await page.locator('[data-test=nav-lab]').count()).toBe(0);
     await page.goto(`${b.baseUrl}/lab`);
-    await page.waitForTimeout(500);
+    // The guard answers by sending the client back to the overview with a warning: wait for that answer, then look.
+    await page.waitForSelector('text=Your role does not give access to that page.');
+    expect(new URL(page.url()).pathname).toBe('/');
     expect(await page.locator('[data-test=lab-surface]').count()).toBe(0);
     await page.close();
   });

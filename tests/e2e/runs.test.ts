@@ -5,9 +5,12 @@ import { seed as seedSubscription } from '../../seeds/02_demo_subscription';
 import { DEMO_ACCOUNTS } from '../../seeds/data/demo-accounts';
 import { DEMO_CATCHMENT } from '../../seeds/data/demo-catchment';
 import { openBrowser, signInThroughForm, type BrowserSession } from '../support/browser';
-import { unique } from '../support/factories';
+import { signedInAgent, unique } from '../support/factories';
+import { waitForRun } from '../support/runs';
 
 let b: BrowserSession;
+/** A melt season inside the demo record, for a variant when the baseline sets none. */
+const SEASON = { from: '2022-05-01', to: '2022-09-30' };
 let catchmentId: number;
 const consultant = DEMO_ACCOUNTS.find((a) => a.role === 'consultant')!;
 
@@ -19,8 +22,6 @@ beforeAll(async () => {
   catchmentId = (await b.t.db('catchments').where({ name: DEMO_CATCHMENT.name }).first('id')).id;
 });
 afterAll(async () => {
-  await b?.t.ctx.runExecutor.idle();
-  await b?.t.ctx.simulationPool.close();
   await b?.close();
 });
 
@@ -69,6 +70,17 @@ describe('darkening scenarios in the browser', () => {
   });
 
   it('compares an attributed, uncertainty-banded variant with another', async () => {
+    // The variant to compare with, run through the API so this test stands alone.
+    const agent = await signedInAgent(b.t.app, consultant.email, consultant.password);
+    const other = unique('Soot to compare ');
+    const baseline = (await agent.get(`/api/catchments/${catchmentId}/scenarios`)).body.scenarios[0];
+    const created = await agent.post(`/api/catchments/${catchmentId}/scenarios`).send({
+      name: other, changes: { period: baseline.changes.period ?? SEASON, blackCarbonSnowNgG: 300 + (Date.now() % 200), blackCarbonIceNgG: 1000 },
+    });
+    expect(created.status).toBe(201);
+    const started = await agent.post(`/api/catchments/${catchmentId}/runs`).send({ scenarioId: created.body.scenario.id });
+    expect((await waitForRun(agent, catchmentId, started.body.run.id, 90_000)).status).toBe('done');
+
     const page = await b.newPage();
     await signInThroughForm(page, b.baseUrl, consultant.email, consultant.password);
     await page.goto(`${b.baseUrl}/catchments/${catchmentId}/scenarios/new`);
@@ -92,13 +104,13 @@ describe('darkening scenarios in the browser', () => {
 
     // The started run is ticked already; tick the first variant's run too, then compare them.
     expect(await row.locator('.q-checkbox[aria-checked=true]').count()).toBe(1);
-    await page.locator('[data-test=runs-table] tbody tr', { hasText: 'Soot' }).first().locator('.q-checkbox').click();
+    await page.locator('[data-test=runs-table] tbody tr', { hasText: other }).first().locator('.q-checkbox').click();
     await page.click('[data-test=show-results]');
 
     await page.waitForSelector('[data-test=chart-attribution] canvas', { timeout: 30_000 });
     const header = await page.textContent('[data-test=totals-table] thead');
     expect(header).toContain(name);
-    expect(header).toContain('Soot');
+    expect(header).toContain(other);
     expect(await page.textContent('[data-test=total-addedVolumeM3]')).toContain('5–95 %');
     await page.screenshot({ path: 'test-results/runs-compare.png', fullPage: true });
     await page.close();

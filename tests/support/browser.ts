@@ -14,7 +14,7 @@ export interface BrowserSession {
   close(): Promise<void>;
 }
 
-// Flags for Debian's Chromium in this closed network (see STACK.md, "Browser tests").
+// Flags for Debian's Chromium in this closed network (docs/conventions.md, "Set-up facts the tests rely on").
 const CHROMIUM_ARGS = [
   '--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run',
   '--disable-background-networking', '--disable-component-update', '--disable-sync',
@@ -55,6 +55,18 @@ export async function launchBrowser(): Promise<BrowserWindow> {
       rmSync(profile, { recursive: true, force: true });
     },
   };
+}
+
+/**
+ * Resolves once the page has drawn what it shows: web fonts loaded and two animation frames gone
+ * by (ECharts paints a chart on the frame after its canvas appears; transitions are off in tests).
+ * Use it before a screenshot instead of a fixed sleep.
+ */
+export async function settled(page: Page): Promise<void> {
+  await page.evaluate(async () => {
+    await document.fonts.ready;
+    await new Promise<void>((resolve) => requestAnimationFrame(() => requestAnimationFrame(() => resolve())));
+  });
 }
 
 /** Serves the built client (dist/) and API on a free port and opens headless Chromium on it. */

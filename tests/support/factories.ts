@@ -2,7 +2,7 @@ import bcrypt from 'bcryptjs';
 import type { Express } from 'express';
 import type { Knex } from 'knex';
 import request from 'supertest';
-import type { Role } from '../../shared/schemas/auth';
+import { ROLES, type Role } from '../../shared/schemas/auth';
 
 let counter = 0;
 /** A unique suffix so test data never collides between files or runs. */
@@ -24,7 +24,7 @@ export async function createOrganisation(db: Knex, name = unique('Org ')): Promi
   const [organisationId] = await db('organisations').insert({ name });
   const tag = unique('u');
   const users = {} as TestOrg['users'];
-  for (const role of ['admin', 'consultant', 'scientist', 'client'] as const) {
+  for (const role of ROLES) {
     const email = `${role}.${tag}@test.example`;
     const [id] = await db('users').insert({
       organisation_id: organisationId,

@@ -1,6 +1,8 @@
 import type { Knex } from 'knex';
 import { variableSpec, type Variable } from '../../shared/schemas/dataset-variables';
-import { insertDatasetValues, insertStakeReadings } from '../../server/services/dataset-values';
+import { insertBaseline } from '../../server/services/catchments/baseline-scenario';
+import { insertDatasetValues, insertStakeReadings } from '../../server/services/catchments/dataset-values';
+import { TenantScope } from '../../server/services/tenant-scope';
 import { DEMO_BANDS, DEMO_CATCHMENT } from '../../seeds/data/demo-catchment';
 import { demoStation } from '../../seeds/data/demo-forcing';
 import { demoObservations } from '../../seeds/data/demo-observations';
@@ -17,6 +19,7 @@ export async function createDemoCatchment(db: Knex, organisationId: number, opti
     organisation_id: organisationId, name: unique('Sarvel '), description: c.description, latitude_deg: c.latitudeDeg, longitude_deg: c.longitudeDeg,
     time_zone: c.timeZone, station_name: c.stationName, station_elevation_m: c.stationElevationM, outlet_description: c.outletDescription,
   });
+  await insertBaseline(new TenantScope(db, organisationId), catchmentId, null);
   await db('elevation_bands').insert(DEMO_BANDS.map((b, position) => ({
     organisation_id: organisationId, catchment_id: catchmentId, position,
     lower_m: b.lowerM, upper_m: b.upperM, area_km2: b.areaKm2, slope_deg: b.slopeDeg, aspect_deg: b.aspectDeg,

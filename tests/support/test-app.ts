@@ -26,10 +26,8 @@ export function createTestApp(overrides: Record<string, string> = {}, contextOpt
   const ctx = createContext(config, db, { bcryptCost: 4, ...contextOptions });
   const app = createApp(ctx, { clientDir: overrides.CLIENT_DIR });
   const close = async () => {
-    ctx.mail.close();
-    // Lab jobs write to the database until they end; then their worker threads can go.
-    await ctx.lab.jobs.idle();
-    await ctx.lab.pool.close();
+    // Runs and lab jobs write to the database until they end; then the threads and the database can go.
+    await ctx.close();
     await db.destroy();
   };
   return { app, ctx, db, config, close };

@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
 import type Stripe from 'stripe';
-import type { UserRow } from '../auth-service';
+import type { UserRow } from '../auth/auth-service';
 import type { AppConfig } from '../../config';
 import { conflict, notFound, paymentRequired } from '../../errors';
 import {

@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
-import { SEAT_ROLES, type Role } from '../../../shared/schemas/auth';
+import { allows, rolesWith } from '../../../shared/access/capabilities';
+import type { Role } from '../../../shared/schemas/auth';
 import type { SeatUsage } from '../../../shared/schemas/billing';
 import { AppError, paymentRequired } from '../../errors';
 
@@ -19,7 +20,7 @@ export interface SubscriptionRow {
 /** Members in these states hold their seat (an invitation reserves one until it is revoked). */
 const SEAT_HOLDING_STATUSES = ['active', 'invited'] as const;
 
-export const takesSeat = (role: Role): boolean => SEAT_ROLES.includes(role);
+export const takesSeat = (role: Role): boolean => allows(role, 'takeSeat');
 
 /**
  * Locks the organisation's row until the transaction ends. Every change to seats in use
@@ -37,7 +38,7 @@ export function subscriptionOf(db: Knex | Knex.Transaction, organisationId: numb
 export async function seatsInUse(db: Knex | Knex.Transaction, organisationId: number): Promise<number> {
   const row = await db('users')
     .where({ organisation_id: organisationId })
-    .whereIn('role', SEAT_ROLES)
+    .whereIn('role', rolesWith('takeSeat'))
     .whereIn('status', SEAT_HOLDING_STATUSES)
     .count({ n: '*' })
     .first();

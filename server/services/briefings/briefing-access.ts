@@ -1,4 +1,5 @@
-import type { UserRow } from '../auth-service';
+import { allows } from '../../../shared/access/capabilities';
+import type { UserRow } from '../auth/auth-service';
 import { notFound } from '../../errors';
 import type { TenantScope } from '../tenant-scope';
 
@@ -15,7 +16,8 @@ export interface BriefingRow {
   updated_at: Date;
 }
 
-export const writes = (user: UserRow) => user.role === 'admin' || user.role === 'consultant';
+/** Whether the user writes briefings (and so sees every briefing and comment of the organisation). */
+export const writes = (user: UserRow) => allows(user.role, 'writeBriefings');
 
 /**
  * The briefing if this user may read it: writers see every briefing of their organisation;

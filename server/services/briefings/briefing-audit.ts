@@ -1,5 +1,5 @@
 import type { AuditAction, AuditItem } from '../../../shared/schemas/briefings';
-import type { UserRow } from '../auth-service';
+import type { UserRow } from '../auth/auth-service';
 import type { TenantScope } from '../tenant-scope';
 
 /** Who published, viewed, downloaded, shared and commented, and when: an append-only log per briefing. */

@@ -1,13 +1,12 @@
 import { safeFileName } from '../../../shared/csv/csv-writing';
-import type { UserRow } from '../auth-service';
+import { csvFile, type DownloadFile } from '../download-file';
+import type { UserRow } from '../auth/auth-service';
 import type { TenantScope } from '../tenant-scope';
 import { recordEvent } from './briefing-audit';
 import { readableBriefing } from './briefing-access';
 import type { BriefingService } from './briefing-service';
 import { briefingCsv } from './csv-export';
 import type { PdfPool } from './pdf/pdf-pool';
-
-export interface ExportFile { fileName: string; contentType: string; body: Buffer | string }
 
 const PDF_CACHE_SIZE = 32;
 
@@ -21,7 +20,7 @@ export class BriefingExports {
     private readonly pdfs: PdfPool,
   ) {}
 
-  async pdf(scope: TenantScope, user: UserRow, id: number, version: number): Promise<ExportFile> {
+  async pdf(scope: TenantScope, user: UserRow, id: number, version: number): Promise<DownloadFile> {
     const b = await readableBriefing(scope, user, id);
     const snapshot = await this.briefings.snapshot(scope, b, version);
     const key = `${scope.organisationId}:${id}:${snapshot.version}`;
@@ -37,10 +36,10 @@ export class BriefingExports {
     return { fileName: `${safeFileName(snapshot.title)}-v${snapshot.version}.pdf`, contentType: 'application/pdf', body };
   }
 
-  async csv(scope: TenantScope, user: UserRow, id: number, version: number): Promise<ExportFile> {
+  async csv(scope: TenantScope, user: UserRow, id: number, version: number): Promise<DownloadFile> {
     const b = await readableBriefing(scope, user, id);
     const snapshot = await this.briefings.snapshot(scope, b, version);
     await recordEvent(scope, id, user, 'downloaded-csv', snapshot.version);
-    return { fileName: `${safeFileName(snapshot.title)}-v${snapshot.version}.csv`, contentType: 'text/csv; charset=utf-8', body: `\uFEFF${briefingCsv(snapshot)}` };
+    return csvFile(`${safeFileName(snapshot.title)}-v${snapshot.version}.csv`, briefingCsv(snapshot));
   }
 }

@@ -1,13 +1,12 @@
-import type { z } from 'zod';
 import {
-  briefingSnapshotSchema, runSelectionSchema, type BriefingListItem, type BriefingSnapshot, type Draft, type DraftSection,
-  type Reading, type createBriefingSchema, type saveDraftSchema,
+  briefingSnapshotSchema, runSelectionSchema, type AuditItem, type BriefingListItem, type BriefingSnapshot, type Draft, type DraftSection,
+  type CreateBriefing, type Reading, type SaveDraft,
 } from '../../../shared/schemas/briefings';
 import { notFound } from '../../errors';
-import type { UserRow } from '../auth-service';
+import type { UserRow } from '../auth/auth-service';
 import type { TenantScope } from '../tenant-scope';
 import { assembleSnapshot } from './assemble';
-import { recordEvent } from './briefing-audit';
+import { listEvents, recordEvent } from './briefing-audit';
 import { readableBriefing, writes, type BriefingRow } from './briefing-access';
 import type { BriefingResultsSource } from './comparison';
 import { draftSectionsOf, sectionRows } from './draft-sections';
@@ -30,7 +29,9 @@ export class BriefingService {
       .orderBy('briefings.updated_at', 'desc');
     if (!writes(user)) {
       query.where('briefings.latest_version', '>', 0)
-        .whereExists((q) => q.from('briefing_shares as s').whereRaw('s.briefing_id = briefings.id').where('s.user_id', user.id));
+        .whereExists((q) => {
+          q.from('briefing_shares as s').whereRaw('s.briefing_id = briefings.id').where('s.user_id', user.id);
+        });
     }
     const rows = await query;
     return rows.map((r: Record<string, unknown>) => ({
@@ -39,7 +40,7 @@ export class BriefingService {
     }));
   }
 
-  async create(scope: TenantScope, user: UserRow, request: z.output<typeof createBriefingSchema>): Promise<Draft> {
+  async create(scope: TenantScope, user: UserRow, request: CreateBriefing): Promise<Draft> {
     await scope.findOr404('catchments', request.catchmentId, 'Catchment');
     await this.source.check(scope, request.catchmentId, request.selection);
     const id = await scope.transaction(async (s) => {
@@ -51,6 +52,12 @@ export class BriefingService {
       return briefingId;
     });
     return this.draft(scope, id);
+  }
+
+  /** Who published, viewed, downloaded, shared and commented, newest first. */
+  async audit(scope: TenantScope, id: number): Promise<AuditItem[]> {
+    await scope.findOr404('briefings', id, 'Briefing');
+    return listEvents(scope, id);
   }
 
   async draft(scope: TenantScope, id: number): Promise<Draft> {
@@ -72,7 +79,7 @@ export class BriefingService {
   }
 
   /** Replaces title, summary, chosen runs and the ordered sections in one go. */
-  async saveDraft(scope: TenantScope, user: UserRow, id: number, request: z.output<typeof saveDraftSchema>): Promise<Draft> {
+  async saveDraft(scope: TenantScope, user: UserRow, id: number, request: SaveDraft): Promise<Draft> {
     const briefing = await scope.findOr404<BriefingRow>('briefings', id, 'Briefing');
     await this.source.check(scope, briefing.catchment_id, request.selection);
     await scope.transaction(async (s) => {

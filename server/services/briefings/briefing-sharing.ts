@@ -1,6 +1,7 @@
+import { rolesWith } from '../../../shared/access/capabilities';
 import type { CommentItem } from '../../../shared/schemas/briefings';
 import { conflict, notFound, validationFailed } from '../../errors';
-import type { UserRow } from '../auth-service';
+import type { UserRow } from '../auth/auth-service';
 import type { InvitationService } from '../members/invitation-service';
 import type { TenantScope } from '../tenant-scope';
 import { recordEvent } from './briefing-audit';
@@ -52,7 +53,11 @@ export class BriefingSharing {
     const query = scope.from('briefing_comments').leftJoin('users', 'users.id', 'briefing_comments.user_id')
       .where('briefing_comments.briefing_id', briefingId).orderBy(['briefing_comments.created_at', 'briefing_comments.id'])
       .select('briefing_comments.id', 'briefing_comments.version', 'briefing_comments.body', 'briefing_comments.created_at', 'users.name', 'users.role');
-    if (!writes(user)) query.where((q) => q.where('briefing_comments.user_id', user.id).orWhereIn('users.role', ['admin', 'consultant']));
+    if (!writes(user)) {
+      query.where((q) => {
+        q.where('briefing_comments.user_id', user.id).orWhereIn('users.role', rolesWith('writeBriefings'));
+      });
+    }
     const rows: Record<string, unknown>[] = await query;
     return rows.map((r) => ({
       id: Number(r.id), author: String(r.name ?? 'former member'), role: String(r.role ?? ''), version: r.version === null ? null : Number(r.version),

@@ -1,12 +1,12 @@
 import type { ChartData, ChartKey, Headline, Ranged, TableData, TableKey } from '../../../shared/schemas/briefings';
 import type { RunResults } from '../../../shared/schemas/results';
 import { chartTable } from '../../../shared/briefings/chart-table';
+import { formatNumber, roundTo } from '../../../shared/text/numbers';
 import type { ComparisonForBriefing } from './comparison';
 
 const MILLION = 1e6;
-const round = (x: number, digits: number) => Number(x.toFixed(digits));
 const dateOf = (start: string, day: number) => new Date(Date.parse(`${start}T00:00:00Z`) + day * 86_400_000).toISOString().slice(0, 10);
-const bandLabel = (b: { elevationM: number }) => `${Math.round(b.elevationM).toLocaleString('en-GB')} m`;
+const bandLabel = (b: { elevationM: number }) => `${formatNumber(b.elevationM, 0)} m`;
 const variantsOf = (c: ComparisonForBriefing) => c.runs.map((r) => r.results);
 
 /** Added runoff per calendar month (variant minus baseline daily discharge), million m³. */
@@ -21,7 +21,7 @@ function monthlyAdded(c: ComparisonForBriefing): ChartData {
         const month = dateOf(r.startDate, d).slice(0, 7);
         perMonth.set(month, (perMonth.get(month) ?? 0) + (q - r.dischargeM3s.baseline[d]) * 86400);
       });
-      return { name: r.run.scenarioName, values: months.map((m) => round((perMonth.get(m) ?? 0) / MILLION, 4)) };
+      return { name: r.run.scenarioName, values: months.map((m) => roundTo((perMonth.get(m) ?? 0) / MILLION, 4)) };
     }),
   };
 }
@@ -29,7 +29,7 @@ function monthlyAdded(c: ComparisonForBriefing): ChartData {
 function bandAddedMelt(c: ComparisonForBriefing): ChartData {
   return {
     type: 'bar', xName: 'Elevation band (mean elevation)', yName: 'Added melt', unit: 'mm w.e.', categories: c.runs[0].results.bands.map(bandLabel),
-    series: variantsOf(c).map((r) => ({ name: r.run.scenarioName, values: r.bandAddedMm.map((b) => round(b.snow + b.ice + b.debrisIce, 1)) })),
+    series: variantsOf(c).map((r) => ({ name: r.run.scenarioName, values: r.bandAddedMm.map((b) => roundTo(b.snow + b.ice + b.debrisIce, 1)) })),
   };
 }
 
@@ -41,14 +41,14 @@ function surfaceSplit(c: ComparisonForBriefing): ChartData {
     series: variantsOf(c).map((r) => ({
       name: r.run.scenarioName,
       // mm over m² → m³: divide by 1000.
-      values: SURFACES.map(([, source]) => round(r.bandAddedMm.reduce((s, b, i) => s + (b[source] * r.bands[i].areaM2) / 1000, 0) / MILLION, 4)),
+      values: SURFACES.map(([, source]) => roundTo(r.bandAddedMm.reduce((s, b, i) => s + (b[source] * r.bands[i].areaM2) / 1000, 0) / MILLION, 4)),
     })),
   };
 }
 
 function dailyDischarge(c: ComparisonForBriefing): ChartData {
   const first = c.runs[0].results;
-  const r3 = (xs: number[]) => xs.map((x) => round(x, 3));
+  const r3 = (xs: number[]) => xs.map((x) => roundTo(x, 3));
   return {
     type: 'line', xName: 'Date', yName: 'Discharge', unit: 'm³/s',
     categories: Array.from({ length: first.dayCount }, (_, d) => dateOf(first.startDate, d)),
@@ -82,7 +82,7 @@ export function headlineOf(r: RunResults): Headline {
 }
 
 function totalsTable(c: ComparisonForBriefing): TableData {
-  const cells = (r: Ranged, scale: number, digits: number) => [r.value, r.low, r.high].map((x) => (x === null ? null : round(x / scale, digits)));
+  const cells = (r: Ranged, scale: number, digits: number) => [r.value, r.low, r.high].map((x) => (x === null ? null : roundTo(x / scale, digits)));
   const trio = (label: string, unit: string) => [{ label, unit }, { label: 'low (5 %)', unit }, { label: 'high (95 %)', unit }];
   return {
     columns: [

@@ -3,7 +3,8 @@ import type { RunSelection } from '../../../shared/schemas/briefings';
 import { validationFailed } from '../../errors';
 import type { ResultsService } from '../runs/results-service';
 import type { RunRow } from '../runs/run-service';
-import { BASELINE_NAME, readChanges } from '../scenario-service';
+import { BASELINE_NAME } from '../../../shared/schemas/scenarios';
+import { readChanges } from '../runs/scenario-service';
 import type { TenantScope } from '../tenant-scope';
 import type { BriefingResultsSource, ComparisonForBriefing } from './comparison';
 

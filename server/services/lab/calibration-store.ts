@@ -1,6 +1,6 @@
 import type { CalibrationSet } from '../../../shared/lab/calibration-set';
 import type { SavedCalibration } from '../../../shared/schemas/lab';
-import type { UserRow } from '../auth-service';
+import type { UserRow } from '../auth/auth-service';
 import type { TenantScope } from '../tenant-scope';
 
 interface CalibrationRow {

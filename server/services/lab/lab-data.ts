@@ -4,10 +4,10 @@ import type { DatedValue } from '../../../shared/lab/paired-series';
 import type { LabSite, Period } from '../../../shared/lab/site';
 import type { StakeObservation } from '../../../shared/lab/stake-balance';
 import { validationFailed } from '../../errors';
-import type { BandService } from '../band-service';
-import type { DatasetRow } from '../dataset-service';
-import { readDatasetValues, readStakeReadings } from '../dataset-values';
-import { buildSimulationInputs, requireReadyInputs } from '../simulation-inputs';
+import type { BandService } from '../catchments/band-service';
+import type { DatasetRow } from '../catchments/dataset-service';
+import { readDatasetValues, readStakeReadings } from '../catchments/dataset-values';
+import { buildSimulationInputs, requireReadyInputs } from '../catchments/simulation-inputs';
 import type { TenantScope } from '../tenant-scope';
 
 /** Days simulated before a period starts so the snowpack is built (one year, or the record's start). */

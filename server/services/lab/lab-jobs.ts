@@ -1,7 +1,7 @@
 import type { Knex } from 'knex';
 import type { LabJob } from '../../../shared/schemas/lab';
 import { conflict } from '../../errors';
-import type { UserRow } from '../auth-service';
+import type { UserRow } from '../auth/auth-service';
 import type { TenantScope } from '../tenant-scope';
 
 interface JobRow {

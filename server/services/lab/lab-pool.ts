@@ -1,15 +1,13 @@
-import { availableParallelism } from 'node:os';
 import type { LabTask } from '../../workers/lab-worker';
 import { ThreadPool } from '../thread-pool';
+import type { ThreadBudget } from '../thread-budget';
 
-/** Threads for lab work: one less than the machine's cores (the API keeps one), at least one. */
-export function defaultLabThreads(): number {
-  return Math.max(1, Math.min(4, availableParallelism() - 1));
-}
-
-/** Worker threads for the lab's computations (server/workers/lab-worker.ts). */
+/**
+ * Worker threads for the lab's computations (server/workers/lab-worker.ts). Curves and scores a
+ * scientist waits for are interactive; sweeps and calibrations ask for batch priority.
+ */
 export class LabPool extends ThreadPool<LabTask, unknown> {
-  constructor(threads = defaultLabThreads()) {
-    super(new URL('../../workers/lab-worker.ts', import.meta.url), threads);
+  constructor(budget: ThreadBudget) {
+    super(new URL('../../workers/lab-worker.ts', import.meta.url), budget, 'interactive');
   }
 }

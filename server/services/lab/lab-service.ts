@@ -6,19 +6,18 @@ import type { ReferenceComparison } from '../../../shared/lab/reference-models';
 import type { SurfaceResponseResult } from '../../../shared/lab/surface-response';
 import type { StakeComparison } from '../../../shared/lab/stake-balance';
 import { assembleSweep, sweepCells, type SweepPlan, type SweepSetup } from '../../../shared/lab/sweep';
-import {
-  calibrateRequestSchema, saveCalibrationSchema, skillRequestSchema, stakeSkillRequestSchema, sweepRequestSchema,
-  type BandQuery, type LabJob, type SavedCalibration, type SurfaceResponse,
+import type {
+  BandQuery, CalibrationJobRequest, LabJob, SaveCalibrationRequest, SavedCalibration, SkillRequest, StakeSkillRequest, SurfaceResponse,
+  SweepJobRequest,
 } from '../../../shared/schemas/lab';
 import { validationFailed } from '../../errors';
-import { parseWith } from '../../middleware/validate';
-import type { UserRow } from '../auth-service';
-import type { BandService } from '../band-service';
+import type { UserRow } from '../auth/auth-service';
+import type { BandService } from '../catchments/band-service';
 import type { TenantScope } from '../tenant-scope';
-import { CalibrationStore } from './calibration-store';
+import type { CalibrationStore } from './calibration-store';
 import { LabData } from './lab-data';
 import { LabJobs } from './lab-jobs';
-import { LabPool } from './lab-pool';
+import type { LabPool } from './lab-pool';
 
 /** Worker tasks per thread in a sweep: a few, so every thread stays busy to the end. */
 const TASKS_PER_THREAD = 4;
@@ -26,10 +25,9 @@ const TASKS_PER_THREAD = 4;
 /** The lab: surface response, reference models, skill scores, calibration and sweeps for a catchment. */
 export class LabService {
   readonly data: LabData;
-  readonly calibrations = new CalibrationStore();
   readonly jobs: LabJobs;
 
-  constructor(db: Knex, bands: BandService, readonly pool: LabPool = new LabPool()) {
+  constructor(db: Knex, bands: BandService, readonly pool: LabPool, readonly calibrations: CalibrationStore) {
     this.data = new LabData(bands);
     this.jobs = new LabJobs(db);
   }
@@ -67,16 +65,14 @@ export class LabService {
   }
 
   /** Skill of simulated against observed discharge, with the given set or the one in force. */
-  async skill(scope: TenantScope, catchmentId: number, body: unknown): Promise<{ set: CalibrationSet; evaluation: DischargeEvaluation }> {
-    const request = parseWith(skillRequestSchema, body);
+  async skill(scope: TenantScope, catchmentId: number, request: SkillRequest): Promise<{ set: CalibrationSet; evaluation: DischargeEvaluation }> {
     const set = request.set ?? await this.calibratedParameters(scope, catchmentId);
     return { set, evaluation: await this.evaluate(scope, catchmentId, request.period, set) };
   }
 
   /** Simulated against measured stake balances, with the given set or the one in force. */
-  async stakeSkill(scope: TenantScope, catchmentId: number, body: unknown): Promise<{ set: CalibrationSet; comparison: StakeComparison }> {
+  async stakeSkill(scope: TenantScope, catchmentId: number, request: StakeSkillRequest): Promise<{ set: CalibrationSet; comparison: StakeComparison }> {
     await scope.findOr404('catchments', catchmentId, 'Catchment');
-    const request = parseWith(stakeSkillRequestSchema, body);
     const set = request.set ?? await this.calibratedParameters(scope, catchmentId);
     const observed = await this.data.observedStakes(scope, catchmentId);
     const record = await this.data.recordRange(scope, catchmentId);
@@ -88,15 +84,28 @@ export class LabService {
     return { set, comparison: { ...comparison, outsideRecord: observed.length - inside.length } };
   }
 
-  async saveCalibration(scope: TenantScope, user: UserRow, catchmentId: number, body: unknown): Promise<SavedCalibration> {
-    const request = parseWith(saveCalibrationSchema, body);
+  /** The catchment's saved calibrations, newest (the one in force) first. */
+  async calibrationHistory(scope: TenantScope, catchmentId: number): Promise<{ current: SavedCalibration | null; history: SavedCalibration[] }> {
+    await scope.findOr404('catchments', catchmentId, 'Catchment');
+    const history = await this.calibrations.history(scope, catchmentId);
+    return { current: history[0] ?? null, history };
+  }
+
+  async saveCalibration(scope: TenantScope, user: UserRow, catchmentId: number, request: SaveCalibrationRequest): Promise<SavedCalibration> {
+    await scope.findOr404('catchments', catchmentId, 'Catchment');
     const set: CalibrationSet = request.set;
     const evaluation = await this.evaluate(scope, catchmentId, request.period, set);
     return this.calibrations.save(scope, user, catchmentId, { set, period: request.period, note: request.note, scores: { daily: evaluation.daily, monthly: evaluation.monthly } });
   }
 
-  async startSweep(scope: TenantScope, user: UserRow, catchmentId: number, body: unknown): Promise<LabJob> {
-    const plan: SweepPlan = parseWith(sweepRequestSchema, body);
+  /** The catchment's newest jobs, without their results. */
+  async jobList(scope: TenantScope, catchmentId: number): Promise<LabJob[]> {
+    await scope.findOr404('catchments', catchmentId, 'Catchment');
+    return this.jobs.list(scope, catchmentId);
+  }
+
+  async startSweep(scope: TenantScope, user: UserRow, catchmentId: number, request: SweepJobRequest): Promise<LabJob> {
+    const plan: SweepPlan = request;
     const set = await this.calibratedParameters(scope, catchmentId);
     const site = await this.data.site(scope, catchmentId, plan.period, set);
     const cells = sweepCells(plan);
@@ -105,23 +114,21 @@ export class LabService {
     for (let i = 0; i < cells.length; i += size) chunks.push(cells.slice(i, i + size).map((c) => c.values));
     return this.jobs.start(scope, user, catchmentId, 'sweep', plan, async (signal, report) => {
       report(0, 'Building the snowpack before the period');
-      const { setup, baseline } = await this.pool.run<{ setup: SweepSetup; baseline: number }>({ kind: 'sweepSetup', site, plan }, undefined, signal);
+      const { setup, baseline } = await this.pool.run<{ setup: SweepSetup; baseline: number }>({ kind: 'sweepSetup', site, plan }, { signal, priority: 'batch' });
       const done = new Array<number>(chunks.length).fill(0);
+      const onCells = (k: number) => (fraction: number) => {
+        done[k] = fraction * chunks[k].length;
+        const total = done.reduce((s, v) => s + v, 0);
+        report(total / cells.length, `${Math.round(total)} of ${cells.length} runs`);
+      };
       const parts = await Promise.all(chunks.map((chunk, k) => this.pool.run<number[]>(
-        { kind: 'sweepCells', setup, cells: chunk },
-        (fraction) => {
-          done[k] = fraction * chunk.length;
-          const total = done.reduce((s, v) => s + v, 0);
-          report(total / cells.length, `${Math.round(total)} of ${cells.length} runs`);
-        },
-        signal,
+        { kind: 'sweepCells', setup, cells: chunk }, { onProgress: onCells(k), signal, priority: 'batch' },
       )));
       return assembleSweep(plan, baseline, parts.flat());
     });
   }
 
-  async startCalibration(scope: TenantScope, user: UserRow, catchmentId: number, body: unknown): Promise<LabJob> {
-    const request = parseWith(calibrateRequestSchema, body);
+  async startCalibration(scope: TenantScope, user: UserRow, catchmentId: number, request: CalibrationJobRequest): Promise<LabJob> {
     const start = await this.calibratedParameters(scope, catchmentId);
     const periods = [request.period, ...(request.validationPeriod ? [request.validationPeriod] : [])];
     const span = { from: periods.reduce((a, p) => (p.from < a ? p.from : a), request.period.from), to: periods.reduce((a, p) => (p.to > a ? p.to : a), request.period.to) };
@@ -130,10 +137,10 @@ export class LabService {
     const task: LabTask = request.target === 'stakes'
       ? { kind: 'calibrateStakes', ...common, observed: await this.data.observedStakes(scope, catchmentId) }
       : { kind: 'calibrate', ...common, observed: await this.data.observedDischarge(scope, catchmentId, span) };
+    const onProgress = (report: (fraction: number, message: string) => void) => (fraction: number) =>
+      report(fraction, `${Math.round(fraction * request.maxEvaluations)} of at most ${request.maxEvaluations} model runs`);
     return this.jobs.start(scope, user, catchmentId, 'calibration', request, (signal, report) => this.pool.run(
-      task,
-      (fraction) => report(fraction, `${Math.round(fraction * request.maxEvaluations)} of at most ${request.maxEvaluations} model runs`),
-      signal,
+      task, { onProgress: onProgress(report), signal, priority: 'batch' },
     ));
   }
 

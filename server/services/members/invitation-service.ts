@@ -1,7 +1,7 @@
 import type { Knex } from 'knex';
 import type { AcceptInvitation, InvitationPreview, InvitationRequest, Member } from '../../../shared/schemas/members';
 import { AppError, conflict } from '../../errors';
-import type { AuthService, UserRow } from '../auth-service';
+import type { AuthService, UserRow } from '../auth/auth-service';
 import { assertFreeSeats, lockOrganisation, takesSeat } from '../billing/seats';
 import { hashMailToken, newMailToken } from '../mail/mail-tokens';
 import type { MailService } from '../mail/mail-service';

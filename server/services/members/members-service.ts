@@ -1,8 +1,9 @@
+import { allows } from '../../../shared/access/capabilities';
 import type { Knex } from 'knex';
 import type { Role } from '../../../shared/schemas/auth';
 import type { Member, MembersReply } from '../../../shared/schemas/members';
 import { forbidden } from '../../errors';
-import type { UserRow } from '../auth-service';
+import type { UserRow } from '../auth/auth-service';
 import { assertFreeSeats, lockOrganisation, seatUsage, takesSeat } from '../billing/seats';
 import type { TenantScope } from '../tenant-scope';
 
@@ -60,11 +61,11 @@ export class MembersService {
 
 /**
  * Inside the organisation lock: the acting admin may have been demoted or removed by another
- * admin a moment ago, after this request was authorised.
+ * admin a moment ago, after this request was authorised; the same capability is asked again.
  */
 async function assertStillAdmin(scope: TenantScope, actorId: number): Promise<void> {
   const actor = await scope.from<UserRow>('users').where({ id: actorId }).first('role', 'status');
-  if (!actor || actor.role !== 'admin' || actor.status !== 'active') throw forbidden('You are no longer an admin of this organisation.');
+  if (!actor || !allows(actor.role, 'manageMembers') || actor.status !== 'active') throw forbidden('You are no longer an admin of this organisation.');
 }
 
 /** Inside the organisation lock: an organisation always keeps at least one active admin. */

@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
 import type { ResetComplete } from '../../../shared/schemas/members';
-import type { AuthService, UserRow } from '../auth-service';
+import type { AuthService, UserRow } from '../auth/auth-service';
 import { hashMailToken, newMailToken } from '../mail/mail-tokens';
 import type { MailService } from '../mail/mail-service';
 import { passwordResetMail } from '../mail/mail-texts';

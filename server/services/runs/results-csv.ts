@@ -2,9 +2,10 @@ import type { RunResults } from '../../../shared/schemas/results';
 import type { SimulationSummary } from '../../../shared/analysis/simulation-summary';
 import { addDays } from '../../../shared/melt/calendar';
 import { csvLine } from '../../../shared/csv/csv-writing';
+import { roundSignificant } from '../../../shared/text/numbers';
 
 /** Numbers to 8 significant digits: enough for the model, readable in a spreadsheet. */
-const line = (values: (string | number | null)[]) => csvLine(values.map((v) => (typeof v === 'number' && !Number.isInteger(v) ? Number(v.toPrecision(8)) : v)));
+const line = (values: (string | number | null)[]) => csvLine(values.map((v) => (typeof v === 'number' && !Number.isInteger(v) ? roundSignificant(v, 8) : v)));
 
 /** The header block every export starts with: what was run, on what, with which engine, and the cautions. */
 export function headerBlock(results: RunResults, what: string): string[] {

@@ -2,7 +2,8 @@ import { attributionDrivers } from '../../../shared/analysis/run-plan';
 import { runResults } from '../../../shared/analysis/run-results';
 import type { RunResults } from '../../../shared/schemas/results';
 import { conflict } from '../../errors';
-import { readChanges } from '../scenario-service';
+import { csvFile, type DownloadFile } from '../download-file';
+import { readChanges } from './scenario-service';
 import type { TenantScope } from '../tenant-scope';
 import { bandMonthCsv, dailyCsv } from './results-csv';
 import { loadMembers, type StoredMember } from './run-store';
@@ -16,15 +17,15 @@ export class ResultsService {
     return (await this.load(scope, catchmentId, runId)).results;
   }
 
-  async bandMonthCsv(scope: TenantScope, catchmentId: number, runId: number): Promise<string> {
+  async bandMonthCsv(scope: TenantScope, catchmentId: number, runId: number): Promise<DownloadFile> {
     const { results, members } = await this.load(scope, catchmentId, runId);
     const variant = members.find((m) => m.kind === 'scenario')!.summary;
     const baseline = members.find((m) => m.kind === 'baseline')?.summary ?? variant;
-    return bandMonthCsv(results, baseline, variant);
+    return csvFile(`run-${runId}-bands-by-month.csv`, bandMonthCsv(results, baseline, variant));
   }
 
-  async dailyCsv(scope: TenantScope, catchmentId: number, runId: number): Promise<string> {
-    return dailyCsv(await this.results(scope, catchmentId, runId));
+  async dailyCsv(scope: TenantScope, catchmentId: number, runId: number): Promise<DownloadFile> {
+    return csvFile(`run-${runId}-daily.csv`, dailyCsv(await this.results(scope, catchmentId, runId)));
   }
 
   private async load(scope: TenantScope, catchmentId: number, runId: number): Promise<{ results: RunResults; members: StoredMember[] }> {

@@ -4,7 +4,7 @@ import type { MemberPlan } from '../../../shared/analysis/run-plan';
 import type { MemberInput } from '../../../shared/analysis/simulate-summary';
 import type { SimulationSummary } from '../../../shared/analysis/simulation-summary';
 import { TenantScope } from '../tenant-scope';
-import type { SimulationPool } from './simulation-pool';
+import type { Simulator } from './simulator';
 import { storeMembers } from './run-store';
 
 /** A queued run with every member's complete engine input, held in memory until it finishes. */
@@ -24,7 +24,7 @@ function failureMessage(error: unknown): string {
 }
 
 /**
- * Runs jobs in order, a few at a time, each job's simulations spread over the worker pool.
+ * Runs jobs in order, a few at a time, each job's simulations handed to the simulator (the worker pool).
  * Lifecycle of a run row: queued → running → done | failed | cancelled.
  */
 export class RunExecutor {
@@ -34,7 +34,7 @@ export class RunExecutor {
 
   constructor(
     private readonly db: Knex,
-    private readonly pool: SimulationPool,
+    private readonly simulator: Simulator,
     private readonly maxConcurrentRuns = 2,
   ) {}
 
@@ -119,10 +119,10 @@ export class RunExecutor {
     const lane = async () => {
       while (next < job.members.length && !signal.aborted) {
         const i = next++;
-        summaries[i] = await this.pool.simulate(job.members[i].input, (f) => onProgress(i, f), signal);
+        summaries[i] = await this.simulator.simulate(job.members[i].input, (f) => onProgress(i, f), signal);
       }
     };
-    await Promise.all(Array.from({ length: Math.min(job.members.length, this.pool.threads * 2) }, lane));
+    await Promise.all(Array.from({ length: Math.min(job.members.length, this.simulator.threads * 2) }, lane));
     return summaries;
   }
 

@@ -1,10 +1,10 @@
-import type { z } from 'zod';
 import { planRun, RunPlanError } from '../../../shared/analysis/run-plan';
+import { simulationSettings } from '../../../shared/analysis/variant-settings';
 import { ENGINE_VERSION } from '../../../shared/melt/version';
 import { parseSimulationInput, SimulationInputError } from '../../../shared/melt/prepare';
-import type { Run, startRunSchema } from '../../../shared/schemas/runs';
+import type { Run, StartRunRequest } from '../../../shared/schemas/runs';
 import { conflict, notFound, validationFailed } from '../../errors';
-import type { ScenarioService } from '../scenario-service';
+import type { ScenarioService } from './scenario-service';
 import type { TenantScope } from '../tenant-scope';
 import type { CatchmentInputs, CatchmentInputSource } from './catchment-inputs';
 import { inputHash } from './input-hash';
@@ -71,12 +71,12 @@ export class RunService {
    * Validates everything a run needs, then queues it — or returns the finished (or still running)
    * run with identical inputs instead of computing it again.
    */
-  async start(scope: TenantScope, catchmentId: number, request: z.output<typeof startRunSchema>, userId: number): Promise<{ run: Run; reused: boolean }> {
+  async start(scope: TenantScope, catchmentId: number, request: StartRunRequest, userId: number): Promise<{ run: Run; reused: boolean }> {
+    await scope.findOr404('catchments', catchmentId, 'Catchment');
     const scenario = await this.scenarios.get(scope, catchmentId, request.scenarioId);
     if (scenario.archived) throw validationFailed('This scenario is archived; restore it before running it.', 'scenarioId');
-    const baseline = scenario.isBaseline ? null : await this.scenarios.ensureBaseline(scope, catchmentId);
-    // The variant's period, else the baseline's (as planRun decides).
-    const period = scenario.changes.period ?? baseline?.changes.period ?? null;
+    const baseline = scenario.isBaseline ? null : await this.scenarios.baseline(scope, catchmentId);
+    const { period } = simulationSettings(scenario.changes, baseline?.changes ?? null);
     const stored = await this.inputs(scope, catchmentId, period);
     const bandElevations = stored.catchment.bands.map((b) => (b.lowerM + b.upperM) / 2);
     let plan;
@@ -96,7 +96,8 @@ export class RunService {
     }
     // Every member is the stored inputs plus its own changes: hash the stored part once.
     const hash = inputHash({ engineVersion: ENGINE_VERSION, drivers: plan.drivers, stored, members: plan.members.map((m) => [m.key, m.input]) });
-    const same = await scope.from<RunRow>('runs').where({ input_hash: hash }).whereIn('status', ['queued', 'running', 'done']).orderBy('id', 'desc').first();
+    // Within the catchment: a run is read back (and listed) under the catchment it was started for.
+    const same = await scope.from<RunRow>('runs').where({ catchment_id: catchmentId, input_hash: hash }).whereIn('status', ['queued', 'running', 'done']).orderBy('id', 'desc').first();
     if (same) return { run: toRun(same), reused: true };
 
     const id = await scope.insert('runs', {

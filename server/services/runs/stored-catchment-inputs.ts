@@ -1,6 +1,6 @@
 import { validationFailed } from '../../errors';
-import type { BandService } from '../band-service';
-import { buildSimulationInputs, requireReadyInputs } from '../simulation-inputs';
+import type { BandService } from '../catchments/band-service';
+import { buildSimulationInputs, requireReadyInputs } from '../catchments/simulation-inputs';
 import type { CatchmentInputSource } from './catchment-inputs';
 
 /** Engine inputs from the catchment's stored bands and climate datasets; refuses missing data and unbridgeable gaps by name. */

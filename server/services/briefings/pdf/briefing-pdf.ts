@@ -1,6 +1,7 @@
 import PDFDocument from 'pdfkit';
 import type { BriefingSnapshot, Headline } from '../../../../shared/schemas/briefings';
-import { TIMING_NOTE, formatNumber, formatRanged, scaleRanged } from '../../../../shared/briefings/format';
+import { TIMING_NOTE, formatRanged, scaleRanged } from '../../../../shared/briefings/format';
+import { formatNumber } from '../../../../shared/text/numbers';
 import { CAUTIONS_HEADING } from '../../../../shared/text/cautions';
 import { chartSvg } from './chart-svg';
 import { FONTS } from './fonts';

@@ -1,7 +1,7 @@
 import * as echarts from 'echarts';
 import PDFDocument from 'pdfkit';
 import type { ChartData } from '../../../../shared/schemas/briefings';
-import { briefingChartOption } from '../../../../shared/briefings/chart-option';
+import { briefingChartOption } from '../../../../shared/charts/briefing-chart';
 import { CHART_FONT_FAMILY, FONTS } from './fonts';
 
 /**

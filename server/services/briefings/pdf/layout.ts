@@ -1,7 +1,7 @@
 import type PDFDocument from 'pdfkit';
 import SVGtoPDF from 'svg-to-pdfkit';
 import type { TableData } from '../../../../shared/schemas/briefings';
-import { formatNumber } from '../../../../shared/briefings/format';
+import { formatNumber } from '../../../../shared/text/numbers';
 import { CHART_FONT_FAMILY, FONTS } from './fonts';
 
 type Doc = InstanceType<typeof PDFDocument>;

@@ -1,0 +1,32 @@
+import type { InvitationService } from '../members/invitation-service';
+import type { ResultsService } from '../runs/results-service';
+import type { ThreadBudget } from '../thread-budget';
+import { BriefingExports } from './briefing-exports';
+import { BriefingService } from './briefing-service';
+import { BriefingSharing } from './briefing-sharing';
+import type { BriefingResultsSource } from './comparison';
+import { PdfPool } from './pdf/pdf-pool';
+import { RunsResultsSource } from './runs-results-source';
+
+export interface BriefingServices {
+  briefings: BriefingService;
+  briefingSharing: BriefingSharing;
+  briefingExports: BriefingExports;
+  /** The worker thread that lays out PDFs, on the shared thread budget. */
+  pdfPool: PdfPool;
+}
+
+export interface BriefingServicesDeps {
+  results: ResultsService;
+  invitations: InvitationService;
+  threads: ThreadBudget;
+  /** Where briefing numbers come from; finished runs unless given. */
+  briefingResults?: BriefingResultsSource;
+}
+
+/** Briefings, their sharing and comments, and their PDF and CSV exports. */
+export function createBriefingServices(deps: BriefingServicesDeps): BriefingServices {
+  const briefings = new BriefingService(deps.briefingResults ?? new RunsResultsSource(deps.results));
+  const pdfPool = new PdfPool(deps.threads);
+  return { briefings, briefingSharing: new BriefingSharing(deps.invitations), briefingExports: new BriefingExports(briefings, pdfPool), pdfPool };
+}

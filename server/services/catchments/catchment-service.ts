@@ -1,0 +1,141 @@
+import type { Knex } from 'knex';
+import type { Catchment, CatchmentFields, catchmentListQuerySchema } from '../../../shared/schemas/catchments';
+import type { z } from 'zod';
+import { conflict } from '../../errors';
+import type { TenantScope } from '../tenant-scope';
+import { insertBaseline } from './baseline-scenario';
+
+export interface CatchmentRow {
+  id: number;
+  organisation_id: number;
+  name: string;
+  description: string;
+  latitude_deg: number;
+  longitude_deg: number;
+  time_zone: string;
+  station_name: string;
+  station_elevation_m: number;
+  outlet_description: string;
+  archived_at: Date | null;
+  created_at: Date;
+  updated_at: Date;
+  band_count?: number;
+  dataset_count?: number;
+}
+
+const SORT_COLUMNS = { name: 'name', stationElevationM: 'station_elevation_m', updatedAt: 'updated_at', createdAt: 'created_at' } as const;
+
+function toColumns(fields: CatchmentFields) {
+  return {
+    name: fields.name,
+    description: fields.description,
+    latitude_deg: fields.latitudeDeg,
+    longitude_deg: fields.longitudeDeg,
+    time_zone: fields.timeZone,
+    station_name: fields.stationName,
+    station_elevation_m: fields.stationElevationM,
+    outlet_description: fields.outletDescription,
+  };
+}
+
+export function toCatchment(row: CatchmentRow): Catchment {
+  return {
+    id: row.id,
+    name: row.name,
+    description: row.description,
+    latitudeDeg: row.latitude_deg,
+    longitudeDeg: row.longitude_deg,
+    timeZone: row.time_zone,
+    stationName: row.station_name,
+    stationElevationM: row.station_elevation_m,
+    outletDescription: row.outlet_description,
+    archived: row.archived_at !== null,
+    bandCount: Number(row.band_count ?? 0),
+    datasetCount: Number(row.dataset_count ?? 0),
+    createdAt: new Date(row.created_at).toISOString(),
+    updatedAt: new Date(row.updated_at).toISOString(),
+  };
+}
+
+/** Catchments of one organisation: list, read, create, edit, archive or delete. */
+export class CatchmentService {
+  /** The row with its band and dataset counts, or 404. */
+  async get(scope: TenantScope, id: number): Promise<Catchment> {
+    await scope.findOr404('catchments', id, 'Catchment');
+    const row = await withCounts(scope.from<CatchmentRow>('catchments'), scope.db).where('catchments.id', id).first();
+    return toCatchment(row as CatchmentRow);
+  }
+
+  async list(scope: TenantScope, query: z.output<typeof catchmentListQuerySchema>) {
+    const base = scope.from('catchments').where((q) => {
+      if (query.archived) q.whereNotNull('catchments.archived_at');
+      else q.whereNull('catchments.archived_at');
+    });
+    if (query.search) {
+      const like = `%${query.search.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+      base.where((q) => {
+        q.where('catchments.name', 'like', like).orWhere('catchments.station_name', 'like', like).orWhere('catchments.description', 'like', like);
+      });
+    }
+    const [{ total }] = await base.clone().count({ total: '*' });
+    const rows = await withCounts(base, scope.db)
+      .orderBy(`catchments.${SORT_COLUMNS[query.sort]}`, query.descending ? 'desc' : 'asc')
+      .orderBy('catchments.id')
+      .limit(query.perPage)
+      .offset((query.page - 1) * query.perPage);
+    return { catchments: (rows as CatchmentRow[]).map(toCatchment), total: Number(total), page: query.page, perPage: query.perPage };
+  }
+
+  /** A new catchment with its baseline scenario, in one transaction. */
+  async create(scope: TenantScope, fields: CatchmentFields, userId: number): Promise<Catchment> {
+    await this.assertNameFree(scope, fields.name);
+    const id = await scope.transaction(async (s) => {
+      const catchmentId = await s.insert('catchments', { ...toColumns(fields), created_by: userId });
+      await insertBaseline(s, catchmentId, userId);
+      return catchmentId;
+    });
+    return this.get(scope, id);
+  }
+
+  async update(scope: TenantScope, id: number, fields: CatchmentFields): Promise<Catchment> {
+    await scope.findOr404('catchments', id, 'Catchment');
+    await this.assertNameFree(scope, fields.name, id);
+    await scope.from('catchments').where('id', id).update({ ...toColumns(fields), updated_at: scope.db.fn.now() });
+    return this.get(scope, id);
+  }
+
+  /** Archives (keeps) a catchment that runs refer to; deletes it with its bands and data otherwise. */
+  async remove(scope: TenantScope, id: number): Promise<'archived' | 'deleted'> {
+    await scope.findOr404('catchments', id, 'Catchment');
+    if (await hasRuns(scope, id)) {
+      await scope.from('catchments').where('id', id).update({ archived_at: scope.db.fn.now() });
+      return 'archived';
+    }
+    await scope.from('catchments').where('id', id).delete();
+    return 'deleted';
+  }
+
+  async setArchived(scope: TenantScope, id: number, archived: boolean): Promise<Catchment> {
+    await scope.findOr404('catchments', id, 'Catchment');
+    await scope.from('catchments').where('id', id).update({ archived_at: archived ? scope.db.fn.now() : null });
+    return this.get(scope, id);
+  }
+
+  private async assertNameFree(scope: TenantScope, name: string, exceptId?: number): Promise<void> {
+    const clash = await scope.from('catchments').where('name', name).whereNot('id', exceptId ?? 0).first('id');
+    if (clash) throw conflict('A catchment with this name already exists.', 'name');
+  }
+}
+
+function withCounts(query: Knex.QueryBuilder, db: Knex | Knex.Transaction): Knex.QueryBuilder {
+  return query.select(
+    'catchments.*',
+    db('elevation_bands').count('*').whereRaw('elevation_bands.catchment_id = catchments.id').as('band_count'),
+    db('datasets').count('*').whereRaw('datasets.catchment_id = catchments.id').as('dataset_count'),
+  );
+}
+
+async function hasRuns(scope: TenantScope, catchmentId: number): Promise<boolean> {
+  const row = await scope.from('runs').where('catchment_id', catchmentId).first('id');
+  return row !== undefined;
+}

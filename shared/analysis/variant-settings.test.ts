@@ -1,0 +1,27 @@
+import { describe, expect, it } from 'vitest';
+import { simulationSettings } from './variant-settings';
+
+const season = { from: '2022-04-01', to: '2022-09-30' };
+
+describe('a variant inherits what it does not set from its baseline', () => {
+  it('takes the baseline period when it has none', () => {
+    expect(simulationSettings({ period: null, parameters: {} }, { period: season, parameters: {} }).period).toEqual(season);
+  });
+
+  it('keeps its own period over the baseline one', () => {
+    const own = { from: '2023-05-01', to: '2023-08-31' };
+    expect(simulationSettings({ period: own, parameters: {} }, { period: season, parameters: {} }).period).toEqual(own);
+  });
+
+  it('merges parameters, its own winning', () => {
+    const settings = simulationSettings(
+      { period: null, parameters: { lapseRateCPerKm: -5.5 } },
+      { period: null, parameters: { lapseRateCPerKm: -6.5, rainSnowThresholdC: 1 } },
+    );
+    expect(settings.parameters).toEqual({ lapseRateCPerKm: -5.5, rainSnowThresholdC: 1 });
+  });
+
+  it('is its own settings for the baseline (no baseline to inherit from)', () => {
+    expect(simulationSettings({ period: null, parameters: { rainSnowThresholdC: 1 } }, null)).toEqual({ period: null, parameters: { rainSnowThresholdC: 1 } });
+  });
+});

@@ -1,0 +1,33 @@
+import type { ChartData } from '../schemas/briefings';
+import { SERIES_COLOURS, seriesColour } from './palette';
+
+/**
+ * The ECharts option for a frozen briefing chart. Plain data, no DOM: the browser draws it with
+ * vue-echarts and the server renders it to SVG for the PDF, so both show the same picture.
+ * Ensemble ranges (low/high) are drawn as thin dashed lines beside their series.
+ */
+export function briefingChartOption(chart: ChartData, options: { animation?: boolean } = {}): Record<string, unknown> {
+  const series: Record<string, unknown>[] = [];
+  chart.series.forEach((s, i) => {
+    const color = seriesColour(i);
+    series.push({ name: s.name, type: chart.type, data: s.values, itemStyle: { color }, lineStyle: { color, width: 1.5 }, showSymbol: false });
+    for (const [edge, values] of [['5 %', s.low], ['95 %', s.high]] as const) {
+      if (!values) continue;
+      series.push({
+        name: `${s.name} (${edge})`, type: 'line', data: values, showSymbol: false,
+        lineStyle: { color, width: 1, type: 'dashed' }, itemStyle: { color },
+      });
+    }
+  });
+  return {
+    // Left out unless asked for, so the page's own setting (none in browser tests) applies.
+    ...(options.animation === undefined ? {} : { animation: options.animation }),
+    color: [...SERIES_COLOURS],
+    grid: { left: 64, right: 16, top: 40, bottom: 48 },
+    legend: { top: 4, type: 'scroll' },
+    tooltip: { trigger: 'axis' },
+    xAxis: { type: 'category', name: chart.xName, nameLocation: 'middle', nameGap: 30, data: chart.categories },
+    yAxis: { type: 'value', name: chart.unit ? `${chart.yName} (${chart.unit})` : chart.yName, nameLocation: 'middle', nameGap: 48 },
+    series,
+  };
+}

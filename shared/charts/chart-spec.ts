@@ -1,0 +1,33 @@
+import type { RunResults } from '../schemas/results';
+import { roundSignificant } from '../text/numbers';
+
+/** The numbers of a chart as a table: its table view and CSV download. */
+export interface ChartTable {
+  columns: { name: string; label: string }[];
+  rows: Record<string, string | number | null>[];
+}
+
+/** An ECharts option (plain data, no DOM) and the same numbers as a table. */
+export interface ChartSpec {
+  option: Record<string, unknown>;
+  table: ChartTable;
+}
+
+/** One run on the results screen, with the name it is shown under. */
+export interface ResultItem {
+  label: string;
+  results: RunResults;
+}
+
+/** Axis settings with the name (and unit) of the axis always shown. */
+export const axis = (name: string, type: 'category' | 'value', data?: string[]) => ({
+  type, name, nameLocation: 'middle', nameGap: type === 'value' ? 60 : 30, ...(data ? { data } : {}),
+});
+
+export const GRID = { left: 80, right: 24, top: 56, bottom: 70 };
+export const TOOLTIP = { trigger: 'axis' };
+export const LEGEND = { top: 0, type: 'scroll' };
+export const ZOOM = [{ type: 'inside' }, { type: 'slider', height: 16, bottom: 8 }];
+
+/** What a chart keeps of long model output: six significant digits (null stays a gap). */
+export const chartNumber = (value: number | null): number | null => (value === null ? null : roundSignificant(value, 6));

@@ -1,0 +1,24 @@
+/**
+ * Rounding and number formatting, one meaning each, for every screen, chart, export and PDF.
+ */
+
+/** `value` to `decimals` places (half away from zero for positive halves, as Math.round). */
+export function roundTo(value: number, decimals: number): number {
+  const scale = 10 ** decimals;
+  return Math.round(value * scale) / scale;
+}
+
+/** `value` to `digits` significant digits: what charts and tables keep of long model output. */
+export function roundSignificant(value: number, digits: number): number {
+  return Number(value.toPrecision(digits));
+}
+
+/**
+ * A number for reading: thousands grouped, at most `digits` decimals (exactly `digits` when
+ * `fixed`), a real minus sign; '–' for a missing value. British English, like every text we write.
+ */
+export function formatNumber(value: number | null | undefined, digits = 2, options: { fixed?: boolean } = {}): string {
+  if (value === null || value === undefined || !Number.isFinite(value)) return '–';
+  const text = value.toLocaleString('en-GB', { maximumFractionDigits: digits, minimumFractionDigits: options.fixed ? digits : 0 });
+  return text.replace(/^-/, '−');
+}
