@@ -3,7 +3,7 @@
  * KGE over the 2023 melt season, lapse rate and precipitation factor, from the engine defaults)
  * and prints the module seeds/data/demo-calibration.ts, which the demo seed saves as the
  * catchment's calibration. Run after a deliberate model change:
- *   npx tsx scripts/demo-calibration.ts > seeds/data/demo-calibration.ts
+ *   npm run demo:calibration
  */
 import { calibrateDemo } from '../seeds/data/demo-calibrate';
 

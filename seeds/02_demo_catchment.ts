@@ -37,7 +37,7 @@ export async function seed(knex: Knex): Promise<void> {
     const columns = {
       organisation_id: organisationId, name: c.name, description: c.description, latitude_deg: c.latitudeDeg, longitude_deg: c.longitudeDeg,
       time_zone: c.timeZone, station_name: c.stationName, station_elevation_m: c.stationElevationM, outlet_description: c.outletDescription,
-      archived_at: null,
+      background_black_carbon_ng_g: c.backgroundBlackCarbonNgG, background_dust_ug_g: c.backgroundDustUgG, archived_at: null,
     };
     const existing = await trx('catchments').where({ organisation_id: organisationId, name: c.name }).first('id');
     const catchmentId: number = existing ? existing.id : (await trx('catchments').insert({ ...columns, created_by: user?.id ?? null }))[0];

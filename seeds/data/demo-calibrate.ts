@@ -1,6 +1,6 @@
-import { calibrate, evaluateDischarge } from '../../shared/lab/calibrate';
-import { behaviouralRanges, type ParameterRange } from '../../shared/lab/behavioural-ranges';
-import { DEFAULT_CALIBRATION_SET, siteWith, type CalibrationKey, type CalibrationSet } from '../../shared/lab/calibration-set';
+import { calibrate } from '../../shared/lab/calibrate';
+import type { ParameterRange } from '../../shared/lab/behavioural-ranges';
+import { DEFAULT_CALIBRATION_SET, type CalibrationKey, type CalibrationSet } from '../../shared/lab/calibration-set';
 import type { SkillScores } from '../../shared/lab/skill-scores';
 import { demoEngineInput } from './demo-forcing';
 import { demoObservations } from './demo-observations';
@@ -15,7 +15,5 @@ export function calibrateDemo(): { set: CalibrationSet; kge: number; scores: { d
   const o = demoObservations();
   const observed = o.dailyDischarge.times.map((t, i) => ({ date: t.slice(0, 10), value: o.dailyDischarge.values[i] }));
   const found = calibrate(site, observed, { keys: DEMO_CALIBRATION_KEYS, period: DEMO_CALIBRATION_SEASON, start: DEFAULT_CALIBRATION_SET, maxEvaluations: 80, seed: 1 });
-  const score = (set: CalibrationSet) => evaluateDischarge(siteWith(site, set), observed, DEMO_CALIBRATION_SEASON).daily.kge;
-  const { ranges } = behaviouralRanges(score, found.set, DEMO_CALIBRATION_KEYS, found.scores.daily.kge);
-  return { set: found.set, kge: found.scores.daily.kge, scores: { daily: found.scores.daily, monthly: found.scores.monthly }, ranges };
+  return { set: found.set, kge: found.scores.daily.kge, scores: { daily: found.scores.daily, monthly: found.scores.monthly }, ranges: found.ranges };
 }

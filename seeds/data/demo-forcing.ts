@@ -1,7 +1,6 @@
 import { fillShortGaps } from '../../shared/melt/fill-gaps';
 import type { SimulationInput } from '../../shared/melt/schema';
 import { DEMO_BANDS, DEMO_CATCHMENT } from './demo-catchment';
-import { DEMO_BACKGROUND } from './demo-truth';
 import { syntheticStation, type SyntheticStation } from './synthetic-station';
 
 /** Three hydrological years (October to September) of synthetic station data. */
@@ -32,7 +31,7 @@ export function demoEngineInput(): Pick<SimulationInput, 'catchment' | 'forcing'
   return {
     catchment: {
       latitudeDeg: c.latitudeDeg, longitudeDeg: c.longitudeDeg, timeZone: c.timeZone, stationElevationM: c.stationElevationM,
-      bands: DEMO_BANDS, background: DEMO_BACKGROUND,
+      bands: DEMO_BANDS, background: { blackCarbonSnowNgG: c.backgroundBlackCarbonNgG, dustSnowUgG: c.backgroundDustUgG },
     },
     forcing: {
       timeStep: 'hourly', start: DEMO_RECORD.start, temperatureC: fillShortGaps(grid, 6) as number[],

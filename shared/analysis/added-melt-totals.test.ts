@@ -35,7 +35,7 @@ describe('added melt totals', () => {
     expect(totals.addedDepthMm).toBeCloseTo((totals.addedVolumeM3 / areaM2) * 1000, 9);
     expect(totals.addedVolumeMillionM3).toBeCloseTo(totals.addedVolumeM3 / 1e6, 12);
     const baseRunoff = dailyRunoffM3(baseline).reduce((a, b) => a + b, 0);
-    expect(totals.shareOfSeasonalRunoff).toBeCloseTo(totals.addedVolumeM3 / baseRunoff, 12);
+    expect(totals.addedShareOfBaselineRunoff).toBeCloseTo(totals.addedVolumeM3 / baseRunoff, 12);
     // The season holds 90 % of the melt, so its mean cannot be below volume / (all days) by much; it must be positive.
     expect(totals.meanAddedDischargeM3s).toBeGreaterThan(0);
   });

@@ -185,7 +185,6 @@ export function bandDay(c: LoopContext, b: number, d: number, month: number): vo
   const run = c.run;
   const g = run.geometry;
   const p = run.params;
-  const s = run.state;
   const f = run.forcing;
   const sun = c.sun;
   const sw = c.shortwave;

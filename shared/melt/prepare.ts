@@ -80,7 +80,10 @@ export function prepareRun(raw: unknown): PreparedRun {
   const state = start.method === 'state'
     ? stateFromJson(start.state)
     : initialState(start.method === 'initial-swe' ? start.sweMm : new Float64Array(bandCount), params.freshGrainRadiusUm, tables.freshBlackCarbonNgG[firstMonth], tables.freshDustUgG[firstMonth]);
-  if (state.sweMm.length !== bandCount) throw new SimulationInputError([{ path: 'start.state', message: `has ${state.sweMm.length} bands; ${bandCount} expected` }]);
+  if (state.sweMm.length !== bandCount) {
+    const path = start.method === 'state' ? 'start.state' : 'start.sweMm';
+    throw new SimulationInputError([{ path, message: `has ${state.sweMm.length} bands; one per band (${bandCount}) expected` }]);
+  }
   return {
     input, params, timeline, segments, startReport: plan.report,
     recordFirstDay: daysBetween(timeline.startDate, period.from), recordDays: daysBetween(period.from, period.to) + 1, recordStartDate: period.from,

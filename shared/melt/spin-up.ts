@@ -26,7 +26,7 @@ export interface RunPlanOfDays {
   report: StartReport;
 }
 
-const DAYS_PER_YEAR = 365;
+export const DAYS_PER_YEAR = 365;
 
 /**
  * The start of the hydrological year before a date (1 October in the northern hemisphere,

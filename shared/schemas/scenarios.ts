@@ -137,6 +137,8 @@ export const scenarioSetupSchema = z.object({
     savedBy: z.string(),
     savedAt: z.string(),
   }).nullable(),
+  /** The catchment's background loads in fresh snow, which a scenario's snow loads add to. */
+  background: z.object({ blackCarbonSnowNgG: z.number(), dustSnowUgG: z.number() }),
 });
 export type ScenarioSetup = z.infer<typeof scenarioSetupSchema>;
 
