@@ -62,7 +62,7 @@ export function calibrationStatus(parameters: ParameterOverrides, precipitationF
   if (!factors.every((f) => sameValue(f, saved.precipitationFactor))) {
     differing.push(`precipitation factor ${factors.map((f) => formatNumber(f, 3)).join(', ')} instead of ${formatNumber(saved.precipitationFactor, 3)}`);
   }
-  const against = `the calibration saved on ${day(saved.savedAt)} by ${saved.savedBy} (${saved.period.from} to ${saved.period.to}, KGE ${formatNumber(saved.kge, 2)})`;
+  const against = `the calibration saved on ${day(saved.savedAt)} by ${saved.savedBy} (${saved.period.from} to ${saved.period.to}, KGE ${formatNumber(saved.kge, 3)})`;
   if (differing.length) {
     return { status: 'differs', message: `The parameters differ from ${against}: ${differing.join('; ')}. Treat the added melt as indicative, or rerun with the calibrated parameters.` };
   }
@@ -81,7 +81,7 @@ export function skillText(skill: RunSetUp['skill']): string {
 export function setUpLines(setUp: RunSetUp): [string, string][] {
   return [
     ['Calibration', setUp.calibration.message],
-    ['Start', setUp.start ? `${setUp.start.label}. ${setUp.start.note}` : 'Not recorded (run made before engine 2.0).'],
+    ['Start', setUp.start ? setUp.start.note : 'Not recorded (run made before engine 2.0).'],
     ['Incoming shortwave', setUp.shortwaveSource ?? 'Not recorded.'],
     ['Baseline against observed discharge', skillText(setUp.skill)],
   ];

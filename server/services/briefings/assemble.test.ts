@@ -18,7 +18,7 @@ describe('assembleSnapshot', () => {
     expect(s.warnings).toHaveLength(2);
     expect(s.warnings[0]).toMatch(/^Black carbon 150 ng\/g: Not calibrated/);
     expect(s.assumptions.setUp.map((r) => r.lines.map((l) => l.label))[0]).toEqual(['Calibration', 'Start', 'Incoming shortwave', 'Baseline against observed discharge']);
-    expect(s.assumptions.setUp[0].lines[1].value).toMatch(/^Spun up through the record before the period/);
+    expect(s.assumptions.setUp[0].lines[1].value).toMatch(/^Spun up through the 365 days before the period/);
   });
 
   it('charts the added runoff per month; the months add up to the run\'s season total', () => {

@@ -123,6 +123,8 @@ export function briefingPdf(s: BriefingSnapshot): Promise<Buffer> {
     } else narrative(doc, section.markdown);
   }
   assumptions(doc, s);
+  // The cautions stay together on one page (about 30 pt a line of text).
+  ensureRoom(doc, 60 + 30 * s.cautions.length);
   heading(doc, CAUTIONS_HEADING);
   s.cautions.forEach((c) => paragraph(doc, `• ${c}`));
   pageNumbers(doc, `${s.title} · version ${s.version}`);
