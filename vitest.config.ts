@@ -19,7 +19,7 @@ export default defineConfig({
         resolve: { alias },
         test: {
           name: 'unit',
-          include: ['shared/**/*.test.ts', 'server/**/*.test.ts', 'stripe-fake/**/*.test.ts'],
+          include: ['shared/**/*.test.ts', 'server/**/*.test.ts', 'stripe-fake/**/*.test.ts', 'seeds/**/*.test.ts', 'scripts/**/*.test.ts'],
           environment: 'node',
         },
       },

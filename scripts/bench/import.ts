@@ -7,6 +7,7 @@
  */
 import { loadavg } from 'node:os';
 import { monitorEventLoopDelay } from 'node:perf_hooks';
+import { catchmentFormSchema } from '../../shared/schemas/catchments';
 import { datasetUploadFieldsSchema } from '../../shared/schemas/datasets';
 import { loadConfig } from '../../server/config';
 import { createContext } from '../../server/context';
@@ -36,9 +37,9 @@ async function main(): Promise<void> {
   try {
     const [userId] = await db('users').insert({ organisation_id: organisationId, email: `bench.${Date.now()}@bench.invalid`, name: 'Benchmark', role: 'consultant' });
     const scope = new TenantScope(db, organisationId);
-    const { id: catchmentId } = await ctx.catchments.create(scope, {
+    const { id: catchmentId } = await ctx.catchments.create(scope, catchmentFormSchema.parse({
       name: 'Benchmark basin', description: '', latitudeDeg: 33, longitudeDeg: 75, timeZone: 'Asia/Kolkata', stationName: 'Bench', stationElevationM: 3000, outletDescription: '',
-    }, userId);
+    }), userId);
     const { uploads } = ctx;
     const user = { id: userId, name: 'Benchmark' };
     const fields = datasetUploadFieldsSchema.parse({ variable: 'temperature', timeZone: 'Asia/Kolkata', source: 'Synthetic benchmark series' });

@@ -75,7 +75,7 @@ async function main(): Promise<void> {
       period: SEASON, axes: [{ variable: 'temperatureDeltaC', from: 0, to: 3, steps: 20 }, { variable: 'blackCarbonIceNgG', from: 0, to: 5000, steps: 20 }],
     });
     const calibration = await timeJob(`/lab/catchments/${catchmentId}/calibrations`, {
-      keys: ['lapseRateCPerKm', 'transmissivity', 'precipitationFactor'], period: SEASON, maxEvaluations: 120,
+      keys: ['lapseRateCPerKm', 'temperatureRangeRadiationCoefficient', 'precipitationFactor'], period: SEASON, maxEvaluations: 120,
     });
     measuring = false;
     await pinger;

@@ -1,5 +1,6 @@
 import type { CatchmentFields } from '../../shared/schemas/catchments';
 import type { BandRow } from '../../shared/schemas/catchment-bands';
+import { DEMO_BACKGROUND } from './demo-truth';
 
 /**
  * The demo catchment: an invented glacier basin in an invented valley. Every number is made up
@@ -16,6 +17,8 @@ export const DEMO_CATCHMENT: CatchmentFields = {
   stationName: 'Kolvi camp automatic station',
   stationElevationM: 3420,
   outletDescription: 'Staff gauge and pressure logger on the Sarvel stream, 1.2 km below the glacier snout (2610 m).',
+  backgroundBlackCarbonNgG: DEMO_BACKGROUND.blackCarbonSnowNgG,
+  backgroundDustUgG: DEMO_BACKGROUND.dustSnowUgG,
 };
 
 const LOWEST_M = 2600;

@@ -4,25 +4,23 @@ import { seededRandom } from '../../shared/analysis/random';
  * seasonal cycle plus seeded pseudo-random noise, so every run gives the same numbers.
  *
  * Temperature (hourly, °C, at the 3420 m station):
- *   T = −1.5 − 10.5·cos(2π(doy − 20)/365.25)          annual cycle, coldest around 20 January
+ *   T = 1.5 − 10.5·cos(2π(doy − 20)/365.25)           annual cycle, coldest around 20 January
  *       + A(doy)·cos(2π(hour − 15)/24)                 daily cycle peaking at 15:00, A = 3.5 °C in winter to 5 °C in summer
  *       + a(day)                                      day-to-day weather: AR(1), φ = 0.7, σ = 2.0 °C
  *       + e(hour)                                     hourly noise, σ = 0.4 °C
  * Precipitation (daily, mm): a wet day with probability
  *   p = 0.18 + 0.27·exp(−((doy − 205)/40)²) + 0.15·exp(−((doy − 60)/35)²)   (summer and late-winter seasons),
  *   wet-day amount exponential with mean 2.5 + 6·(p − 0.18)/0.27 mm.
- * Discharge (daily, m³/s): an invented linear reservoir (k = 0.9 per day) fed by 1.1·max(0, daily mean T + 1)
- *   + 0.12·P, plus 0.7 m³/s base flow and 5 % noise — for display, not a model result. A 12-day gauge outage
- *   in August of the second year shows as a gap, and one 5-hour logger gap is left in the temperature.
+ * One 5-hour logger gap is left in the temperature. The discharge and stake readings that go with
+ * this weather come from the engine itself (demo-observations.ts).
  */
 export interface SyntheticStation {
   hourlyTemperature: { times: string[]; values: number[] };
   dailyPrecipitation: { times: string[]; values: number[] };
-  dailyDischarge: { times: string[]; values: number[] };
 }
 
 /** Standard normal from two uniforms (Box–Muller). */
-function normal(random: () => number): number {
+export function normal(random: () => number): number {
   return Math.sqrt(-2 * Math.log(1 - random())) * Math.cos(2 * Math.PI * random());
 }
 
@@ -34,22 +32,18 @@ export function syntheticStation(options: { start: string; days: number; seed: n
   const out: SyntheticStation = {
     hourlyTemperature: { times: [], values: [] },
     dailyPrecipitation: { times: [], values: [] },
-    dailyDischarge: { times: [], values: [] },
   };
   let anomaly = 0;
-  let reservoir = 4;
   for (let d = 0; d < options.days; d++) {
     const dayMs = startMs + d * DAY_MS;
     const date = new Date(dayMs).toISOString().slice(0, 10);
     const doy = Math.floor((dayMs - Date.UTC(new Date(dayMs).getUTCFullYear(), 0, 1)) / DAY_MS) + 1;
-    const annual = -1.5 - 10.5 * Math.cos((2 * Math.PI * (doy - 20)) / 365.25);
+    const annual = 1.5 - 10.5 * Math.cos((2 * Math.PI * (doy - 20)) / 365.25);
     const summerness = (1 - Math.cos((2 * Math.PI * (doy - 20)) / 365.25)) / 2;
     const dailyAmplitude = 3.5 + 1.5 * summerness;
     anomaly = 0.7 * anomaly + 2.0 * Math.sqrt(1 - 0.49) * normal(random);
-    let daySum = 0;
     for (let h = 0; h < 24; h++) {
       const t = annual + dailyAmplitude * Math.cos((2 * Math.PI * (h - 15)) / 24) + anomaly + 0.4 * normal(random);
-      daySum += t;
       if (d === 400 && h >= 9 && h < 14) continue; // logger gap
       out.hourlyTemperature.times.push(`${date} ${String(h).padStart(2, '0')}:00`);
       out.hourlyTemperature.values.push(Math.round(t * 10) / 10);
@@ -60,11 +54,6 @@ export function syntheticStation(options: { start: string; days: number; seed: n
     const precipitation = Math.round(amount * 10) / 10;
     out.dailyPrecipitation.times.push(`${date} 00:00`);
     out.dailyPrecipitation.values.push(precipitation);
-    reservoir = 0.9 * reservoir + 0.1 * (1.1 * Math.max(0, daySum / 24 + 1) + 0.12 * precipitation);
-    const discharge = (0.7 + reservoir) * (1 + 0.05 * normal(random));
-    if (d >= 365 + 305 && d < 365 + 317) continue; // gauge outage, 12 days in August of the second year
-    out.dailyDischarge.times.push(`${date} 00:00`);
-    out.dailyDischarge.values.push(Math.round(Math.max(0.1, discharge) * 100) / 100);
   }
   return out;
 }

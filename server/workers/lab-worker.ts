@@ -26,6 +26,14 @@ export type LabTask =
     period: Period; validationPeriod?: Period; maxEvaluations: number; seed: number;
   };
 
+/** The search reports the first 70 % of a calibration's progress, the behavioural-range sampling after it the rest. */
+function searchProgress(report: (fraction: number) => void) {
+  return {
+    onProgress: (p: { evaluations: number; maxEvaluations: number }) => report(0.7 * Math.min(1, p.evaluations / p.maxEvaluations)),
+    onRangeProgress: (done: number, total: number) => report(0.7 + 0.3 * (done / total)),
+  };
+}
+
 function run(task: LabTask, report: (fraction: number) => void): unknown {
   switch (task.kind) {
     case 'surface':
@@ -47,10 +55,7 @@ function run(task: LabTask, report: (fraction: number) => void): unknown {
         return melt;
       });
     case 'calibrate': {
-      const options = {
-        keys: task.keys, period: task.period, start: task.start, maxEvaluations: task.maxEvaluations, seed: task.seed,
-        onProgress: (p: { evaluations: number; maxEvaluations: number }) => report(Math.min(1, p.evaluations / p.maxEvaluations)),
-      };
+      const options = { keys: task.keys, period: task.period, start: task.start, maxEvaluations: task.maxEvaluations, seed: task.seed, ...searchProgress(report) };
       if (!task.validationPeriod) return { target: 'discharge', ...calibrate(task.site, task.observed, options), validation: null };
       const outcome = splitSample(task.site, task.observed, { ...options, validationPeriod: task.validationPeriod });
       return {
@@ -61,8 +66,7 @@ function run(task: LabTask, report: (fraction: number) => void): unknown {
     }
     case 'calibrateStakes': {
       const outcome = calibrateToStakes(task.site, task.observed, {
-        keys: task.keys, period: task.period, start: task.start, maxEvaluations: task.maxEvaluations, seed: task.seed,
-        onProgress: (p) => report(Math.min(1, p.evaluations / p.maxEvaluations)),
+        keys: task.keys, period: task.period, start: task.start, maxEvaluations: task.maxEvaluations, seed: task.seed, ...searchProgress(report),
       });
       const held = task.validationPeriod ? readingsWithin(task.observed, task.validationPeriod) : [];
       const validation = task.validationPeriod && held.length > 0

@@ -9,8 +9,10 @@ export interface AddedMeltTotals {
   addedVolumeMillionM3: number;
   /** Mean added discharge over the melt season (see meltSeason), m³ s⁻¹. */
   meanAddedDischargeM3s: number;
-  /** Added runoff as a fraction of the baseline's runoff over the period. */
-  shareOfSeasonalRunoff: number;
+  /** Added runoff as a fraction of the baseline's runoff over the period ("added runoff, % of baseline"; can exceed 1). */
+  addedShareOfBaselineRunoff: number;
+  /** Added runoff as a fraction of the variant's own runoff over the period (below 1). */
+  addedShareOfVariantRunoff: number;
   /** Date by which half of the period's melt has run off; null without melt. */
   baselineHalfMeltDate: string | null;
   variantHalfMeltDate: string | null;
@@ -73,7 +75,8 @@ export function addedMeltTotals(baseline: SimulationSummary, variant: Simulation
     addedVolumeM3,
     addedVolumeMillionM3: addedVolumeM3 / 1e6,
     meanAddedDischargeM3s: from < 0 ? 0 : seasonAdded / ((to - from + 1) * 86400),
-    shareOfSeasonalRunoff: baseRunoff > 0 ? addedVolumeM3 / baseRunoff : 0,
+    addedShareOfBaselineRunoff: baseRunoff > 0 ? addedVolumeM3 / baseRunoff : 0,
+    addedShareOfVariantRunoff: sum(vari) > 0 ? addedVolumeM3 / sum(vari) : 0,
     baselineHalfMeltDate: date(baseHalf),
     variantHalfMeltDate: date(variHalf),
     timingShiftDays: baseHalf < 0 || variHalf < 0 ? null : variHalf - baseHalf,

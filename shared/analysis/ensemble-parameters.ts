@@ -5,12 +5,12 @@ import { seededRandom } from './random';
 
 /**
  * Parameters an ensemble varies: those that dominate the uncertainty of added melt — grain growth,
- * the impurity albedo effect, lapse rate, transmissivity, debris conductivity (docs/science.md,
+ * the impurity albedo effect and its enrichment in melting snow, lapse rate, radiation from the temperature range, debris conductivity (docs/science.md,
  * "Uncertainty").
  */
 export const ENSEMBLE_PARAMETERS = [
   'wetGrainGrowthMm3PerDay', 'dustToBlackCarbon', 'iceAlbedoBlackCarbonSlope', 'iceAlbedoDustSlope',
-  'lapseRateCPerKm', 'transmissivity', 'debrisConductivity',
+  'lapseRateCPerKm', 'temperatureRangeRadiationCoefficient', 'debrisConductivity', 'scavengingBlackCarbon',
 ] as const satisfies readonly ParameterName[];
 
 export const DEFAULT_ENSEMBLE_SIZE = 50;

@@ -4,15 +4,21 @@ import { planRun, RunPlanError } from './run-plan';
 
 const BANDS = [3100, 3500, 3900];
 const baseline = scenarioChangesSchema.parse({ parameters: { lapseRateCPerKm: -6 } });
-const variant = scenarioChangesSchema.parse({ blackCarbonSnowNgG: 400, dustIceUgG: 50, temperatureDeltaC: 1, parameters: { transmissivity: 0.8 } });
+const variant = scenarioChangesSchema.parse({ blackCarbonSnowNgG: 400, dustIceUgG: 50, temperatureDeltaC: 1, parameters: { turbidity: 0.8 } });
 
 describe('run plan', () => {
   it('pairs a variant with its baseline on the same parameters, the variant\'s over the baseline\'s', () => {
     const plan = planRun({ changes: variant, baselineChanges: baseline, attribution: false, ensembleSize: 0, ensembleSeed: 1 }, BANDS);
     expect(plan.members.map((m) => m.key)).toEqual(['scenario', 'baseline']);
-    expect(plan.members[0].input.parameters).toEqual({ lapseRateCPerKm: -6, transmissivity: 0.8 });
-    expect(plan.members[1].input.parameters).toEqual({ lapseRateCPerKm: -6, transmissivity: 0.8 });
+    expect(plan.members[0].input.parameters).toEqual({ lapseRateCPerKm: -6, turbidity: 0.8 });
+    expect(plan.members[1].input.parameters).toEqual({ lapseRateCPerKm: -6, turbidity: 0.8 });
     expect(plan.members[1].input.scenario.blackCarbonSnowNgG).toBe(0);
+  });
+
+  it('runs every member with the physics options the baseline chose unless the variant sets its own', () => {
+    const corrected = scenarioChangesSchema.parse({ ...baseline, stabilityCorrection: true });
+    const plan = planRun({ changes: variant, baselineChanges: corrected, attribution: true, ensembleSize: 2, ensembleSeed: 1 }, BANDS);
+    expect(plan.members.every((m) => m.input.physics?.stabilityCorrection === true)).toBe(true);
   });
 
   it('adds the 2^N − 2 mixed combinations for attribution', () => {

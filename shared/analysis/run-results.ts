@@ -1,5 +1,8 @@
-import { CAUTIONS } from '../text/cautions';
-import { RANGED_TOTALS, type RunResults } from '../schemas/results';
+import { CAUTIONS, ICE_DARKENING_CAUTION } from '../text/cautions';
+import { RANGED_TOTALS, type RunResults, type RunSetUp, type WaterBalance } from '../schemas/results';
+import { PARAMETER_SPECS } from '../melt/parameters';
+import { ENSEMBLE_PARAMETERS } from './ensemble-parameters';
+import { SHORTWAVE_SOURCE_LABELS, START_LABELS, type CalibrationStatus } from './run-set-up';
 import type { Run } from '../schemas/runs';
 import { addedMeltTotals } from './added-melt-totals';
 import type { Driver } from './drivers';
@@ -78,7 +81,33 @@ function attributionOf(members: ResultMember[], drivers: readonly Driver[], base
   return { terms, fullChangeM3: values[full] - values[0] };
 }
 
-function ensembleOf(members: ResultMember[]) {
+/** Catchment-mean water balance of one simulation over the period, mm w.e. */
+function waterBalanceOf(summary: SimulationSummary, areaM2: number): WaterBalance {
+  const mean = (pick: (row: SimulationSummary['months'][number]) => number) =>
+    sum(summary.months.map((r) => (pick(r) * summary.bands[r.bandIndex].areaM2) / areaM2));
+  return {
+    snowfallMm: mean((r) => r.snowfallMm), rainfallMm: mean((r) => r.rainfallMm), surfaceMeltMm: mean((r) => r.surfaceMeltMm),
+    refrozenMm: mean((r) => r.refrozenMm), sublimationMm: mean((r) => r.sublimationMm), evaporationMm: mean((r) => r.evaporationMm),
+    runoffMm: (sum(dailyRunoffM3(summary)) / areaM2) * 1000,
+  };
+}
+
+const ENSEMBLE_LABELS = ENSEMBLE_PARAMETERS.map((name) => PARAMETER_SPECS[name].label.toLowerCase()).join(', ');
+
+/**
+ * Why a central run can fall outside its ensemble's 5–95 % range: the ensemble draws its
+ * parameters uniformly across their whole published ranges, the central run keeps the scenario's
+ * own (calibrated or default) values, and added melt responds unevenly to them.
+ */
+function centralNote(central: number, range: { p5: number; p95: number }): string | null {
+  if (central >= range.p5 && central <= range.p95) return null;
+  const side = central < range.p5 ? 'below' : 'above';
+  return `The central run's added runoff lies ${side} the ensemble's 5–95 % range. The ensemble draws ${ENSEMBLE_LABELS} uniformly across their published ranges, `
+    + 'while the central run keeps the scenario\'s own values (calibrated or default), which sit off-centre in those ranges; added melt responds unevenly to them. '
+    + 'Read the range as the spread over the literature, and the central run as the estimate for this catchment.';
+}
+
+function ensembleOf(members: ResultMember[], centralShare: number) {
   const scenarios = members.filter((m) => m.kind === 'ensemble-scenario').sort((a, b) => a.ensembleIndex! - b.ensembleIndex!);
   if (scenarios.length === 0) return null;
   const baselines = new Map(members.filter((m) => m.kind === 'ensemble-baseline').map((m) => [m.ensembleIndex, m.summary]));
@@ -94,11 +123,37 @@ function ensembleOf(members: ResultMember[]) {
     dischargeM3s: seriesBand5to95(discharge),
     addedDischargeM3s: seriesBand5to95(added),
     totals: Object.fromEntries(RANGED_TOTALS.map((key) => [key, band5to95(totals.map((t) => t[key] ?? 0))])),
+    note: centralNote(centralShare, band5to95(totals.map((t) => t.addedShareOfBaselineRunoff))),
   };
 }
 
+/** What the server knows beside the stored members: the calibration check, the baseline's skill, and whether bare ice was darkened. */
+export interface ResultContext {
+  calibration: CalibrationStatus;
+  skill: RunSetUp['skill'];
+  iceDarkened: boolean;
+}
+
+function setUpOf(variant: SimulationSummary, context: ResultContext): RunSetUp {
+  return {
+    start: variant.start ? { label: START_LABELS[variant.start.method], note: variant.start.note, adequate: variant.start.adequate } : null,
+    shortwaveSource: variant.shortwaveSource ? SHORTWAVE_SOURCE_LABELS[variant.shortwaveSource] : null,
+    calibration: context.calibration,
+    skill: context.skill,
+  };
+}
+
+/** The standard cautions, then what this run adds: a short record's spin-up and the bare-ice sensitivity. */
+function cautionsOf(variant: SimulationSummary, context: ResultContext): string[] {
+  return [
+    ...CAUTIONS,
+    ...(variant.start && !variant.start.adequate ? [variant.start.note] : []),
+    ...(context.iceDarkened ? [ICE_DARKENING_CAUTION] : []),
+  ];
+}
+
 /** Turns a finished run's members into what the results screens show. */
-export function runResults(run: Run, catchmentName: string, members: ResultMember[], drivers: readonly Driver[]): RunResults {
+export function runResults(run: Run, catchmentName: string, members: ResultMember[], drivers: readonly Driver[], context: ResultContext): RunResults {
   const variant = members.find((m) => m.kind === 'scenario')?.summary;
   if (!variant) throw new RangeError('run results: the run has no scenario member');
   // A baseline run is its own reference: everything added is zero.
@@ -107,13 +162,16 @@ export function runResults(run: Run, catchmentName: string, members: ResultMembe
   const areaM2 = sum(variant.bands.map((b) => b.areaM2));
   const base = dailyRunoffM3(baseline);
   let acc = 0;
+  const totals = addedMeltTotals(baseline, variant);
   return {
     run,
     catchmentName,
     startDate: variant.startDate,
     dayCount: variant.dayCount,
     bands: variant.bands,
-    totals: addedMeltTotals(baseline, variant),
+    totals,
+    setUp: setUpOf(variant, context),
+    waterBalance: { baseline: waterBalanceOf(baseline, areaM2), variant: waterBalanceOf(variant, areaM2) },
     dischargeM3s: { baseline: toDischarge(base), variant: toDischarge(dailyRunoffM3(variant)) },
     cumulativeAddedM3: dailyRunoffM3(variant).map((v, d) => (acc += v - base[d])),
     bandAddedMm: bandAddedMm(baseline, variant),
@@ -121,7 +179,7 @@ export function runResults(run: Run, catchmentName: string, members: ResultMembe
     albedo: { baseline: bandMonthGrid(baseline, months, (r) => r.meanAlbedo), variant: bandMonthGrid(variant, months, (r) => r.meanAlbedo) },
     energy: { baseline: energyOf(baseline, months), variant: energyOf(variant, months) },
     attribution: run.attribution ? attributionOf(members, drivers, baseline, variant, areaM2) : null,
-    ensemble: ensembleOf(members),
-    cautions: [...CAUTIONS],
+    ensemble: ensembleOf(members, totals.addedShareOfBaselineRunoff),
+    cautions: cautionsOf(variant, context),
   };
 }

@@ -20,7 +20,7 @@ export function mergeSummaries(parts: readonly BandPart[], summaries: readonly S
     for (const s of SOURCES) summary.dailyM3[s].forEach((v, d) => (dailyM3[s][d] += v));
   });
   months.sort((a, b) => a.bandIndex - b.bandIndex || (a.month < b.month ? -1 : a.month > b.month ? 1 : 0));
-  return { startDate: first.startDate, dayCount: first.dayCount, bands, months, dailyM3 };
+  return { startDate: first.startDate, dayCount: first.dayCount, bands, months, dailyM3, start: first.start, shortwaveSource: first.shortwaveSource };
 }
 
 /** Simulates one run member (all its band groups) and returns what a run stores. */

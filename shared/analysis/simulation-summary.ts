@@ -1,17 +1,21 @@
 import { addDays } from '../melt/calendar';
 import { summariseByMonth, type BandMonthSummary } from '../melt/monthly';
 import { SOURCES, type SimulationResult, type Source } from '../melt/result';
+import type { ShortwaveSource } from '../melt/schema';
+import type { StartReport } from '../melt/spin-up';
 
 /** One band in one calendar month of one simulation: what a run stores (depths mm w.e. over the band). */
 export type BandMonthRow = Pick<
   BandMonthSummary,
   'bandIndex' | 'month' | 'days' | 'snowMeltMm' | 'iceMeltMm' | 'debrisIceMeltMm' | 'rainMm' | 'snowfallMm' | 'meanAlbedo'
+  | 'rainfallMm' | 'surfaceMeltMm' | 'refrozenMm' | 'sublimationMm' | 'evaporationMm' | 'meanSnowCoverFraction'
 > & {
   /** Daily means, W m⁻² (see SimulationResult.bandDay). */
   absorbedShortwaveWm2: number;
   netShortwaveWm2: number;
   netLongwaveWm2: number;
   sensibleHeatWm2: number;
+  latentHeatWm2: number;
 };
 
 /** The stored form of one simulation: bands, band × month rows and catchment daily volumes (m³) by source. */
@@ -21,9 +25,12 @@ export interface SimulationSummary {
   bands: { elevationM: number; areaM2: number }[];
   months: BandMonthRow[];
   dailyM3: Record<Source, number[]>;
+  /** How the engine started (spin-up or given state) and where its shortwave came from; null for runs stored before engine 2.0. */
+  start: StartReport | null;
+  shortwaveSource: ShortwaveSource | null;
 }
 
-const ENERGY_FIELDS = ['netShortwaveWm2', 'netLongwaveWm2', 'sensibleHeatWm2'] as const;
+const ENERGY_FIELDS = ['netShortwaveWm2', 'netLongwaveWm2', 'sensibleHeatWm2', 'latentHeatWm2'] as const;
 
 /** Reduces an engine result to what a run stores. */
 export function summariseSimulation(result: SimulationResult): SimulationSummary {
@@ -35,7 +42,7 @@ export function summariseSimulation(result: SimulationResult): SimulationSummary
     for (let d = 0; d < nd; d++) {
       const key = `${b}:${monthOf[d]}`;
       let sum = sums.get(key);
-      if (!sum) sums.set(key, (sum = { netShortwaveWm2: 0, netLongwaveWm2: 0, sensibleHeatWm2: 0 }));
+      if (!sum) sums.set(key, (sum = { netShortwaveWm2: 0, netLongwaveWm2: 0, sensibleHeatWm2: 0, latentHeatWm2: 0 }));
       for (const field of ENERGY_FIELDS) sum[field] += bandDay[field][b * nd + d];
     }
   }
@@ -45,10 +52,13 @@ export function summariseSimulation(result: SimulationResult): SimulationSummary
       bandIndex: row.bandIndex, month: row.month, days: row.days,
       snowMeltMm: row.snowMeltMm, iceMeltMm: row.iceMeltMm, debrisIceMeltMm: row.debrisIceMeltMm,
       rainMm: row.rainMm, snowfallMm: row.snowfallMm, meanAlbedo: row.meanAlbedo,
+      rainfallMm: row.rainfallMm, surfaceMeltMm: row.surfaceMeltMm, refrozenMm: row.refrozenMm,
+      sublimationMm: row.sublimationMm, evaporationMm: row.evaporationMm, meanSnowCoverFraction: row.meanSnowCoverFraction,
       absorbedShortwaveWm2: row.meanAbsorbedShortwaveWm2,
       netShortwaveWm2: sum.netShortwaveWm2 / row.days,
       netLongwaveWm2: sum.netLongwaveWm2 / row.days,
       sensibleHeatWm2: sum.sensibleHeatWm2 / row.days,
+      latentHeatWm2: sum.latentHeatWm2 / row.days,
     };
   });
   return {
@@ -57,6 +67,8 @@ export function summariseSimulation(result: SimulationResult): SimulationSummary
     bands: Array.from(result.bands.areaM2, (areaM2, b) => ({ elevationM: result.bands.elevationM[b], areaM2 })),
     months,
     dailyM3: Object.fromEntries(SOURCES.map((s) => [s, Array.from(result.catchmentDaily.volumeM3[s])])) as Record<Source, number[]>,
+    start: result.start,
+    shortwaveSource: result.shortwaveSource,
   };
 }
 

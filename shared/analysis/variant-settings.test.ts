@@ -22,6 +22,14 @@ describe('a variant inherits what it does not set from its baseline', () => {
   });
 
   it('is its own settings for the baseline (no baseline to inherit from)', () => {
-    expect(simulationSettings({ period: null, parameters: { rainSnowThresholdC: 1 } }, null)).toEqual({ period: null, parameters: { rainSnowThresholdC: 1 } });
+    expect(simulationSettings({ period: null, parameters: { rainSnowThresholdC: 1 } }, null))
+      .toEqual({ period: null, parameters: { rainSnowThresholdC: 1 }, physics: { stabilityCorrection: false } });
+  });
+
+  it('takes the baseline\'s stability correction unless it sets its own', () => {
+    const baseline = { period: null, parameters: {}, stabilityCorrection: true };
+    expect(simulationSettings({ period: null, parameters: {}, stabilityCorrection: null }, baseline).physics).toEqual({ stabilityCorrection: true });
+    expect(simulationSettings({ period: null, parameters: {}, stabilityCorrection: false }, baseline).physics).toEqual({ stabilityCorrection: false });
+    expect(simulationSettings({ period: null, parameters: {} }, null).physics).toEqual({ stabilityCorrection: false });
   });
 });

@@ -1,6 +1,7 @@
 import { simulate } from '../melt/index';
 import { addDays } from '../melt/calendar';
 import { maximise, type SearchProgress } from './nelder-mead';
+import { behaviouralRanges, type ParameterRange } from './behavioural-ranges';
 import { skillScores, type SkillScores } from './skill-scores';
 import { monthlyMeans, pairDaily, type DatedValue, type PairedSeries } from './paired-series';
 import { catchmentInput, forcingDays, keySpec, siteWith, valueOf, withValues, type CalibrationKey, type CalibrationSet } from './calibration-set';
@@ -16,12 +17,13 @@ export interface DischargeEvaluation {
 }
 
 /**
- * Catchment discharge (m³ s⁻¹, daily mean of all melt and rain, no routing) from the start of the
- * forcing to the end of the period, so the snowpack is built before the scored days begin.
+ * Catchment discharge (m³ s⁻¹, daily mean of all melt and rain, no routing) over the period, after
+ * the engine's spin-up through the record before it, so the snowpack is built before the scored
+ * days begin.
  */
 export function simulateDischarge(site: LabSite, period: Period): { startDate: string; values: Float64Array } {
-  const from = site.forcing.start;
-  const last = addDays(from, forcingDays(site.forcing) - 1);
+  const from = site.forcing.start > period.from ? site.forcing.start : period.from;
+  const last = addDays(site.forcing.start, forcingDays(site.forcing) - 1);
   const result = simulate(catchmentInput(site, { from, to: period.to < last ? period.to : last }));
   return { startDate: result.startDate, values: result.catchmentDaily.dischargeM3s.total };
 }
@@ -51,15 +53,25 @@ export interface CalibrateOptions {
   seed?: number;
   signal?: AbortSignal;
   onProgress?: (progress: SearchProgress) => void;
+  /** Progress of the behavioural-range sampling after the search: model runs done of total. */
+  onRangeProgress?: (done: number, total: number) => void;
 }
 
-export interface CalibrationOutcome {
+/** What a bounded search found, with how well the observations pin each parameter down. */
+export interface SearchOutcome {
   set: CalibrationSet;
   keys: CalibrationKey[];
-  startScores: DischargeEvaluation;
-  scores: DischargeEvaluation;
   evaluations: number;
   converged: boolean;
+  /** Parameters the search left at (within 0.1 % of) a bound of their range: the optimum may lie beyond it. */
+  atBounds: CalibrationKey[];
+  /** Behavioural range of each parameter around the found set (see behavioural-ranges.ts). */
+  ranges: ParameterRange[];
+}
+
+export interface CalibrationOutcome extends SearchOutcome {
+  startScores: DischargeEvaluation;
+  scores: DischargeEvaluation;
 }
 
 /** The objective, or −∞ for a set the skill cannot be computed for (the search moves away from it). */
@@ -75,7 +87,7 @@ export function orMinusInfinity(score: () => number): number {
  * A bounded Nelder–Mead search over 1–4 parameters of a calibration set, maximising `objective`
  * of the site run with each candidate set.
  */
-export function searchSet(site: LabSite, objective: (candidate: LabSite) => number, options: Omit<CalibrateOptions, 'period'>): { set: CalibrationSet; keys: CalibrationKey[]; evaluations: number; converged: boolean } {
+export function searchSet(site: LabSite, objective: (candidate: LabSite) => number, options: Omit<CalibrateOptions, 'period'>): SearchOutcome {
   const keys = [...options.keys];
   if (keys.length < 1 || keys.length > 4 || new Set(keys).size !== keys.length) throw new RangeError('calibrate: choose one to four different parameters');
   const specs = keys.map(keySpec);
@@ -89,7 +101,15 @@ export function searchSet(site: LabSite, objective: (candidate: LabSite) => numb
     signal: options.signal,
     onProgress: options.onProgress,
   });
-  return { set: withValues(options.start, keys, result.best), keys, evaluations: result.evaluations, converged: result.converged };
+  const set = withValues(options.start, keys, result.best);
+  const atBounds = keys.filter((_, j) => {
+    const margin = 1e-3 * (specs[j].max - specs[j].min);
+    return result.best[j] <= specs[j].min + margin || result.best[j] >= specs[j].max - margin;
+  });
+  const { ranges } = behaviouralRanges((candidate) => orMinusInfinity(() => objective(siteWith(site, candidate))), set, keys, result.bestValue, {
+    seed: options.seed, signal: options.signal, onProgress: options.onRangeProgress,
+  });
+  return { set, keys, evaluations: result.evaluations, converged: result.converged, atBounds, ranges };
 }
 
 /**

@@ -4,7 +4,7 @@ import type { LabSite, Period } from './site';
 
 /** Parameters a scientist may adjust and the automatic search may vary. */
 export const CALIBRATION_KEYS = [
-  'lapseRateCPerKm', 'transmissivity', 'iceAlbedo', 'debrisAlbedo', 'freshGrainRadiusUm',
+  'lapseRateCPerKm', 'temperatureRangeRadiationCoefficient', 'turbidity', 'iceAlbedo', 'debrisAlbedo', 'freshGrainRadiusUm',
   'precipitationGradientPerKm', 'precipitationFactor', 'rainSnowThresholdC', 'exchangeCoefficient',
 ] as const;
 export type CalibrationKey = (typeof CALIBRATION_KEYS)[number];
@@ -23,21 +23,10 @@ export interface KeySpec {
  */
 const PRECIPITATION_FACTOR: KeySpec = { label: 'Precipitation factor', min: 0.5, max: 2, default: 1, unit: '×' };
 
-const LABELS: Record<Exclude<CalibrationKey, 'precipitationFactor'>, string> = {
-  lapseRateCPerKm: 'Lapse rate',
-  transmissivity: 'Clear-sky transmissivity',
-  iceAlbedo: 'Clean-ice albedo',
-  debrisAlbedo: 'Debris albedo',
-  freshGrainRadiusUm: 'Fresh snow grain radius',
-  precipitationGradientPerKm: 'Precipitation gradient',
-  rainSnowThresholdC: 'Rain/snow threshold',
-  exchangeCoefficient: 'Bulk exchange coefficient',
-};
-
 export function keySpec(key: CalibrationKey): KeySpec {
   if (key === 'precipitationFactor') return PRECIPITATION_FACTOR;
   const spec = PARAMETER_SPECS[key];
-  return { label: LABELS[key], min: spec.min, max: spec.max, default: spec.default, unit: spec.unit };
+  return { label: spec.label, min: spec.min, max: spec.max, default: spec.default, unit: spec.unit };
 }
 
 /** Parameters in force plus the station precipitation factor: what a catchment's calibration saves. */

@@ -32,11 +32,11 @@ export function bandAt(bands: CatchmentInput['bands'], elevationM: number): numb
 }
 
 /**
- * Simulated point balance at each stake: snowfall minus snow melt minus ice melt per unit glacier
- * area of the stake's band, summed over the reading's period (glaciological method: the balance is
- * accumulation minus ablation at the point, Cogley et al. 2011, Glossary of Glacier Mass Balance
- * [memory]). Refreezing and wind drift are not modelled; clean and debris-covered ice are mixed as
- * in the band.
+ * Simulated point balance at each stake over the reading's period: the change of the snowpack's
+ * water (snowfall, refreezing and deposition in; drainage and vapour out) minus the glacier ice lost
+ * (melt and vapour) per unit glacier area of the stake's band (glaciological method: accumulation
+ * minus ablation at the point, Cogley et al. 2011, Glossary of Glacier Mass Balance [memory]).
+ * Wind drift is not modelled; clean and debris-covered ice are mixed as in the band.
  */
 export function compareStakes(site: LabSite, observations: readonly StakeObservation[]): StakeComparison {
   const start = site.forcing.start;
@@ -45,15 +45,19 @@ export function compareStakes(site: LabSite, observations: readonly StakeObserva
   if (inside.length === 0) return { readings: [], outsideRecord: observations.length, scores: null, meanErrorMWe: 0, rmseMWe: 0 };
   const to = inside.reduce((a, o) => (o.to > a ? o.to : a), inside[0].to);
   const r = simulate(catchmentInput(site, { from: start, to }));
-  const { snowfallMm, snowMeltMm, iceMeltMm, debrisIceMeltMm } = r.bandDay;
+  const { sweMm, iceMeltMm, debrisIceMeltMm, iceVapourLossMm } = r.bandDay;
   const readings = inside.map((o) => {
     const b = bandAt(site.catchment.bands, o.elevationM);
     const glacier = site.catchment.bands[b].glacierFraction;
-    let mm = 0;
-    for (let d = daysBetween(start, o.from); d <= daysBetween(start, o.to); d++) {
+    const first = daysBetween(start, o.from);
+    const last = daysBetween(start, o.to);
+    const before = first > 0 ? sweMm[b * r.dayCount + first - 1] : r.bandTotals.sweStartMm[b];
+    let iceLost = 0;
+    for (let d = first; d <= last; d++) {
       const i = b * r.dayCount + d;
-      mm += snowfallMm[i] - snowMeltMm[i] - (glacier > 0 ? (iceMeltMm[i] + debrisIceMeltMm[i]) / glacier : 0);
+      iceLost += iceMeltMm[i] + debrisIceMeltMm[i] + iceVapourLossMm[i];
     }
+    const mm = sweMm[b * r.dayCount + last] - before - (glacier > 0 ? iceLost / glacier : 0);
     return { ...o, bandIndex: b, simulatedMWe: mm / 1000 };
   });
   const errors = readings.map((x) => x.simulatedMWe - x.balanceMWe);

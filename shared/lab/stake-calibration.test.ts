@@ -22,7 +22,7 @@ describe('calibration against stake balances', () => {
     expect(Math.abs(outcome.set.parameters.lapseRateCPerKm! - -5.2)).toBeLessThan(0.2);
     expect(outcome.result.scores!.kge).toBeGreaterThan(outcome.start.scores!.kge);
     expect(outcome.result.scores!.kge).toBeGreaterThan(0.98);
-  });
+  }, 60_000);
   it('refuses a period holding fewer than two readings', () => {
     expect(() => calibrateToStakes(valley, measured, { keys: ['lapseRateCPerKm'], period: { from: '2021-10-01', to: '2022-03-01' }, start: DEFAULT_CALIBRATION_SET })).toThrow(/only 0 stake reading/);
   });

@@ -1,15 +1,11 @@
-import { searchSet, type CalibrateOptions } from './calibrate';
-import { siteWith, type CalibrationKey, type CalibrationSet } from './calibration-set';
+import { searchSet, type CalibrateOptions, type SearchOutcome } from './calibrate';
+import { siteWith } from './calibration-set';
 import { compareStakes, type StakeComparison, type StakeObservation } from './stake-balance';
 import type { LabSite, Period } from './site';
 
-export interface StakeCalibrationOutcome {
-  set: CalibrationSet;
-  keys: CalibrationKey[];
+export interface StakeCalibrationOutcome extends SearchOutcome {
   start: StakeComparison;
   result: StakeComparison;
-  evaluations: number;
-  converged: boolean;
 }
 
 /** Readings whose whole period lies inside `period`. */

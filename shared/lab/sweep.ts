@@ -63,22 +63,24 @@ export function sweepCells(plan: SweepPlan): SweepCell[] {
 }
 
 /**
- * What every cell of a sweep starts from: the site and plan, and the snow water equivalent per
- * band that a baseline run (parameters in force, no scenario change) has built by the start of
- * the period. Swept values act within the period only, so one season is one short run per cell.
+ * What every cell of a sweep starts from: the site and plan, and the state (snowpack, its
+ * temperatures, grains and impurities) that a baseline run (parameters in force, no scenario
+ * change, spun up through the record before it) has reached by the start of the period. Swept
+ * values act within the period only, so one season is one short run per cell.
  */
 export interface SweepSetup {
   site: LabSite;
   plan: SweepPlan;
-  initialSweMm: number[];
+  start: NonNullable<SimulationInput['start']>;
 }
 
-/** Runs the baseline from the start of the forcing to the day before the period to get the snowpack. */
+/** Runs the baseline up to the day before the period to get the state the cells start from. */
 export function prepareSweep(site: LabSite, plan: SweepPlan): SweepSetup {
-  const bandCount = site.catchment.bands.length;
-  if (plan.period.from <= site.forcing.start) return { site, plan, initialSweMm: new Array<number>(bandCount).fill(0) };
-  const r = simulate(catchmentInput(site, { from: site.forcing.start, to: addDays(plan.period.from, -1) }));
-  return { site, plan, initialSweMm: Array.from({ length: bandCount }, (_, b) => r.bandDay.sweMm[b * r.dayCount + r.dayCount - 1]) };
+  if (plan.period.from <= site.forcing.start) return { site, plan, start: { method: 'spin-up', years: 1 } };
+  const lastDay = addDays(plan.period.from, -1);
+  const from = addDays(lastDay, -364) > site.forcing.start ? addDays(lastDay, -364) : site.forcing.start;
+  const r = simulate(catchmentInput(site, { from, to: lastDay }));
+  return { site, plan, start: { method: 'state', state: r.endState } };
 }
 
 /** Catchment melt (snow and ice) over a run, mm w.e. averaged over the catchment area. */
@@ -103,7 +105,7 @@ export function cellInput(setup: SweepSetup, values: readonly number[]): Simulat
   });
   const last = addDays(site.forcing.start, forcingDays(site.forcing) - 1);
   const input = catchmentInput({ ...site, parameters }, { from: plan.period.from, to: plan.period.to < last ? plan.period.to : last });
-  return { ...input, scenario: { ...input.scenario, ...scenario }, initialState: { sweMm: setup.initialSweMm } };
+  return { ...input, scenario: { ...input.scenario, ...scenario }, start: setup.start };
 }
 
 export function cellMelt(setup: SweepSetup, values: readonly number[]): number {

@@ -1,4 +1,5 @@
-import { DEG, SEA_LEVEL_PRESSURE_PA } from './constants';
+import { DEG } from './constants';
+import { precipitableWaterFactor } from './clear-sky';
 import { pressureAt } from './pressure';
 import type { Band, Scenario } from './schema';
 import type { Parameters } from './parameters';
@@ -14,37 +15,46 @@ export interface BandGeometry {
   /** Precipitation relative to the station, 1 + gradient·Δz, never below 0. */
   precipitationFactor: Float64Array;
   pressurePa: Float64Array;
-  /** P/P0 for the beam path length (Hock 1999). */
-  pressureRatio: Float64Array;
+  /** Pressure in kPa, for the clear-sky beam exponent (ASCE-EWRI 2005). */
+  pressureKPa: Float64Array;
+  /** (W(z)/W(station))^0.4, the band's precipitable-water factor in the beam exponent. */
+  vapourFactor: Float64Array;
   cosSlope: Float64Array;
   sinSlopeCosAspect: Float64Array;
   sinSlopeSinAspect: Float64Array;
-  /** (1 + cos β)/2 and (1 − cos β)/2. */
+  /** Sky-view factor (given, or (1 + cos β)/2) and its complement, the terrain the band sees. */
   skyView: Float64Array;
   groundView: Float64Array;
+  /** Terrain horizons: 1 where the band has one; values band-major, sector-major, 5 percentiles each. */
+  hasHorizon: Uint8Array;
+  horizonDeg: Float64Array;
+  horizonSectors: number;
   /** Shares of the band area: clean glacier ice and debris-covered glacier ice (scenario applied). */
   cleanIceShare: Float64Array;
   debrisShare: Float64Array;
-  /** Debris thickness after the scenario, m. */
+  /** Mean debris thickness after the scenario, m (0: the debris is gone). */
   debrisThicknessM: Float64Array;
-  /** k/h of the debris layer, W m⁻² K⁻¹. */
-  debrisConductance: Float64Array;
+  /** Thickness of the debris patches, max(mean, patchy threshold), and the share of the debris area they cover. */
+  debrisColumnM: Float64Array;
+  debrisPatchShare: Float64Array;
 }
 
 /**
  * Debris after the scenario: the debris share of the glacier grows by debrisExtentChange of its
- * clean part; thickness changes by debrisThicknessChangeM. Bands without debris use
- * newDebrisThicknessM for newly covered ice; any thickness is raised to minDebrisThicknessM.
+ * clean part; thickness changes by debrisThicknessChangeM (not below 0). Bands without debris use
+ * newDebrisThicknessM for newly covered ice. Debris thinner on average than patchyDebrisThicknessM
+ * lies in patches of that thickness covering mean/threshold of the debris area, with bare ice
+ * between them: the rising limb of the Østrem curve (see parameters.ts for the sources).
  */
 export function buildBandGeometry(bands: Band[], stationElevationM: number, scenario: Scenario, params: Parameters): BandGeometry {
   const n = bands.length;
+  const f64 = () => new Float64Array(n);
+  const sectors = bands.find((b) => b.horizonDeg)?.horizonDeg?.length ?? 0;
   const g: BandGeometry = {
-    count: n,
-    elevationM: new Float64Array(n), areaM2: new Float64Array(n), temperatureOffsetC: new Float64Array(n),
-    precipitationFactor: new Float64Array(n), pressurePa: new Float64Array(n), pressureRatio: new Float64Array(n),
-    cosSlope: new Float64Array(n), sinSlopeCosAspect: new Float64Array(n), sinSlopeSinAspect: new Float64Array(n),
-    skyView: new Float64Array(n), groundView: new Float64Array(n), cleanIceShare: new Float64Array(n),
-    debrisShare: new Float64Array(n), debrisThicknessM: new Float64Array(n), debrisConductance: new Float64Array(n),
+    count: n, elevationM: f64(), areaM2: f64(), temperatureOffsetC: f64(), precipitationFactor: f64(), pressurePa: f64(),
+    pressureKPa: f64(), vapourFactor: f64(), cosSlope: f64(), sinSlopeCosAspect: f64(), sinSlopeSinAspect: f64(),
+    skyView: f64(), groundView: f64(), hasHorizon: new Uint8Array(n), horizonDeg: new Float64Array(n * sectors * 5), horizonSectors: sectors,
+    cleanIceShare: f64(), debrisShare: f64(), debrisThicknessM: f64(), debrisColumnM: f64(), debrisPatchShare: f64(),
   };
   bands.forEach((band, b) => {
     const z = (band.lowerM + band.upperM) / 2;
@@ -53,22 +63,28 @@ export function buildBandGeometry(bands: Band[], stationElevationM: number, scen
     const aspect = band.aspectDeg * DEG;
     const debrisOfGlacier = band.debrisFraction + (1 - band.debrisFraction) * scenario.debrisExtentChange;
     const baseThickness = band.debrisFraction > 0 && band.debrisThicknessM > 0 ? band.debrisThicknessM : params.newDebrisThicknessM;
-    const thickness = Math.max(params.minDebrisThicknessM, baseThickness + scenario.debrisThicknessChangeM);
+    const thickness = Math.max(0, baseThickness + scenario.debrisThicknessChangeM);
     g.elevationM[b] = z;
     g.areaM2[b] = band.areaKm2 * 1e6;
     g.temperatureOffsetC[b] = params.lapseRateCPerKm * dzKm;
     g.precipitationFactor[b] = Math.max(0, 1 + params.precipitationGradientPerKm * dzKm);
     g.pressurePa[b] = pressureAt(z);
-    g.pressureRatio[b] = g.pressurePa[b] / SEA_LEVEL_PRESSURE_PA;
+    g.pressureKPa[b] = g.pressurePa[b] / 1000;
+    g.vapourFactor[b] = precipitableWaterFactor(z, stationElevationM);
     g.cosSlope[b] = Math.cos(slope);
     g.sinSlopeCosAspect[b] = Math.sin(slope) * Math.cos(aspect);
     g.sinSlopeSinAspect[b] = Math.sin(slope) * Math.sin(aspect);
-    g.skyView[b] = (1 + Math.cos(slope)) / 2;
-    g.groundView[b] = (1 - Math.cos(slope)) / 2;
+    g.skyView[b] = band.skyViewFactor ?? (1 + Math.cos(slope)) / 2;
+    g.groundView[b] = 1 - g.skyView[b];
+    if (band.horizonDeg) {
+      g.hasHorizon[b] = 1;
+      band.horizonDeg.forEach((q, k) => q.forEach((v, i) => (g.horizonDeg[(b * sectors + k) * 5 + i] = v)));
+    }
     g.cleanIceShare[b] = band.glacierFraction * (1 - debrisOfGlacier);
     g.debrisShare[b] = band.glacierFraction * debrisOfGlacier;
     g.debrisThicknessM[b] = thickness;
-    g.debrisConductance[b] = params.debrisConductivity / thickness;
+    g.debrisColumnM[b] = Math.max(thickness, params.patchyDebrisThicknessM);
+    g.debrisPatchShare[b] = Math.min(1, thickness / params.patchyDebrisThicknessM);
   });
   return g;
 }

@@ -1,23 +1,23 @@
 import type { Forcing, Scenario } from './schema';
 import type { Parameters } from './parameters';
-import { cloudTransmission } from './shortwave';
-import { OVERCAST_EMISSIVITY } from './longwave';
-import { GAS_CONSTANT_DRY_AIR, SPECIFIC_HEAT_AIR } from './constants';
 
 /** Station forcing expanded to one value per simulated hour, with the scenario applied. */
 export interface HourlyForcing {
   /** Air temperature at the station including the scenario change, °C. */
   temperatureC: Float64Array;
+  /** Station air temperature without the scenario change, °C (for the daily temperature range). */
+  stationTemperatureC: Float64Array;
   /** Precipitation at the station times the scenario factor, mm per hour. */
   precipitationMm: Float64Array;
-  /** Cloud transmission of shortwave (Kasten & Czeplak 1980), 0.25 … 1. */
-  cloudFactor: Float64Array;
-  /** RH^(1/7) (1 − n⁴): multiplies the tabulated saturated clear-sky emissivity. */
-  clearSkyEmissivityScale: Float64Array;
-  /** 0.952 n⁴: the overcast share of the all-sky emissivity (Konzelmann et al. 1994). */
-  overcastEmissivity: Float64Array;
-  /** cp/Rd · CH · u, so the sensible coefficient of a band is P/T times this, W m⁻² K⁻¹ per (Pa/K). */
-  sensibleScale: Float64Array;
+  /** Relative humidity, 0.01 … 1. */
+  relativeHumidity: Float64Array;
+  windMs: Float64Array;
+  /** Cloudiness 0 … 1 where the forcing has it (NaN elsewhere). */
+  cloudiness: Float64Array | null;
+  /** Measured global radiation on the horizontal, W m⁻² (hourly, or the daily mean in each hour). */
+  globalRadiationWm2: Float64Array | null;
+  /** Daily temperature range at the station, K, one value per simulated day. */
+  dailyRangeK: Float64Array;
 }
 
 /** Value of a constant-or-monthly scenario entry for month 0 … 11. */
@@ -31,24 +31,27 @@ const asNumbers = (values: (number | null)[]): number[] => values as number[];
  * Expands validated forcing to hours `firstDay·24 … (firstDay + dayCount)·24 − 1`.
  * Daily temperature follows a cosine through the day with its minimum at 03:00 and maximum at
  * 15:00 local time, mean (tMeanC, or the midpoint of min and max) and half-range amplitude
- * (common practice, e.g. Campbell 1985) [memory]. Daily precipitation, cloudiness, wind and
- * humidity are spread evenly over the day. Humidity below 0.01 is raised to 0.01 (Brutsaert
+ * (common practice, e.g. Campbell 1985) [memory]. Daily precipitation, cloudiness, wind, humidity
+ * and radiation are spread evenly over the day. Humidity below 0.01 is raised to 0.01 (Brutsaert
  * emissivity is 0 in perfectly dry air).
  */
 export function expandForcing(forcing: Forcing, scenario: Scenario, params: Parameters, months: Uint8Array, firstDay: number, dayCount: number): HourlyForcing {
   const hours = dayCount * 24;
+  const cloud = forcing.cloudiness && asNumbers(forcing.cloudiness);
+  const radiation = forcing.globalRadiationWm2 && asNumbers(forcing.globalRadiationWm2);
   const out: HourlyForcing = {
     temperatureC: new Float64Array(hours),
+    stationTemperatureC: new Float64Array(hours),
     precipitationMm: new Float64Array(hours),
-    cloudFactor: new Float64Array(hours),
-    clearSkyEmissivityScale: new Float64Array(hours),
-    overcastEmissivity: new Float64Array(hours),
-    sensibleScale: new Float64Array(hours),
+    relativeHumidity: new Float64Array(hours),
+    windMs: new Float64Array(hours),
+    cloudiness: cloud ? new Float64Array(hours) : null,
+    globalRadiationWm2: radiation ? new Float64Array(hours) : null,
+    dailyRangeK: new Float64Array(dayCount),
   };
   const hourly = forcing.timeStep === 'hourly';
   const precipHourly = (forcing.precipitationStep ?? forcing.timeStep) === 'hourly';
   const precip = asNumbers(forcing.precipitationMm);
-  const cloud = forcing.cloudiness && asNumbers(forcing.cloudiness);
   const wind = forcing.windMs && asNumbers(forcing.windMs);
   const rh = forcing.relativeHumidity && asNumbers(forcing.relativeHumidity);
   const cycle = Float64Array.from({ length: 24 }, (_, k) => Math.cos((2 * Math.PI * (k + 0.5 - 15)) / 24));
@@ -57,6 +60,8 @@ export function expandForcing(forcing: Forcing, scenario: Scenario, params: Para
     const month = months[d];
     const dT = monthValue(scenario.temperatureDeltaC, month);
     const pf = monthValue(scenario.precipitationFactor, month);
+    let lowest = Infinity;
+    let highest = -Infinity;
     for (let k = 0; k < 24; k++) {
       const h = d * 24 + k;
       const src = hourly ? fd * 24 + k : fd;
@@ -68,17 +73,17 @@ export function expandForcing(forcing: Forcing, scenario: Scenario, params: Para
         const mean = forcing.tMeanC ? (forcing.tMeanC[src] as number) : (lo + hi) / 2;
         t = mean + ((hi - lo) / 2) * cycle[k];
       }
+      if (t < lowest) lowest = t;
+      if (t > highest) highest = t;
+      out.stationTemperatureC[h] = t;
       out.temperatureC[h] = t + dT;
       out.precipitationMm[h] = pf * (precipHourly ? precip[fd * 24 + k] : precip[fd] / 24);
-      const n = cloud ? cloud[src] : params.defaultCloudiness;
-      const u = wind ? wind[src] : params.defaultWindMs;
-      const humidity = rh ? Math.max(rh[src], 0.01) : params.defaultRelativeHumidity;
-      const n4 = n * n * n * n;
-      out.cloudFactor[h] = cloudTransmission(n);
-      out.clearSkyEmissivityScale[h] = Math.pow(humidity, 1 / 7) * (1 - n4);
-      out.overcastEmissivity[h] = OVERCAST_EMISSIVITY * n4;
-      out.sensibleScale[h] = (SPECIFIC_HEAT_AIR / GAS_CONSTANT_DRY_AIR) * params.exchangeCoefficient * u;
+      out.windMs[h] = wind ? wind[src] : params.defaultWindMs;
+      out.relativeHumidity[h] = rh ? Math.max(rh[src], 0.01) : params.defaultRelativeHumidity;
+      if (cloud && out.cloudiness) out.cloudiness[h] = cloud[src];
+      if (radiation && out.globalRadiationWm2) out.globalRadiationWm2[h] = radiation[src];
     }
+    out.dailyRangeK[d] = forcing.timeStep === 'daily' ? (forcing.tMaxC[fd] as number) - (forcing.tMinC[fd] as number) : highest - lowest;
   }
   return out;
 }

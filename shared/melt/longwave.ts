@@ -1,4 +1,5 @@
 import { STEFAN_BOLTZMANN, ZERO_CELSIUS_K } from './constants';
+import { tabulate, type TemperatureTable } from './temperature-table';
 
 /**
  * Saturation vapour pressure over water, hPa (Bolton 1980): 6.112 exp(17.67 T/(T + 243.5)).
@@ -38,23 +39,7 @@ export function incomingLongwave(tempC: number, relativeHumidity: number, cloudi
   return allSkyEmissivity(clear, cloudiness) * STEFAN_BOLTZMANN * tk * tk * tk * tk;
 }
 
-/** Lowest and highest air temperature tabulated for the emissivity, °C; values outside are clamped. */
-export const EMISSIVITY_TABLE_MIN_C = -80;
-export const EMISSIVITY_TABLE_MAX_C = 60;
-export const EMISSIVITY_TABLE_STEP_C = 0.05;
-
-/** Saturated clear-sky emissivity tabulated every 0.05 K (interpolation error < 10⁻⁶). */
-export function buildEmissivityTable(): Float64Array {
-  const n = Math.round((EMISSIVITY_TABLE_MAX_C - EMISSIVITY_TABLE_MIN_C) / EMISSIVITY_TABLE_STEP_C) + 2;
-  const table = new Float64Array(n);
-  for (let i = 0; i < n; i++) table[i] = saturatedClearSkyEmissivity(EMISSIVITY_TABLE_MIN_C + i * EMISSIVITY_TABLE_STEP_C);
-  return table;
-}
-
-/** Reads the emissivity table at an air temperature, °C (clamped to the table range). */
-export function readEmissivity(table: Float64Array, tempC: number): number {
-  const t = tempC < EMISSIVITY_TABLE_MIN_C ? EMISSIVITY_TABLE_MIN_C : tempC > EMISSIVITY_TABLE_MAX_C ? EMISSIVITY_TABLE_MAX_C : tempC;
-  const x = (t - EMISSIVITY_TABLE_MIN_C) / EMISSIVITY_TABLE_STEP_C;
-  const i = x | 0;
-  return table[i] + (table[i + 1] - table[i]) * (x - i);
+/** Saturated clear-sky emissivity of the air from −80 to 60 °C every 0.05 K (interpolation error < 10⁻⁶). */
+export function buildEmissivityTable(): TemperatureTable {
+  return tabulate(saturatedClearSkyEmissivity, -80, 60, 0.05);
 }

@@ -22,11 +22,22 @@ export interface BandMonthSummary {
   meanAlbedo: number | null;
   /** Mean shortwave absorbed by snow and ice per m² of band, W m⁻². */
   meanAbsorbedShortwaveWm2: number;
+  rainfallMm: number;
+  /** Snow melted at the surface before retention and refreezing. */
+  surfaceMeltMm: number;
+  refrozenMm: number;
+  /** Net losses to the air (negative: deposition, condensation). */
+  sublimationMm: number;
+  evaporationMm: number;
+  /** Mean snow-covered share of the band. */
+  meanSnowCoverFraction: number;
 }
 
+const SUMMED = ['snowMeltMm', 'iceMeltMm', 'debrisIceMeltMm', 'rainMm', 'snowfallMm', 'rainfallMm', 'surfaceMeltMm', 'refrozenMm', 'sublimationMm', 'evaporationMm'] as const;
+
 /**
- * Per band × calendar month totals by source, with mean albedo and absorbed shortwave — the
- * figures a run stores. Rows are ordered by band, then month.
+ * Per band × calendar month totals by source, with mean albedo, absorbed shortwave and snow
+ * cover — the figures a run stores. Rows are ordered by band, then month.
  */
 export function summariseByMonth(result: SimulationResult): BandMonthSummary[] {
   const { dayCount: nd, bandCount, bandDay, bands, startDate } = result;
@@ -40,6 +51,7 @@ export function summariseByMonth(result: SimulationResult): BandMonthSummary[] {
       if (!row) return;
       row.meanAlbedo = albedoWeight > 0 ? albedoSum / albedoWeight : null;
       row.meanAbsorbedShortwaveWm2 /= row.days;
+      row.meanSnowCoverFraction /= row.days;
       rows.push(row);
     };
     for (let d = 0; d < nd; d++) {
@@ -48,18 +60,16 @@ export function summariseByMonth(result: SimulationResult): BandMonthSummary[] {
         row = {
           bandIndex: b, month: monthOf[d], days: 0, snowMeltMm: 0, iceMeltMm: 0, debrisIceMeltMm: 0, rainMm: 0, snowfallMm: 0,
           runoffMm: 0, snowMeltM3: 0, iceMeltM3: 0, debrisIceMeltM3: 0, rainM3: 0, runoffM3: 0, meanAlbedo: null, meanAbsorbedShortwaveWm2: 0,
+          rainfallMm: 0, surfaceMeltMm: 0, refrozenMm: 0, sublimationMm: 0, evaporationMm: 0, meanSnowCoverFraction: 0,
         };
         albedoWeight = 0;
         albedoSum = 0;
       }
       const i = b * nd + d;
       row.days += 1;
-      row.snowMeltMm += bandDay.snowMeltMm[i];
-      row.iceMeltMm += bandDay.iceMeltMm[i];
-      row.debrisIceMeltMm += bandDay.debrisIceMeltMm[i];
-      row.rainMm += bandDay.rainMm[i];
-      row.snowfallMm += bandDay.snowfallMm[i];
+      for (const field of SUMMED) row[field] += bandDay[field][i];
       row.meanAbsorbedShortwaveWm2 += bandDay.absorbedShortwaveWm2[i];
+      row.meanSnowCoverFraction += bandDay.snowCoverFraction[i];
       const incoming = bandDay.incomingShortwaveWm2[i];
       if (bandDay.albedo[i] > 0 && incoming > 0) {
         albedoSum += bandDay.albedo[i] * incoming;

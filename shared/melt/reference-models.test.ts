@@ -15,9 +15,10 @@ describe('degree-day model (Hock 2003; Braithwaite 1995; Anderson & Anderson 201
   it('debris at h = H* halves it', () => {
     expect(r.bandDay.debrisIceMeltMm[0] / 0.5).toBeCloseTo(DEFAULT_PARAMETERS.degreeDayIce * 5 * 0.5, 9);
   });
-  it('snow melts DDF_snow × T per day', () => {
+  it('snow melts DDF_snow × T per day at the surface, and drains once the pack holds all it can', () => {
     const snowy = simulateDegreeDay({ ...input, initialState: { sweMm: [500] } });
-    expect(snowy.bandDay.snowMeltMm[0]).toBeCloseTo(DEFAULT_PARAMETERS.degreeDaySnow * 5, 9);
+    expect(snowy.bandDay.surfaceMeltMm[0]).toBeCloseTo(DEFAULT_PARAMETERS.degreeDaySnow * 5, 9);
+    expect(snowy.bandTotals.snowMeltMm[0]).toBeLessThan(snowy.bandTotals.surfaceMeltMm[0]);
   });
 });
 

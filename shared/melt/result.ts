@@ -1,8 +1,26 @@
 /** Result of a run. Per band per day arrays are band-major: value of band b on day d is at b·dayCount + d. */
 
+import type { StartReport } from './spin-up';
+import type { EngineState } from './state-schema';
+import type { ShortwaveSource } from './schema';
+
+/**
+ * Per band per day. Runoff by source (mm w.e. over the band): snowMeltMm (snowmelt that drained
+ * from the pack), iceMeltMm, debrisIceMeltMm, rainMm (rain that ran off, directly or through the
+ * pack). Mass: snowfallMm, rainfallMm; sweMm and liquidWaterMm at the end of the day (sweMm
+ * includes the liquid water held in the pack); surfaceMeltMm (snow melted at the surface, before
+ * retention and refreezing), refrozenMm; sublimationMm and evaporationMm (net losses to the air,
+ * negative for deposition and condensation), of which iceVapourLossMm came from glacier ice.
+ * Energy: daily means over the band's snow and ice surfaces (W m⁻²); absorbedShortwaveWm2 per m²
+ * of band; albedo shortwave-weighted. snowCoverFraction is the daily mean snow-covered share of
+ * the band; debrisSurfaceMaxC the day's highest debris surface temperature (0 when no debris was
+ * exposed); airTemperatureC the day's mean air temperature at the band's mean elevation.
+ */
 export const BAND_DAY_FIELDS = [
   'snowMeltMm', 'iceMeltMm', 'debrisIceMeltMm', 'rainMm', 'snowfallMm', 'sweMm', 'albedo',
   'incomingShortwaveWm2', 'netShortwaveWm2', 'absorbedShortwaveWm2', 'netLongwaveWm2', 'sensibleHeatWm2',
+  'rainfallMm', 'liquidWaterMm', 'surfaceMeltMm', 'refrozenMm', 'sublimationMm', 'evaporationMm', 'iceVapourLossMm',
+  'latentHeatWm2', 'snowCoverFraction', 'debrisSurfaceMaxC', 'airTemperatureC',
 ] as const;
 export type BandDayField = (typeof BAND_DAY_FIELDS)[number];
 
@@ -13,7 +31,13 @@ export const SOURCE_FIELD: Record<Source, BandDayField> = {
   snow: 'snowMeltMm', ice: 'iceMeltMm', debrisIce: 'debrisIceMeltMm', rain: 'rainMm',
 };
 
-export const BAND_TOTAL_FIELDS = ['snowMeltMm', 'iceMeltMm', 'debrisIceMeltMm', 'rainMm', 'snowfallMm', 'runoffMm', 'sweStartMm', 'sweEndMm'] as const;
+export const BAND_TOTAL_FIELDS = [
+  'snowMeltMm', 'iceMeltMm', 'debrisIceMeltMm', 'rainMm', 'snowfallMm', 'runoffMm', 'sweStartMm', 'sweEndMm',
+  'rainfallMm', 'surfaceMeltMm', 'refrozenMm', 'sublimationMm', 'evaporationMm', 'iceVapourLossMm',
+] as const;
+
+/** Band totals summed from the per-day field of the same name. */
+const SUMMED_FIELDS = ['snowfallMm', 'rainfallMm', 'surfaceMeltMm', 'refrozenMm', 'sublimationMm', 'evaporationMm', 'iceVapourLossMm'] as const;
 export type BandTotalField = (typeof BAND_TOTAL_FIELDS)[number];
 
 export type MeltModel = 'energy-balance' | 'degree-day' | 'enhanced-temperature-index';
@@ -49,13 +73,24 @@ export interface SimulationResult {
   /** Per band totals over the run, mm w.e. over the band area; runoff = all melt + rain. */
   bandTotals: Record<BandTotalField, Float64Array>;
   bands: BandInfo;
+  /** How the run started: spin-up (from the record or a repeated first year), initial SWE or a state. */
+  start: StartReport;
+  /** Where the shortwave came from. */
+  shortwaveSource: ShortwaveSource;
+  /** The state at the end of the period, to start a later run from. */
+  endState: EngineState;
 }
 
 function record<K extends string>(keys: readonly K[], length: number): Record<K, Float64Array> {
   return Object.fromEntries(keys.map((k) => [k, new Float64Array(length)])) as Record<K, Float64Array>;
 }
 
-export function allocateResult(model: MeltModel, engineVersion: string, startDate: string, dayCount: number, bands: BandInfo): SimulationResult {
+export interface RunDescription {
+  start: StartReport;
+  shortwaveSource: ShortwaveSource;
+}
+
+export function allocateResult(model: MeltModel, engineVersion: string, startDate: string, dayCount: number, bands: BandInfo, description: RunDescription): SimulationResult {
   const bandCount = bands.areaM2.length;
   const totalKeys = [...SOURCES, 'total'] as const;
   return {
@@ -64,10 +99,13 @@ export function allocateResult(model: MeltModel, engineVersion: string, startDat
     catchmentDaily: { volumeM3: record(totalKeys, dayCount), dischargeM3s: record(totalKeys, dayCount) },
     bandTotals: record(BAND_TOTAL_FIELDS, bandCount),
     bands,
+    start: description.start,
+    shortwaveSource: description.shortwaveSource,
+    endState: {} as EngineState,
   };
 }
 
-/** Fills catchment daily series and band totals from the per band per day arrays. */
+/** Fills catchment daily series and band totals from the per band per day arrays; `initialSweMm` is the pack water at the period's start. */
 export function summarise(result: SimulationResult, initialSweMm: Float64Array): void {
   const { dayCount, bandCount, bandDay, catchmentDaily, bandTotals, bands } = result;
   for (const source of SOURCES) {
@@ -85,10 +123,15 @@ export function summarise(result: SimulationResult, initialSweMm: Float64Array):
       bandTotals.runoffMm[b] += sum;
     }
   }
+  for (const field of SUMMED_FIELDS) {
+    const values = bandDay[field];
+    for (let b = 0; b < bandCount; b++) {
+      let sum = 0;
+      for (let d = 0; d < dayCount; d++) sum += values[b * dayCount + d];
+      bandTotals[field][b] = sum;
+    }
+  }
   for (let b = 0; b < bandCount; b++) {
-    let snowfall = 0;
-    for (let d = 0; d < dayCount; d++) snowfall += bandDay.snowfallMm[b * dayCount + d];
-    bandTotals.snowfallMm[b] = snowfall;
     bandTotals.sweStartMm[b] = initialSweMm[b];
     bandTotals.sweEndMm[b] = dayCount > 0 ? bandDay.sweMm[b * dayCount + dayCount - 1] : initialSweMm[b];
   }

@@ -50,7 +50,7 @@ describe('simulationInputSchema refuses bad input, naming field and problem', ()
     expect(refusal({ ...base, forcing: { ...base.forcing, relativeHumidity: Array(48).fill(70) } })).toMatch(/forcing\.relativeHumidity\[0\]: .*divide percent by 100/);
   });
   it('a parameter outside its range or unknown', () => {
-    expect(refusal({ ...base, parameters: { transmissivity: 1.5 } })).toMatch(/parameters\.transmissivity/);
+    expect(refusal({ ...base, parameters: { turbidity: 1.5 } })).toMatch(/parameters\.turbidity/);
     expect(refusal({ ...base, parameters: { lapse: -6 } })).toMatch(/parameters: .*lapse/);
   });
   it('monthly scenario values that are not twelve', () => {

@@ -1,11 +1,14 @@
 import { prepareRun, type PreparedRun } from './prepare';
 import { buildSunTrack } from './sun-track';
-import { runHours, type ProgressCallback } from './engine-loop';
+import { buildShortwaveForcing } from './shortwave-forcing';
+import { buildLoopContext } from './loop-context';
+import { runSegments, type ProgressCallback } from './engine-loop';
 import { allocateResult, summarise, type MeltModel, type SimulationResult } from './result';
+import { stateToJson } from './state';
 import { ENGINE_VERSION } from './version';
 
 export interface SimulateOptions {
-  /** Called after each simulated calendar month and at the end. */
+  /** Called after each simulated calendar month (spin-up included) and at the end. */
   onProgress?: ProgressCallback;
 }
 
@@ -23,16 +26,19 @@ function bandInfo(run: PreparedRun) {
 function runModel(raw: unknown, model: MeltModel, options: SimulateOptions): SimulationResult {
   const run = prepareRun(raw);
   const { catchment } = run.input;
-  const sun = buildSunTrack(run.timeline, catchment.latitudeDeg, catchment.longitudeDeg, run.params.transmissivity);
-  const result = allocateResult(model, ENGINE_VERSION, run.timeline.startDate, run.timeline.dayCount, bandInfo(run));
-  runHours(run, sun, model, result, options.onProgress);
-  summarise(result, run.initialSweMm);
+  const sun = buildSunTrack(run.timeline, catchment.latitudeDeg, catchment.longitudeDeg);
+  const shortwave = buildShortwaveForcing(run.timeline, sun, run.forcing, run.params, run.stationPressurePa, run.input.shortwaveSource);
+  const result = allocateResult(model, ENGINE_VERSION, run.recordStartDate, run.recordDays, bandInfo(run), { start: run.startReport, shortwaveSource: shortwave.source });
+  const sweStart = runSegments(buildLoopContext(run, sun, shortwave, model), result, options.onProgress);
+  summarise(result, sweStart);
+  result.endState = stateToJson(run.state);
   return result;
 }
 
 /**
- * Simulates every band hour by hour with the energy balance (see README.md).
- * Throws SimulationInputError naming each invalid field; the result never contains NaN.
+ * Simulates every band hour by hour with the energy balance (see README.md), after a spin-up
+ * unless the input gives a start state. Throws SimulationInputError naming each invalid field;
+ * the result never contains NaN.
  *
  * @param input a simulation input (see simulationInputSchema); validated here
  */
@@ -43,7 +49,8 @@ export function simulate(input: unknown, options: SimulateOptions = {}): Simulat
 /**
  * Reference model: hourly degree-day melt, M = DDF/24 · max(T, 0) per hour, with snow and ice
  * factors (Hock 2003) and the hyperbolic debris reduction H* / (H* + h) (Anderson & Anderson 2016).
- * Same inputs, snowpack and outputs as simulate; energy fluxes in the result are 0 apart from shortwave.
+ * Same inputs, snowpack (cover, retention) and outputs as simulate, without refreezing or vapour
+ * exchange; energy fluxes in the result are 0 apart from shortwave.
  */
 export function simulateDegreeDay(input: unknown, options: SimulateOptions = {}): SimulationResult {
   return runModel(input, 'degree-day', options);

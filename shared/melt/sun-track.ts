@@ -1,7 +1,5 @@
 import { DEG } from './constants';
 import { solarPosition } from './solar-position';
-import { MIN_COS_ZENITH } from './shortwave';
-import { sunAngleFactor } from './snow-albedo';
 import type { Timeline } from './timeline';
 
 /** The sun for every simulated hour, computed once for the catchment (not per band). */
@@ -10,10 +8,9 @@ export interface SunTrack {
   /** sin Z cos φsun and sin Z sin φsun: with the band's slope terms they give cos θ without trigonometry. */
   sinZenithCosAzimuth: Float64Array;
   sinZenithSinAzimuth: Float64Array;
-  /** ln ψ / max(cos Z, 0.035): the beam's exponent per unit pressure ratio (Hock 1999). */
-  beamExponent: Float64Array;
-  /** (1 − cos Z)^1.2 of the snow-albedo sun-angle term (Gardner & Sharp 2010). */
-  albedoSunFactor: Float64Array;
+  /** Sun azimuth, degrees clockwise from north, and elevation above the horizon, degrees (for terrain horizons). */
+  azimuthDeg: Float64Array;
+  elevationDeg: Float64Array;
 }
 
 /** Trigonometry of one sun position, shared by the engine and anything that checks it. */
@@ -28,16 +25,15 @@ export function sunGeometry(zenithDeg: number, azimuthDeg: number): [cosZ: numbe
  * Sun position at the middle of each local standard-time hour (suncalc via solarPosition).
  * The Date passed to suncalc is reused, so only suncalc's own small result objects are created.
  */
-export function buildSunTrack(timeline: Timeline, latDeg: number, lonDeg: number, transmissivity: number): SunTrack {
+export function buildSunTrack(timeline: Timeline, latDeg: number, lonDeg: number): SunTrack {
   const hours = timeline.dayCount * 24;
   const track: SunTrack = {
     cosZenith: new Float64Array(hours),
     sinZenithCosAzimuth: new Float64Array(hours),
     sinZenithSinAzimuth: new Float64Array(hours),
-    beamExponent: new Float64Array(hours),
-    albedoSunFactor: new Float64Array(hours),
+    azimuthDeg: new Float64Array(hours),
+    elevationDeg: new Float64Array(hours),
   };
-  const logPsi = Math.log(transmissivity);
   const instant = new Date(0);
   for (let d = 0; d < timeline.dayCount; d++) {
     for (let k = 0; k < 24; k++) {
@@ -48,8 +44,8 @@ export function buildSunTrack(timeline: Timeline, latDeg: number, lonDeg: number
       track.cosZenith[h] = cosZ;
       track.sinZenithCosAzimuth[h] = sx;
       track.sinZenithSinAzimuth[h] = sy;
-      track.beamExponent[h] = logPsi / Math.max(cosZ, MIN_COS_ZENITH);
-      track.albedoSunFactor[h] = sunAngleFactor(cosZ);
+      track.azimuthDeg[h] = azimuthDeg;
+      track.elevationDeg[h] = 90 - zenithDeg;
     }
   }
   return track;

@@ -1,9 +1,11 @@
 import { describe, expect, it } from 'vitest';
-import { snowAlbedo, cleanSnowAlbedo, impurityAlbedoChange } from './snow-albedo';
-import { buildSnowAlbedoTable, readTable, tablePosition } from './albedo-table';
+import { snowAlbedo, cleanSnowAlbedo, impurityAlbedoChange, cloudAlbedoChange, thinSnowAlbedo } from './snow-albedo';
+import { cloudTermTable, loadPosition, radiusPosition, readClean, readCloudTerm, readImpurity, snowAlbedoTable } from './albedo-table';
+import { readTable } from './temperature-table';
 import { iceAlbedo } from './ice-albedo';
 import { DEFAULT_PARAMETERS } from './parameters';
-import { buildEmissivityTable, readEmissivity, saturatedClearSkyEmissivity } from './longwave';
+import { buildEmissivityTable, saturatedClearSkyEmissivity } from './longwave';
+import { saturationOverIce, surfaceTablePosition, surfaceVapourTable } from './vapour';
 
 const clean = { blackCarbonNgG: 0, dustUgG: 0 };
 const drop = (radius: number, bc: number) => snowAlbedo({ grainRadiusUm: radius, ...clean }) - snowAlbedo({ grainRadiusUm: radius, blackCarbonNgG: bc, dustUgG: 0 });
@@ -60,21 +62,58 @@ describe('snow albedo (Gardner & Sharp 2010)', () => {
   });
 });
 
-describe('albedo table used by the hour loop', () => {
-  it('matches the formula within 2·10⁻⁵ between nodes', () => {
-    const table = buildSnowAlbedoTable(1500, 500);
-    for (let r = 30; r <= 1500; r += 7.3) {
-      const pos = tablePosition(r);
-      expect(Math.abs(readTable(table.clean, pos) - cleanSnowAlbedo(r))).toBeLessThan(2e-5);
-      expect(Math.abs(readTable(table.impurity, pos) - impurityAlbedoChange(r, 500))).toBeLessThan(2e-5);
-    }
+describe('cloud and thin snow', () => {
+  it('cloud raises the albedo of snow by the Gardner & Sharp 2010 cloud term, rising with optical thickness (hand-computed)', () => {
+    const clean = cleanSnowAlbedo(500);
+    expect(cloudAlbedoChange(clean, 0, 0)).toBe(0);
+    expect(cloudAlbedoChange(clean, 0, 1)).toBeCloseTo((0.1 * clean ** 1.3) / 2.5 ** clean, 12);
+    const thin = cloudAlbedoChange(clean, 0, 3);
+    const thick = cloudAlbedoChange(clean, 0, 30);
+    expect(thick).toBeGreaterThan(thin);
+    expect(thick).toBeCloseTo((0.1 * 30 * clean ** 1.3) / 46 ** clean, 12);
+  });
+  it('under thick cloud the sun angle no longer matters (effective cos Z = 0.64)', () => {
+    const low = snowAlbedo({ grainRadiusUm: 300, blackCarbonNgG: 0, dustUgG: 0, cosZenith: 0.2, cloudOpticalThickness: 20 });
+    const high = snowAlbedo({ grainRadiusUm: 300, blackCarbonNgG: 0, dustUgG: 0, cosZenith: 0.9, cloudOpticalThickness: 20 });
+    expect(low).toBeCloseTo(high, 12);
+  });
+  it('thin snow over ice shows the ice (Oerlemans & Knap 1998, d* = 3.2 cm): at d = d* the albedo is 63 % of the way back to the ice', () => {
+    expect(thinSnowAlbedo(0.8, 0.34, 0.032, 0.032)).toBeCloseTo(0.8 - 0.46 * Math.exp(-1), 12);
+    expect(thinSnowAlbedo(0.8, 0.34, 0.5, 0.032)).toBeCloseTo(0.8, 6);
   });
 });
 
-describe('air emissivity table (Brutsaert 1975)', () => {
-  it('matches the formula within 10⁻⁶ from −40 to 40 °C', () => {
-    const table = buildEmissivityTable();
-    for (let t = -40; t <= 40; t += 0.37) expect(Math.abs(readEmissivity(table, t) - saturatedClearSkyEmissivity(t))).toBeLessThan(1e-6);
+describe('tables used by the hour loop', () => {
+  const table = snowAlbedoTable();
+  it('snow albedo: clean column within 2·10⁻⁵ and impurity change within 2·10⁻³ of the formula, 30 … 3000 µm × 0 … 50 000 ng g⁻¹', () => {
+    for (let r = 30; r <= 3000; r += 37.3) {
+      const pos = radiusPosition(r);
+      expect(Math.abs(readClean(table, pos) - cleanSnowAlbedo(r))).toBeLessThan(2e-5);
+      for (const load of [0, 3, 30, 170, 900, 4000, 21_000, 50_000]) {
+        expect(Math.abs(readImpurity(table, pos, loadPosition(load)) - impurityAlbedoChange(r, load))).toBeLessThan(2e-3);
+      }
+    }
+  });
+  it('cloud term within 10⁻⁴ of the formula', () => {
+    const cloud = cloudTermTable();
+    for (const r of [60, 300, 1200]) for (const load of [0, 300, 3000]) for (const tau of [0.5, 4, 17, 60]) {
+      const clean = cleanSnowAlbedo(r);
+      const change = impurityAlbedoChange(r, load);
+      expect(Math.abs(readCloudTerm(cloud, clean, clean + change, tau, Math.log(1 + 1.5 * tau)) - cloudAlbedoChange(clean, change, tau))).toBeLessThan(1e-4);
+    }
+  });
+  it('air emissivity (Brutsaert 1975) within 10⁻⁶ from −40 to 40 °C', () => {
+    const emissivity = buildEmissivityTable();
+    for (let t = -40; t <= 40; t += 0.37) expect(Math.abs(readTable(emissivity, t) - saturatedClearSkyEmissivity(t))).toBeLessThan(1e-6);
+  });
+  it('saturation over ice at the surface within 10⁻² Pa from −60 to 0 °C', () => {
+    const vapour = surfaceVapourTable();
+    for (let t = -60; t <= 0; t += 0.37) {
+      const x = surfaceTablePosition(t);
+      const i = x | 0;
+      const value = vapour.pressurePa[i] + (vapour.pressurePa[i + 1] - vapour.pressurePa[i]) * (x - i);
+      expect(Math.abs(value - saturationOverIce(t))).toBeLessThan(1e-2);
+    }
   });
 });
 

@@ -71,15 +71,22 @@ export const commentSchema = z.object({
 export const rangedSchema = z.object({ value: z.number().nullable(), low: z.number().nullable(), high: z.number().nullable() });
 export type Ranged = z.infer<typeof rangedSchema>;
 
-/** The headline numbers of one variant against the baseline. */
-export const headlineSchema = z.object({
-  variantName: z.string(),
-  addedVolumeM3: rangedSchema,
-  addedMeltSeasonDischargeM3s: rangedSchema,
-  shareOfSeasonalRunoffPct: rangedSchema,
-  timingShiftDays: rangedSchema,
-  meltSeason: z.string(),
-});
+/**
+ * The headline numbers of one variant against the baseline. Versions published before the figure
+ * was renamed call the added runoff "shareOfSeasonalRunoffPct"; they read as the same number.
+ */
+export const headlineSchema = z.preprocess(
+  (v) => (v && typeof v === 'object' && 'shareOfSeasonalRunoffPct' in v && !('addedRunoffPercentOfBaseline' in v)
+    ? { ...v, addedRunoffPercentOfBaseline: (v as Record<string, unknown>).shareOfSeasonalRunoffPct } : v),
+  z.object({
+    variantName: z.string(),
+    addedVolumeM3: rangedSchema,
+    addedMeltSeasonDischargeM3s: rangedSchema,
+    addedRunoffPercentOfBaseline: rangedSchema,
+    timingShiftDays: rangedSchema,
+    meltSeason: z.string(),
+  }),
+);
 export type Headline = z.infer<typeof headlineSchema>;
 
 const cell = z.union([z.string(), z.number(), z.null()]);
@@ -124,6 +131,11 @@ export const assumptionsSchema = z.object({
     ensembleSize: z.number().int(),
   })),
   engineVersion: z.string(),
+  /** How each run was started, radiated, calibrated and scored (versions published before engine 2.0 have none). */
+  setUp: z.array(z.object({
+    scenarioName: z.string(),
+    lines: z.array(z.object({ label: z.string(), value: z.string() })),
+  })).default([]),
 });
 export type Assumptions = z.infer<typeof assumptionsSchema>;
 
@@ -151,6 +163,8 @@ export const briefingSnapshotSchema = z.object({
   headlines: z.array(headlineSchema),
   sections: z.array(snapshotSectionSchema),
   assumptions: assumptionsSchema,
+  /** Shown above the numbers: runs whose parameters are not the catchment's calibration. */
+  warnings: z.array(z.string()).default([]),
   cautions: z.array(z.string()),
 });
 export type BriefingSnapshot = z.infer<typeof briefingSnapshotSchema>;

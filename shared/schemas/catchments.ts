@@ -3,6 +3,15 @@ import { isTimeZone } from '../melt/calendar';
 
 const trimmed = (max: number) => z.string().trim().max(max, `must be at most ${max} characters`);
 
+/**
+ * Impurities already in the catchment's fresh snow today, which every baseline carries. Defaults:
+ * typical of High Mountain Asian fresh snow — black carbon tens of ng/g (4–80 ng/g on the Tibetan
+ * Plateau, Xu et al. 2009) and dust of order 10 µg/g (Qian et al. 2015 review) [memory]; the
+ * consultant sets the catchment's own.
+ */
+export const DEFAULT_BACKGROUND_LOADS = { blackCarbonSnowNgG: 30, dustSnowUgG: 10 } as const;
+export const BACKGROUND_LOADS_SOURCE = 'Typical of fresh snow in High Mountain Asia: black carbon 4–80 ng/g on the Tibetan Plateau (Xu et al. 2009); dust of order 10 µg/g (Qian et al. 2015)';
+
 /** What a consultant enters for a catchment; the server and the form both validate with it. */
 export const catchmentFormSchema = z.object({
   name: trimmed(120).min(1, 'is required'),
@@ -13,6 +22,10 @@ export const catchmentFormSchema = z.object({
   stationName: trimmed(120).min(1, 'is required'),
   stationElevationM: z.number({ message: 'must be a number' }).min(-500, 'must be between −500 and 9000 m').max(9000, 'must be between −500 and 9000 m'),
   outletDescription: trimmed(500).default(''),
+  backgroundBlackCarbonNgG: z.number({ message: 'must be a number' }).min(0, 'must be at least 0 ng/g').max(50_000, 'must be at most 50 000 ng/g')
+    .default(DEFAULT_BACKGROUND_LOADS.blackCarbonSnowNgG),
+  backgroundDustUgG: z.number({ message: 'must be a number' }).min(0, 'must be at least 0 µg/g').max(5_000, 'must be at most 5 000 µg/g')
+    .default(DEFAULT_BACKGROUND_LOADS.dustSnowUgG),
 });
 export type CatchmentForm = z.input<typeof catchmentFormSchema>;
 export type CatchmentFields = z.output<typeof catchmentFormSchema>;

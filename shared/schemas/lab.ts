@@ -145,25 +145,29 @@ export const sweepResultSchema = z.object({
 export type SweepResultReply = z.infer<typeof sweepResultSchema>;
 
 const periodReply = z.object({ from: z.string(), to: z.string() });
+/** A parameter's behavioural range around the calibrated value; open when the data do not bound it within the sampled region. */
+const parameterRangeSchema = z.object({ key: z.string(), best: z.number(), low: z.number(), high: z.number(), open: z.boolean() });
+const searchFacts = {
+  keys: z.array(z.string()),
+  set: setReplySchema,
+  evaluations: z.number(),
+  converged: z.boolean(),
+  atBounds: z.array(z.string()),
+  ranges: z.array(parameterRangeSchema),
+};
 export const calibrationResultSchema = z.discriminatedUnion('target', [
   z.object({
     target: z.literal('discharge'),
-    keys: z.array(z.string()),
-    set: setReplySchema,
+    ...searchFacts,
     startScores: dischargeEvaluationSchema,
     scores: dischargeEvaluationSchema,
-    evaluations: z.number(),
-    converged: z.boolean(),
     validation: z.object({ period: periodReply, before: dischargeEvaluationSchema, after: dischargeEvaluationSchema }).nullable(),
   }),
   z.object({
     target: z.literal('stakes'),
-    keys: z.array(z.string()),
-    set: setReplySchema,
+    ...searchFacts,
     start: stakeComparisonSchema,
     result: stakeComparisonSchema,
-    evaluations: z.number(),
-    converged: z.boolean(),
     validation: z.object({ period: periodReply, before: stakeComparisonSchema, after: stakeComparisonSchema }).nullable(),
   }),
 ]);

@@ -9,7 +9,8 @@ export const totalsSchema = z.object({
   addedVolumeM3: z.number(),
   addedVolumeMillionM3: z.number(),
   meanAddedDischargeM3s: z.number(),
-  shareOfSeasonalRunoff: z.number(),
+  addedShareOfBaselineRunoff: z.number(),
+  addedShareOfVariantRunoff: z.number(),
   baselineHalfMeltDate: z.string().nullable(),
   variantHalfMeltDate: z.string().nullable(),
   timingShiftDays: z.number().nullable(),
@@ -19,7 +20,28 @@ export const totalsSchema = z.object({
 export type Totals = z.infer<typeof totalsSchema>;
 
 /** Figures of the totals table that get a 5–95 % range from an ensemble. */
-export const RANGED_TOTALS = ['addedDepthMm', 'addedVolumeM3', 'meanAddedDischargeM3s', 'shareOfSeasonalRunoff', 'meanExtraAbsorbedShortwaveWm2', 'timingShiftDays'] as const;
+export const RANGED_TOTALS = ['addedDepthMm', 'addedVolumeM3', 'meanAddedDischargeM3s', 'addedShareOfBaselineRunoff', 'meanExtraAbsorbedShortwaveWm2', 'timingShiftDays'] as const;
+
+/** How a run was set up, checked and scored: what a reviewer asks before trusting the added melt. */
+export const runSetUpSchema = z.object({
+  /** Null for runs made before engine 2.0. */
+  start: z.object({ label: z.string(), note: z.string(), adequate: z.boolean() }).nullable(),
+  shortwaveSource: z.string().nullable(),
+  calibration: z.object({ status: z.enum(['calibrated', 'differs', 'uncalibrated']), message: z.string() }),
+  /** The baseline's daily discharge against the catchment's observed discharge over the period; null without observations. */
+  skill: z.object({
+    kge: z.number(), r: z.number(), alpha: z.number(), beta: z.number(), nse: z.number(), biasPercent: z.number(),
+    days: z.number().int(), from: z.string(), to: z.string(), source: z.string(),
+  }).nullable(),
+});
+export type RunSetUp = z.infer<typeof runSetUpSchema>;
+
+/** Where the water went over the period, mm w.e. averaged over the catchment. */
+export const waterBalanceSchema = z.object({
+  snowfallMm: z.number(), rainfallMm: z.number(), surfaceMeltMm: z.number(), refrozenMm: z.number(),
+  sublimationMm: z.number(), evaporationMm: z.number(), runoffMm: z.number(),
+});
+export type WaterBalance = z.infer<typeof waterBalanceSchema>;
 
 const bySource = z.object({ snow: z.number(), ice: z.number(), debrisIce: z.number(), rain: z.number() });
 
@@ -31,6 +53,8 @@ export const runResultsSchema = z.object({
   dayCount: z.number().int(),
   bands: z.array(z.object({ elevationM: z.number(), areaM2: z.number() })),
   totals: totalsSchema,
+  setUp: runSetUpSchema,
+  waterBalance: z.object({ baseline: waterBalanceSchema, variant: waterBalanceSchema }),
   /** Daily mean discharge, m³ s⁻¹. */
   dischargeM3s: z.object({ baseline: numbers, variant: numbers }),
   /** Cumulative added runoff volume through the period, m³. */
@@ -54,6 +78,8 @@ export const runResultsSchema = z.object({
     dischargeM3s: z.object({ p5: numbers, p50: numbers, p95: numbers }),
     addedDischargeM3s: z.object({ p5: numbers, p50: numbers, p95: numbers }),
     totals: z.record(z.string(), range),
+    /** Why the central run lies outside the 5–95 % range of added runoff, when it does. */
+    note: z.string().nullable(),
   }).nullable(),
   cautions: z.array(z.string()),
 });

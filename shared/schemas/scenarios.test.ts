@@ -11,7 +11,7 @@ function firstIssue(value: unknown) {
 describe('scenario changes', () => {
   it('fill unset changes with no-change defaults and the schema version', () => {
     const changes = scenarioChangesSchema.parse({});
-    expect(changes).toMatchObject({ schemaVersion: 1, temperatureDeltaC: 0, precipitationFactor: 1, blackCarbonSnowNgG: 0, period: null, parameters: {} });
+    expect(changes).toMatchObject({ schemaVersion: 2, temperatureDeltaC: 0, precipitationFactor: 1, blackCarbonSnowNgG: 0, period: null, parameters: {} });
   });
 
   it('accept constant or twelve monthly values', () => {

@@ -2,8 +2,12 @@ import { z } from 'zod';
 import { PARAMETER_NAMES, PARAMETER_SPECS, type ParameterName } from '../melt/parameters';
 import { daysBetween, isIsoDate } from '../melt/calendar';
 
-/** Version of the stored scenario-changes JSON; bump it (and migrate old rows) when its shape changes. */
-export const SCENARIO_SCHEMA_VERSION = 1;
+/**
+ * Version of the stored scenario-changes JSON; bump it (and migrate old rows) when its shape changes.
+ * 2: impurity loads in snow are added to the catchment's background loads (concentration in fresh
+ * snow), dry deposition rates join them, and the parameters retired with engine 2.0 are gone.
+ */
+export const SCENARIO_SCHEMA_VERSION = 2;
 
 const number = (what: string, min: number, max: number, unit: string) =>
   z.number({ message: `must be a number (${what})` })
@@ -62,15 +66,25 @@ export const scenarioChangesSchema = z.object({
   /** The global warming level preset the temperature change started from, if any. */
   warmingLevel: z.enum(WARMING_LEVELS).nullable().default(null),
   precipitationFactor: monthly('precipitation factor', 0, 5, '').default(1),
+  /** Added to the catchment's background black carbon in fresh snow, ng/g. */
   blackCarbonSnowNgG: monthly('black carbon in snow', 0, 50_000, 'ng/g').default(0),
+  /** Added black carbon on bare ice, ng/g (the user-set ice darkening rule applies). */
   blackCarbonIceNgG: monthly('black carbon on ice', 0, 50_000, 'ng/g').default(0),
   dustSnowUgG: monthly('dust in snow', 0, 5_000, 'µg/g').default(0),
   dustIceUgG: monthly('dust on ice', 0, 5_000, 'µg/g').default(0),
+  /** Dry deposition onto snow: black carbon µg m⁻² d⁻¹, dust mg m⁻² d⁻¹. */
+  blackCarbonDepositionUgM2Day: monthly('black carbon deposition', 0, 10_000, 'µg/m²/day').default(0),
+  dustDepositionMgM2Day: monthly('dust deposition', 0, 10_000, 'mg/m²/day').default(0),
   /** Loads that differ by elevation; bands outside every range keep the values above. */
   impuritiesByElevation: z.array(elevationRangeImpuritiesSchema).max(10, 'at most 10 elevation ranges').default([]),
   debrisThicknessChangeM: number('debris thickness change', -10, 10, 'm').default(0),
   debrisExtentChange: number('debris extent change', 0, 1, '(fraction of clean glacier area)').default(0),
   parameters: parameterOverridesSchema.default({}),
+  /**
+   * Stability correction of the turbulent fluxes over snow and ice (the engine's
+   * physics.stabilityCorrection); null keeps the baseline's choice, which is off unless set.
+   */
+  stabilityCorrection: z.boolean().nullable().default(null),
 }).strict();
 export type ScenarioChanges = z.output<typeof scenarioChangesSchema>;
 export type ScenarioChangesInput = z.input<typeof scenarioChangesSchema>;
@@ -128,6 +142,8 @@ export const scenarioSetupSchema = z.object({
     savedBy: z.string(),
     savedAt: z.string(),
   }).nullable(),
+  /** The catchment's background loads in fresh snow, which a scenario's snow loads add to. */
+  background: z.object({ blackCarbonSnowNgG: z.number(), dustSnowUgG: z.number() }),
 });
 export type ScenarioSetup = z.infer<typeof scenarioSetupSchema>;
 

@@ -10,4 +10,12 @@ export const CAUTIONS: readonly string[] = [
   'Extra melt from darkening draws down stored snow and ice; in the long run it is not new water.',
 ];
 
+/** Shown wherever a run darkens bare ice: the rule is the analyst's assumption, not a measured response. */
+export const ICE_DARKENING_CAUTION =
+  'Darkening of bare glacier ice is a sensitivity set by the analyst: the ice loads and the albedo each lowers them by are assumptions '
+  + 'kept within published dirty-ice albedo observations, not a measured response of this glacier.';
+
+/** Shown with every run whose parameters were never calibrated against the catchment's observations. */
+export const CALIBRATION_HEADING = 'Calibration';
+
 export const CAUTIONS_HEADING = 'Cautions';

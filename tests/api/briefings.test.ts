@@ -2,7 +2,7 @@ import { PDFParse } from 'pdf-parse';
 import type TestAgent from 'supertest/lib/agent';
 import type request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { CAUTIONS } from '../../shared/text/cautions';
+import { CAUTIONS, ICE_DARKENING_CAUTION } from '../../shared/text/cautions';
 import { SECTIONS, catchmentWithRun } from '../support/briefings';
 import { createOrganisation, signedInAgent, unique, type TestOrg } from '../support/factories';
 import { giveActivePlan, inventedValleyInputs, waitForRun } from '../support/runs';
@@ -87,7 +87,10 @@ describe('publishing', () => {
     const v1 = (await consultant.get(`/api/briefings/${briefingId}/versions/1`)).body;
     expect(v1.snapshot.headlines[0].variantName).toBe('Soot 400 ng/g');
     expect(v1.snapshot.headlines[0].addedVolumeM3.value).toBeGreaterThan(0);
-    expect(v1.snapshot.cautions).toEqual(CAUTIONS);
+    expect(v1.snapshot.cautions).toEqual([...CAUTIONS, ICE_DARKENING_CAUTION]);
+    // The catchment was never calibrated: the warning stands above the numbers, and the set-up is frozen with them.
+    expect(v1.snapshot.warnings).toEqual([expect.stringMatching(/^Soot 400 ng\/g: Not calibrated/)]);
+    expect(v1.snapshot.assumptions.setUp[0].lines.map((l: { label: string }) => l.label)).toContain('Start');
 
     // Change the draft and the stored results under it: version 1 stays as it was.
     const draft = (await consultant.get(`/api/briefings/${briefingId}/draft`)).body.briefing;
@@ -209,6 +212,7 @@ describe('downloads and audit', () => {
     expect(res.headers['content-disposition']).toMatch(/attachment; filename=".*-v3\.csv"/);
     expect(res.text).toContain('Catchment,');
     expect(res.text).toContain('Version,3');
+    expect(res.text).toMatch(/\r\nCalibration,.*Not calibrated/);
     expect(res.text).toMatch(/Input hash: Soot 400 ng\/g,[0-9a-f]+/);
     expect(res.text).toContain(CAUTIONS[0]);
   });

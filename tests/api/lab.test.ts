@@ -1,9 +1,10 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Express } from 'express';
 import { createTestApp, type TestApp } from '../support/test-app';
-import { createOrganisation, signedInAgent, type TestOrg } from '../support/factories';
+import { createOrganisation, signedInAgent, unique, type TestOrg } from '../support/factories';
 import { createDemoCatchment } from '../support/lab-catchment';
 import { grantActivePlan } from '../support/paid-plan';
+import { waitForRun } from '../support/runs';
 import { calibrationHistorySchema, labJobSchema, skillReplySchema, stakeSkillReplySchema, surfaceResponseSchema, sweepResultSchema, calibrationResultSchema, type LabJob } from '../../shared/schemas/lab';
 import { nse } from '../../shared/melt/index';
 
@@ -105,7 +106,7 @@ describe('skill scores and saved calibration', () => {
   });
   it('saves an adjusted set with who saved it and the scores then, and new scenarios read it', async () => {
     const scientist = await signedInAgent(app, org.users.scientist.email);
-    const set = { parameters: { lapseRateCPerKm: -5.5, transmissivity: 0.7 }, precipitationFactor: 1.2 };
+    const set = { parameters: { lapseRateCPerKm: -5.5, temperatureRangeRadiationCoefficient: 0.17 }, precipitationFactor: 1.2 };
     const saved = await scientist.put(`/api/lab/catchments/${catchmentId}/calibration`).send({ period: season, set, note: 'hand adjusted' });
     expect(saved.status).toBe(201);
     const history = calibrationHistorySchema.parse((await scientist.get(`/api/lab/catchments/${catchmentId}/calibration`)).body);
@@ -123,13 +124,35 @@ describe('skill scores and saved calibration', () => {
     expect(setup.status).toBe(200);
     expect(setup.body.calibration).toMatchObject({ ...set, savedBy: history.current!.savedBy });
   });
+  it('marks runs on the saved calibration as calibrated and scores their baseline against the stored discharge', async () => {
+    const consultant = await signedInAgent(app, org.users.consultant.email);
+    const history = calibrationHistorySchema.parse((await consultant.get(`/api/lab/catchments/${catchmentId}/calibration`)).body);
+    const { parameters, precipitationFactor } = history.current!.set;
+    const scenarios = (await consultant.get(`/api/catchments/${catchmentId}/scenarios`)).body.scenarios;
+    const baselineId = scenarios.find((x: { isBaseline: boolean }) => x.isBaseline).id;
+    expect((await consultant.patch(`/api/catchments/${catchmentId}/scenarios/${baselineId}`).send({ changes: { period: season, parameters, precipitationFactor } })).status).toBe(200);
+    const variant = await consultant.post(`/api/catchments/${catchmentId}/scenarios`).send({ name: unique('Colder air '), changes: { period: season, parameters: { ...parameters, lapseRateCPerKm: -7 }, precipitationFactor, blackCarbonSnowNgG: 100 } });
+    const resultsOf = async (scenarioId: number) => {
+      const started = await consultant.post(`/api/catchments/${catchmentId}/runs`).send({ scenarioId });
+      expect(started.status).toBe(202);
+      const run = await waitForRun(consultant, catchmentId, started.body.run.id);
+      return (await consultant.get(`/api/catchments/${catchmentId}/runs/${run.id}/results`)).body.results;
+    };
+    const calibrated = await resultsOf(baselineId);
+    expect(calibrated.setUp.calibration).toMatchObject({ status: 'calibrated', message: expect.stringMatching(/^Calibrated: the parameters are the calibration saved on/) });
+    expect(calibrated.setUp.skill).toMatchObject({ days: 92, from: season.from, to: season.to, source: 'discharge.csv' });
+    expect(calibrated.setUp.skill.kge).toBeCloseTo(history.current!.scores.daily.kge, 6);
+    const differing = await resultsOf(variant.body.scenario.id);
+    expect(differing.setUp.calibration).toMatchObject({ status: 'differs', message: expect.stringMatching(/temperature lapse rate −7 instead of −5\.5/) });
+  });
   it('compares simulated with measured stake balances inside the climate record', async () => {
     const scientist = await signedInAgent(app, org.users.scientist.email);
     const res = await scientist.post(`/api/lab/catchments/${catchmentId}/stake-skill`).send({});
     expect(res.status).toBe(200);
     const { comparison } = stakeSkillReplySchema.parse(res.body);
-    expect(comparison.readings).toHaveLength(16);
-    expect(comparison.outsideRecord).toBe(8);
+    // Eight stakes read over the three balance years of the demo record, all inside it.
+    expect(comparison.readings).toHaveLength(24);
+    expect(comparison.outsideRecord).toBe(0);
     const errors = comparison.readings.map((r) => r.simulatedMWe - r.balanceMWe);
     expect(comparison.meanErrorMWe).toBeCloseTo(errors.reduce((a, e) => a + e, 0) / errors.length, 10);
     expect((await scientist.post(`/api/lab/catchments/${otherCatchmentId}/stake-skill`).send({})).status).toBe(404);
@@ -138,9 +161,9 @@ describe('skill scores and saved calibration', () => {
   });
   it('refuses a parameter outside its range, naming the field', async () => {
     const scientist = await signedInAgent(app, org.users.scientist.email);
-    const res = await scientist.put(`/api/lab/catchments/${catchmentId}/calibration`).send({ period: season, set: { parameters: { transmissivity: 1.4 } } });
+    const res = await scientist.put(`/api/lab/catchments/${catchmentId}/calibration`).send({ period: season, set: { parameters: { temperatureRangeRadiationCoefficient: 1.4 } } });
     expect(res.status).toBe(422);
-    expect(res.body.error.field).toBe('set.parameters.transmissivity');
+    expect(res.body.error.field).toBe('set.parameters.temperatureRangeRadiationCoefficient');
   });
 });
 
@@ -164,7 +187,7 @@ describe('jobs: sweeps and automatic calibration', () => {
     const scientist = await signedInAgent(app, unpaid.users.scientist.email);
     const sweep = await scientist.post(`/api/lab/catchments/${ownCatchment}/sweeps`).send({ period: season, axes: [{ variable: 'temperatureDeltaC', from: 0, to: 1, steps: 2 }] });
     expect(sweep.status).toBe(402);
-    expect((await scientist.post(`/api/lab/catchments/${ownCatchment}/calibrations`).send({ keys: ['transmissivity'], period: season })).status).toBe(402);
+    expect((await scientist.post(`/api/lab/catchments/${ownCatchment}/calibrations`).send({ keys: ['temperatureRangeRadiationCoefficient'], period: season })).status).toBe(402);
     expect((await scientist.get(`/api/lab/catchments/${ownCatchment}/reference-models?${query}`)).status).toBe(200);
   });
   it('refuses a grid larger than 20 × 20', async () => {
@@ -176,7 +199,7 @@ describe('jobs: sweeps and automatic calibration', () => {
   it('calibrates as a job and does not lower the KGE; split-sample scores are reported', async () => {
     const scientist = await signedInAgent(app, org.users.scientist.email);
     const res = await scientist.post(`/api/lab/catchments/${catchmentId}/calibrations`).send({
-      keys: ['precipitationFactor', 'transmissivity'], period: season, validationPeriod: { from: '2023-06-01', to: '2023-07-31' }, maxEvaluations: 12,
+      keys: ['precipitationFactor', 'temperatureRangeRadiationCoefficient'], period: season, validationPeriod: { from: '2023-06-01', to: '2023-07-31' }, maxEvaluations: 12,
     });
     expect(res.status).toBe(202);
     const job = await waitForJob(scientist, res.body.id);
@@ -185,6 +208,10 @@ describe('jobs: sweeps and automatic calibration', () => {
     if (result.target !== 'discharge') throw new Error('expected a discharge calibration');
     expect(result.scores.daily.kge).toBeGreaterThanOrEqual(result.startScores.daily.kge);
     expect(result.validation!.after.series.dates[0]).toBe('2023-06-01');
+    // Each parameter comes with its behavioural range around the value found.
+    expect(result.ranges.map((r) => r.key)).toEqual(['precipitationFactor', 'temperatureRangeRadiationCoefficient']);
+    for (const r of result.ranges) expect(r.low <= r.best && r.best <= r.high).toBe(true);
+    expect(result.atBounds.every((key) => result.keys.includes(key))).toBe(true);
   });
   it('calibrates against stake balances, validated on the next balance year', async () => {
     const scientist = await signedInAgent(app, org.users.scientist.email);
@@ -202,7 +229,7 @@ describe('jobs: sweeps and automatic calibration', () => {
   });
   it('can be cancelled', async () => {
     const scientist = await signedInAgent(app, org.users.scientist.email);
-    const res = await scientist.post(`/api/lab/catchments/${catchmentId}/calibrations`).send({ keys: ['lapseRateCPerKm', 'iceAlbedo', 'transmissivity'], period: season, maxEvaluations: 400 });
+    const res = await scientist.post(`/api/lab/catchments/${catchmentId}/calibrations`).send({ keys: ['lapseRateCPerKm', 'iceAlbedo', 'temperatureRangeRadiationCoefficient'], period: season, maxEvaluations: 400 });
     expect(res.status).toBe(202);
     const cancelled = await scientist.post(`/api/lab/jobs/${res.body.id}/cancel`);
     expect(cancelled.status).toBe(200);

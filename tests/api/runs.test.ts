@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type TestAgent from 'supertest/lib/agent';
-import { CAUTIONS } from '../../shared/text/cautions';
+import { CAUTIONS, ICE_DARKENING_CAUTION } from '../../shared/text/cautions';
+import { SCENARIO_SCHEMA_VERSION } from '../../shared/schemas/scenarios';
 import type { Simulator } from '../../server/services/runs/simulator';
 import { createOrganisation, signedInAgent, type TestOrg } from '../support/factories';
 import { createTestApp, type TestApp } from '../support/test-app';
@@ -76,7 +77,7 @@ describe('scenarios', () => {
   it('are duplicated, renamed and archived; names stay unique per catchment', async () => {
     const id = await createScenario(consultant, 'Dusty spring', { dustSnowUgG: 80 });
     const copy = await consultant.post(`/api/catchments/${catchmentId}/scenarios/${id}/duplicate`);
-    expect(copy.body.scenario).toMatchObject({ name: 'Dusty spring (copy)', isBaseline: false, changes: { dustSnowUgG: 80, schemaVersion: 1 } });
+    expect(copy.body.scenario).toMatchObject({ name: 'Dusty spring (copy)', isBaseline: false, changes: { dustSnowUgG: 80, schemaVersion: SCENARIO_SCHEMA_VERSION } });
     const clash = await consultant.patch(`/api/catchments/${catchmentId}/scenarios/${copy.body.scenario.id}`).send({ name: 'Dusty spring' });
     expect(clash.status).toBe(409);
     const archived = await consultant.patch(`/api/catchments/${catchmentId}/scenarios/${copy.body.scenario.id}`).send({ name: 'Dusty spring, old', archived: true });
@@ -161,9 +162,36 @@ describe('run lifecycle', () => {
     expect(results.bands).toHaveLength(3);
     expect(results.months).toEqual(['2022-04', '2022-05', '2022-06', '2022-07', '2022-08', '2022-09']);
     expect(results.dischargeM3s.variant).toHaveLength(183);
-    expect(results.cautions).toEqual(CAUTIONS);
+    // SOOT darkens bare ice: the sensitivity caution follows the standard ones.
+    expect(results.cautions).toEqual([...CAUTIONS, ICE_DARKENING_CAUTION]);
+    expect(run.start).toEqual({ method: 'spin-up', years: 1 });
+    expect(results.setUp.start).toMatchObject({ label: 'Spun up through the record before the period', adequate: true });
+    expect(results.setUp.shortwaveSource).toBe('Clear-sky model with the cloudiness series');
+    expect(results.setUp.calibration).toMatchObject({ status: 'uncalibrated', message: expect.stringMatching(/^Not calibrated/) });
+    expect(results.setUp.skill).toBeNull();
+    expect(results.waterBalance.baseline.runoffMm).toBeGreaterThan(0);
     const stored = await t.db('run_band_months').join('run_members', 'run_members.id', 'run_band_months.member_id').where('run_members.run_id', run.id).count({ n: '*' });
     expect(Number(stored[0].n)).toBe(2 * 3 * 6);
+  });
+
+  it('starts as asked: a longer spin-up is a different run, a snow water equivalent needs one value per band', async () => {
+    const scenarioId = await createScenario(consultant, 'Sooty, started differently', { ...SOOT, dustSnowUgG: 3 });
+    const spun = await consultant.post(`/api/catchments/${catchmentId}/runs`).send({ scenarioId });
+    const longer = await consultant.post(`/api/catchments/${catchmentId}/runs`).send({ scenarioId, start: { method: 'spin-up', years: 2 } });
+    expect(longer.status).toBe(202);
+    expect(longer.body.run.inputHash).not.toBe(spun.body.run.inputHash);
+    expect(longer.body.run.start).toEqual({ method: 'spin-up', years: 2 });
+    const short = await consultant.post(`/api/catchments/${catchmentId}/runs`).send({ scenarioId, start: { method: 'initial-swe', sweMm: [100, 200] } });
+    expect(short.status).toBe(422);
+    expect(short.body.error).toMatchObject({ field: 'start.sweMm', message: expect.stringMatching(/one per band \(3\)/) });
+    const tooLong = await consultant.post(`/api/catchments/${catchmentId}/runs`).send({ scenarioId, start: { method: 'spin-up', years: 9 } });
+    expect(tooLong.status).toBe(422);
+    const surveyed = await consultant.post(`/api/catchments/${catchmentId}/runs`).send({ scenarioId, start: { method: 'initial-swe', sweMm: [0, 300, 900] } });
+    expect(surveyed.status).toBe(202);
+    const done = await waitForRun(consultant, catchmentId, surveyed.body.run.id);
+    const results = (await consultant.get(`/api/catchments/${catchmentId}/runs/${done.id}/results`)).body.results;
+    expect(results.setUp.start).toMatchObject({ label: 'Started from the snow water equivalent given per band', adequate: true });
+    for (const id of [spun.body.run.id, longer.body.run.id]) await waitForRun(consultant, catchmentId, id);
   });
 
   it('reuses a run with identical inputs instead of computing it again', async () => {
@@ -232,7 +260,7 @@ describe('run lifecycle', () => {
       expect(again.status).toBe(422);
       expect(again.body.error.message).toMatch(/elevation bands|precipitation|temperature/);
       const setup = await agent.get(`/api/catchments/${id}/scenario-setup`);
-      expect(setup.body).toEqual({ record: null, defaultPeriod: null, calibration: null });
+      expect(setup.body).toEqual({ record: null, defaultPeriod: null, calibration: null, background: { blackCarbonSnowNgG: 30, dustSnowUgG: 10 } });
     } finally {
       await plain.close();
     }

@@ -73,7 +73,7 @@ describe('the lab in the browser', () => {
     await page.waitForSelector('[data-test=calibration-chart] canvas', { timeout: 60_000 });
     await page.locator('[data-test=auto-calibration] input[type=number]').fill('15');
     await page.click('[data-test=auto-start]');
-    await page.waitForSelector('[data-test=auto-result]', { timeout: 90_000 });
+    await page.waitForSelector('[data-test=auto-result]', { timeout: 180_000 });
     expect(await page.textContent('[data-test=auto-scores]')).toMatch(/Calibration period, after/);
     await page.screenshot({ path: 'test-results/lab-auto-calibration.png', fullPage: true });
 
@@ -82,10 +82,10 @@ describe('the lab in the browser', () => {
     await page.fill('[data-test=auto-from]', '2021-10-01');
     await page.fill('[data-test=auto-to]', '2022-09-30');
     await page.click('[data-test=auto-start]');
-    await page.waitForSelector('[data-test=auto-scores]:has-text("Stake balances")', { timeout: 90_000 });
+    await page.waitForSelector('[data-test=auto-scores]:has-text("Stake balances")', { timeout: 180_000 });
     await page.screenshot({ path: 'test-results/lab-auto-calibration-stakes.png', fullPage: true });
     await page.close();
-  });
+  }, 420_000);
 
   it('keeps clients out of the lab', async () => {
     const page = await b.newPage();

@@ -74,8 +74,10 @@ describe('darkening scenarios in the browser', () => {
     const agent = await signedInAgent(b.t.app, consultant.email, consultant.password);
     const other = unique('Soot to compare ');
     const baseline = (await agent.get(`/api/catchments/${catchmentId}/scenarios`)).body.scenarios[0];
+    // The period a new scenario starts from in the builder, so the two runs can be compared.
+    const { defaultPeriod } = (await agent.get(`/api/catchments/${catchmentId}/scenario-setup`)).body;
     const created = await agent.post(`/api/catchments/${catchmentId}/scenarios`).send({
-      name: other, changes: { period: baseline.changes.period ?? SEASON, blackCarbonSnowNgG: 300 + (Date.now() % 200), blackCarbonIceNgG: 1000 },
+      name: other, changes: { period: baseline.changes.period ?? defaultPeriod ?? SEASON, blackCarbonSnowNgG: 300 + (Date.now() % 200), blackCarbonIceNgG: 1000 },
     });
     expect(created.status).toBe(201);
     const started = await agent.post(`/api/catchments/${catchmentId}/runs`).send({ scenarioId: created.body.scenario.id });
@@ -113,6 +115,17 @@ describe('darkening scenarios in the browser', () => {
     expect(header).toContain(other);
     expect(await page.textContent('[data-test=total-addedVolumeM3]')).toContain('5–95 %');
     await page.screenshot({ path: 'test-results/runs-compare.png', fullPage: true });
+
+    // A run over other days is left out of the comparison, and the page says why.
+    const earlier = await agent.post(`/api/catchments/${catchmentId}/scenarios`).send({ name: unique('Earlier season '), changes: { period: SEASON, blackCarbonSnowNgG: 250 } });
+    const earlierRun = (await agent.post(`/api/catchments/${catchmentId}/runs`).send({ scenarioId: earlier.body.scenario.id })).body.run;
+    await waitForRun(agent, catchmentId, earlierRun.id, 90_000);
+    const url = new URL(page.url());
+    url.searchParams.set('runs', `${url.searchParams.get('runs')},${earlierRun.id}`);
+    await page.goto(url.toString());
+    const banner = await page.waitForSelector('[data-test=results-left-out]');
+    expect(await banner.textContent()).toMatch(/runs compared must cover the same days/);
+    expect(await page.textContent('[data-test=totals-table] thead')).not.toContain('Earlier season');
     await page.close();
   });
 });

@@ -3,15 +3,15 @@ import { variableSpec, type Variable } from '../../shared/schemas/dataset-variab
 import { insertBaseline } from '../../server/services/catchments/baseline-scenario';
 import { insertDatasetValues, insertStakeReadings } from '../../server/services/catchments/dataset-values';
 import { TenantScope } from '../../server/services/tenant-scope';
-import { syntheticStakeReadings } from '../../seeds/data/synthetic-stakes';
 import { DEMO_BANDS, DEMO_CATCHMENT } from '../../seeds/data/demo-catchment';
-import { syntheticStation } from '../../seeds/data/synthetic-station';
+import { demoStation } from '../../seeds/data/demo-forcing';
+import { demoObservations } from '../../seeds/data/demo-observations';
 import { unique } from './factories';
 
 /**
  * The demo catchment's bands and synthetic station record (seeds/data) stored for any
- * organisation (two hydrological years of climate from 2021-10-01, discharge and the demo stakes),
- * so lab tests run on the demo climate.
+ * organisation (three hydrological years of climate from 2021-10-01, the demo's synthetic
+ * discharge and stakes), so lab tests run on the demo climate.
  */
 export async function createDemoCatchment(db: Knex, organisationId: number, options: { withDischarge?: boolean } = {}): Promise<number> {
   const c = DEMO_CATCHMENT;
@@ -25,7 +25,7 @@ export async function createDemoCatchment(db: Knex, organisationId: number, opti
     lower_m: b.lowerM, upper_m: b.upperM, area_km2: b.areaKm2, slope_deg: b.slopeDeg, aspect_deg: b.aspectDeg,
     glacier_fraction: b.glacierFraction, debris_fraction: b.debrisFraction, debris_thickness_m: b.debrisThicknessM,
   })));
-  const station = syntheticStation({ start: '2021-10-01', days: 730, seed: 20211001 });
+  const station = demoStation();
   const dataset = async (variable: Variable, step: 'hourly' | 'daily', first: string, last: string, count: number): Promise<number> => {
     const spec = variableSpec(variable);
     const [datasetId] = await db('datasets').insert({
@@ -42,9 +42,9 @@ export async function createDemoCatchment(db: Knex, organisationId: number, opti
   await add('temperature', 'hourly', station.hourlyTemperature);
   await add('precipitation', 'daily', station.dailyPrecipitation);
   if (options.withDischarge ?? true) {
-    await add('discharge', 'daily', station.dailyDischarge);
-    // the third balance year lies outside the two years of climate stored here
-    const stakes = syntheticStakeReadings();
+    const observations = demoObservations();
+    await add('discharge', 'daily', observations.dailyDischarge);
+    const stakes = observations.stakes;
     await insertStakeReadings(db, { datasetId: await dataset('pointBalance', 'daily', stakes[0].from, stakes.at(-1)!.to, stakes.length), organisationId }, stakes);
   }
   return catchmentId;

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { CAUTIONS } from '../../../shared/text/cautions';
+import { CAUTIONS, ICE_DARKENING_CAUTION } from '../../../shared/text/cautions';
 import { briefingComparison } from '../../../tests/fixtures/briefing-comparison';
 import { testSnapshot } from '../../../tests/fixtures/briefing-snapshot';
 
@@ -10,7 +10,15 @@ describe('assembleSnapshot', () => {
     expect(s.headlines.map((h) => h.variantName)).toEqual(['Black carbon 150 ng/g', 'Dust and +2 °C']);
     expect(s.sections.map((x) => x.heading)[0]).toBe('What we looked at');
     expect(s.sections).toHaveLength(10);
-    expect(s.cautions).toEqual(CAUTIONS);
+    // The first variant darkens bare ice: its sensitivity caution follows the standard ones.
+    expect(s.cautions).toEqual([...CAUTIONS, ICE_DARKENING_CAUTION]);
+  });
+
+  it('warns above the numbers when a run is not calibrated, and freezes each run\'s set-up', () => {
+    expect(s.warnings).toHaveLength(2);
+    expect(s.warnings[0]).toMatch(/^Black carbon 150 ng\/g: Not calibrated/);
+    expect(s.assumptions.setUp.map((r) => r.lines.map((l) => l.label))[0]).toEqual(['Calibration', 'Start', 'Incoming shortwave', 'Baseline against observed discharge']);
+    expect(s.assumptions.setUp[0].lines[1].value).toMatch(/^Spun up through the 365 days before the period/);
   });
 
   it('charts the added runoff per month; the months add up to the run\'s season total', () => {
@@ -26,7 +34,7 @@ describe('assembleSnapshot', () => {
   it('takes headline numbers from the run totals, share of runoff as a percentage', () => {
     const totals = briefingComparison().runs[0].results.totals;
     expect(s.headlines[0].addedVolumeM3.value).toBe(totals.addedVolumeM3);
-    expect(s.headlines[0].shareOfSeasonalRunoffPct.value).toBeCloseTo(totals.shareOfSeasonalRunoff * 100, 10);
+    expect(s.headlines[0].addedRunoffPercentOfBaseline.value).toBeCloseTo(totals.addedShareOfBaselineRunoff * 100, 10);
     expect(s.headlines[0].addedVolumeM3.low).toBeNull();
   });
 

@@ -4,6 +4,7 @@ import {
 import { CAUTIONS } from '../../../shared/text/cautions';
 import type { ComparisonForBriefing } from './comparison';
 import { headlineOf, resultChart, resultTable } from './result-views';
+import { setUpLines } from '../../../shared/analysis/run-set-up';
 
 export interface AssembleInput {
   title: string;
@@ -62,8 +63,14 @@ export function assembleSnapshot(input: AssembleInput): BriefingSnapshot {
         finishedAt: run.finishedAt ?? '', ensembleSize: run.ensembleSize,
       })),
       engineVersion: [...new Set(c.runs.map((r) => r.results.run.engineVersion))].join(', '),
+      setUp: c.runs.map(({ results }) => ({
+        scenarioName: results.run.scenarioName,
+        lines: setUpLines(results.setUp).map(([label, value]) => ({ label, value })),
+      })),
     },
-    cautions: [...CAUTIONS],
+    warnings: [...new Set(c.runs.filter((r) => r.results.setUp.calibration.status !== 'calibrated').map((r) => `${r.results.run.scenarioName}: ${r.results.setUp.calibration.message}`))],
+    // The standard cautions first, then what any of the runs adds, each once.
+    cautions: [...new Set([...CAUTIONS, ...c.runs.flatMap((r) => r.results.cautions)])],
   };
   // Deep copy through JSON, checked against the schema: nothing shared with live objects survives.
   return briefingSnapshotSchema.parse(JSON.parse(JSON.stringify(snapshot)));

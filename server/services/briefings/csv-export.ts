@@ -1,6 +1,6 @@
 import type { BriefingSnapshot, TableData } from '../../../shared/schemas/briefings';
 import { chartTable } from '../../../shared/briefings/chart-table';
-import { CAUTIONS_HEADING } from '../../../shared/text/cautions';
+import { CALIBRATION_HEADING, CAUTIONS_HEADING } from '../../../shared/text/cautions';
 import { csvLine } from '../../../shared/csv/csv-writing';
 
 function tableLines(heading: string, table: TableData): string[] {
@@ -30,17 +30,19 @@ export function briefingCsv(s: BriefingSnapshot): string {
     ['Period', `${s.period.from} to ${s.period.to}`],
     ['Engine version', s.assumptions.engineVersion],
     ...runs.map((r) => [`Input hash: ${r.scenarioName}`, r.inputHash]),
+    ...s.warnings.map((w, i) => [i === 0 ? CALIBRATION_HEADING : '', w]),
+    ...s.assumptions.setUp.flatMap((run) => run.lines.map((l) => [`${l.label}: ${run.scenarioName}`, l.value])),
     ...s.cautions.map((c, i) => [i === 0 ? CAUTIONS_HEADING : '', c]),
   ];
   const headlines: TableData = {
     columns: [
       { label: 'Variant', unit: '' }, { label: 'Added melt volume', unit: 'm³' }, { label: 'low', unit: 'm³' }, { label: 'high', unit: 'm³' },
-      { label: 'Added discharge in the melt season', unit: 'm³/s' }, { label: 'Share of seasonal runoff', unit: '%' },
+      { label: 'Added discharge in the melt season', unit: 'm³/s' }, { label: 'Added runoff, % of baseline', unit: '%' },
       { label: 'Timing shift', unit: 'days' }, { label: 'Melt season', unit: '' },
     ],
     rows: s.headlines.map((h) => [
       h.variantName, h.addedVolumeM3.value, h.addedVolumeM3.low, h.addedVolumeM3.high,
-      h.addedMeltSeasonDischargeM3s.value, h.shareOfSeasonalRunoffPct.value, h.timingShiftDays.value, h.meltSeason,
+      h.addedMeltSeasonDischargeM3s.value, h.addedRunoffPercentOfBaseline.value, h.timingShiftDays.value, h.meltSeason,
     ]),
   };
   const lines = [...header.map((row) => csvLine(row)), '', ...tableLines('Headline numbers', headlines)];

@@ -14,10 +14,11 @@ function withEnsemble(c: ComparisonForBriefing): ComparisonForBriefing {
     addedDischargeM3s: { p5: q.map(() => 0), p50: q.map(() => 0), p95: q.map(() => 0) },
     totals: {
       addedVolumeM3: around(r.totals.addedVolumeM3),
-      shareOfSeasonalRunoff: around(r.totals.shareOfSeasonalRunoff),
+      addedShareOfBaselineRunoff: around(r.totals.addedShareOfBaselineRunoff),
       meanAddedDischargeM3s: around(r.totals.meanAddedDischargeM3s),
       timingShiftDays: around(r.totals.timingShiftDays ?? 0),
     },
+    note: null,
   };
   return { ...c, runs: [{ ...c.runs[0], results: r }] };
 }
@@ -37,7 +38,7 @@ describe('briefing result views', () => {
     const h = headlineOf(r);
     expect(h.addedVolumeM3.low).toBeCloseTo(r.totals.addedVolumeM3 * 0.8, 6);
     expect(h.addedVolumeM3.high).toBeCloseTo(r.totals.addedVolumeM3 * 1.25, 6);
-    expect(h.shareOfSeasonalRunoffPct.high).toBeCloseTo(r.totals.shareOfSeasonalRunoff * 125, 6);
+    expect(h.addedRunoffPercentOfBaseline.high).toBeCloseTo(r.totals.addedShareOfBaselineRunoff * 125, 6);
     const daily = resultChart('daily-discharge', c);
     expect(daily.series[1].low).toHaveLength(r.dayCount);
     const totals = resultTable('totals', c);
@@ -53,6 +54,6 @@ describe('briefing result views', () => {
 
   it('labels bands by mean elevation and months by calendar month', () => {
     expect(resultChart('band-added-melt', plain).categories[0]).toMatch(/^[\d,]+ m$/);
-    expect(resultChart('monthly-added-melt', plain).categories[0]).toBe('2021-10');
+    expect(resultChart('monthly-added-melt', plain).categories[0]).toBe('2022-10');
   });
 });

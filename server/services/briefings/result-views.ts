@@ -63,7 +63,7 @@ function dailyDischarge(c: ComparisonForBriefing): ChartData {
 }
 
 /** A total with its ensemble 5–95 % range, scaled. */
-function ranged(r: RunResults, key: 'addedVolumeM3' | 'meanAddedDischargeM3s' | 'shareOfSeasonalRunoff' | 'timingShiftDays', scale = 1): Ranged {
+function ranged(r: RunResults, key: 'addedVolumeM3' | 'meanAddedDischargeM3s' | 'addedShareOfBaselineRunoff' | 'timingShiftDays', scale = 1): Ranged {
   const value = r.totals[key];
   const band = r.ensemble?.totals[key];
   return { value: value === null ? null : value * scale, low: band ? band.p5 * scale : null, high: band ? band.p95 * scale : null };
@@ -75,7 +75,7 @@ export function headlineOf(r: RunResults): Headline {
     variantName: r.run.scenarioName,
     addedVolumeM3: ranged(r, 'addedVolumeM3'),
     addedMeltSeasonDischargeM3s: ranged(r, 'meanAddedDischargeM3s'),
-    shareOfSeasonalRunoffPct: ranged(r, 'shareOfSeasonalRunoff', 100),
+    addedRunoffPercentOfBaseline: ranged(r, 'addedShareOfBaselineRunoff', 100),
     timingShiftDays: ranged(r, 'timingShiftDays'),
     meltSeason: season ? `${season.from} to ${season.to}` : 'no melt season found',
   };
@@ -88,13 +88,13 @@ function totalsTable(c: ComparisonForBriefing): TableData {
     columns: [
       { label: 'Variant', unit: '' },
       ...trio('Added melt volume', 'million m³'), ...trio('Added discharge in the melt season', 'm³/s'),
-      ...trio('Share of seasonal runoff', '%'), ...trio('Timing shift', 'days'),
+      ...trio('Added runoff, % of baseline', '%'), ...trio('Timing shift', 'days'),
       { label: 'Melt season', unit: '' },
     ],
     rows: variantsOf(c).map(headlineOf).map((h) => [
       h.variantName,
       ...cells(h.addedVolumeM3, MILLION, 3), ...cells(h.addedMeltSeasonDischargeM3s, 1, 3),
-      ...cells(h.shareOfSeasonalRunoffPct, 1, 2), ...cells(h.timingShiftDays, 1, 1),
+      ...cells(h.addedRunoffPercentOfBaseline, 1, 2), ...cells(h.timingShiftDays, 1, 1),
       h.meltSeason,
     ]),
   };

@@ -1,4 +1,6 @@
 import { parameterValues, scenarioValues } from '../../../shared/briefings/scenario-values';
+import { variableSpec, type Variable } from '../../../shared/schemas/dataset-variables';
+import { samePeriodAsFirst } from '../../../shared/analysis/compare-periods';
 import type { RunSelection } from '../../../shared/schemas/briefings';
 import { validationFailed } from '../../errors';
 import type { ResultsService } from '../runs/results-service';
@@ -39,7 +41,7 @@ export class RunsResultsSource implements BriefingResultsSource {
       picked.push({ row, results: await this.results.results(scope, catchmentId, row.id) });
     }
     const first = picked[0];
-    const mismatch = picked.find((p) => p.results.startDate !== first.results.startDate || p.results.dayCount !== first.results.dayCount);
+    const [mismatch] = samePeriodAsFirst(picked).left;
     if (mismatch) {
       throw validationFailed(
         `Run #${mismatch.row.id} covers ${mismatch.results.startDate} + ${mismatch.results.dayCount} days, run #${first.row.id} ${first.results.startDate} + ${first.results.dayCount} days; a briefing compares runs over the same period.`,
@@ -55,8 +57,8 @@ export class RunsResultsSource implements BriefingResultsSource {
       runs: picked.map((p) => ({ results: p.results, scenarioValues: scenarioValues(readChanges(p.row.changes)) })),
       parameters: parameterValues(firstChanges.parameters),
       dataSources: datasets.map((d) => ({
-        name: d.file_name || d.variable,
-        variables: `${d.variable} (${d.kind})`,
+        name: d.file_name || variableSpec(d.variable as Variable).label,
+        variables: `${variableSpec(d.variable as Variable).label} (${d.kind})`,
         source: d.source,
         accuracy: d.accuracy || 'not stated',
       })),

@@ -16,6 +16,8 @@ export interface CatchmentRow {
   station_name: string;
   station_elevation_m: number;
   outlet_description: string;
+  background_black_carbon_ng_g: number;
+  background_dust_ug_g: number;
   archived_at: Date | null;
   created_at: Date;
   updated_at: Date;
@@ -35,6 +37,8 @@ function toColumns(fields: CatchmentFields) {
     station_name: fields.stationName,
     station_elevation_m: fields.stationElevationM,
     outlet_description: fields.outletDescription,
+    background_black_carbon_ng_g: fields.backgroundBlackCarbonNgG,
+    background_dust_ug_g: fields.backgroundDustUgG,
   };
 }
 
@@ -49,6 +53,8 @@ export function toCatchment(row: CatchmentRow): Catchment {
     stationName: row.station_name,
     stationElevationM: row.station_elevation_m,
     outletDescription: row.outlet_description,
+    backgroundBlackCarbonNgG: row.background_black_carbon_ng_g,
+    backgroundDustUgG: row.background_dust_ug_g,
     archived: row.archived_at !== null,
     bandCount: Number(row.band_count ?? 0),
     datasetCount: Number(row.dataset_count ?? 0),

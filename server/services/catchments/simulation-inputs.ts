@@ -1,7 +1,8 @@
 import { z } from 'zod';
-import { daysBetween, isIsoDate } from '../../../shared/melt/calendar';
+import { addDays, daysBetween, isIsoDate } from '../../../shared/melt/calendar';
 import { fillShortGaps } from '../../../shared/melt/fill-gaps';
 import type { SimulationInput } from '../../../shared/melt/schema';
+import { DAYS_PER_YEAR, hydrologicalYearStartBefore } from '../../../shared/melt/spin-up';
 import type { TimeStep, Variable } from '../../../shared/schemas/dataset-variables';
 import { validationFailed } from '../../errors';
 import { parseWith } from '../../middleware/validate';
@@ -11,6 +12,7 @@ import { formatMinutes, parseTimestamp, STEP_MINUTES } from './csv/timestamps';
 import type { DatasetRow } from './dataset-service';
 import { readDatasetValues } from './dataset-values';
 import { valuesOnGrid } from './series-grid';
+import { climateRecord } from '../runs/climate-record';
 import type { TenantScope } from '../tenant-scope';
 
 const isoDate = z.string().refine(isIsoDate, { message: 'must be a real date written YYYY-MM-DD' });
@@ -52,21 +54,53 @@ const OPTIONAL_SERIES: [Variable, 'cloudiness' | 'windMs' | 'relativeHumidity'][
   ['cloudiness', 'cloudiness'], ['wind', 'windMs'], ['humidity', 'relativeHumidity'],
 ];
 
+/** How much record before the period the forcing reaches back for: the engine's spin-up (0: none). */
+export interface ForcingSpan {
+  spinUpYears: number;
+}
+
 /**
  * Builds the melt engine's `catchment` and `forcing` for a period from the stored bands and the
  * newest dataset of each variable: hourly temperature if there is one, otherwise daily minimum and
  * maximum (with the daily mean when stored); precipitation; cloudiness, wind and humidity when they
  * share the forcing's time step. Gaps up to the bridging limits are filled with the engine's
  * `fillShortGaps`; longer ones, and gaps at the ends, are reported so the caller can refuse.
+ *
+ * With a spin-up the forcing starts before the period, where the engine's spin-up wants it (the
+ * start of a hydrological year `spinUpYears` before, see shared/melt/spin-up.ts) or where the
+ * record starts; a gap too long to bridge before the period moves that start to the day after it
+ * rather than refusing the run, and the notes say so.
  */
 export async function buildSimulationInputs(
   scope: TenantScope,
   bands: BandService,
   catchmentId: number,
   period: SimulationPeriod,
+  span: ForcingSpan = { spinUpYears: 0 },
 ): Promise<AssembledInputs> {
   const p = parseWith(simulationPeriodSchema, period);
   const catchment = await scope.findOr404<CatchmentRow>('catchments', catchmentId, 'Catchment');
+  const from = span.spinUpYears > 0 ? await spinUpFrom(scope, catchmentId, p.from, catchment.latitude_deg, span.spinUpYears) : p.from;
+  const assembled = await assemble(scope, bands, catchment, p, from);
+  if (from === p.from) return assembled;
+  const lastGapBefore = assembled.gaps.filter((g) => !g.bridged && g.to.slice(0, 10) < p.from).map((g) => g.to.slice(0, 10)).sort().at(-1);
+  if (!lastGapBefore) return assembled;
+  const after = addDays(lastGapBefore, 1);
+  const rebuilt = await assemble(scope, bands, catchment, p, after);
+  rebuilt.notes.push(`The spin-up starts on ${after}, after a gap too long to bridge that ends on ${lastGapBefore}.`);
+  return rebuilt;
+}
+
+/** Where the forcing of a spun-up run starts: the spin-up's wanted start, or the record's when that is later (never after the period). */
+async function spinUpFrom(scope: TenantScope, catchmentId: number, periodFrom: string, latitudeDeg: number, years: number): Promise<string> {
+  const wanted = hydrologicalYearStartBefore(addDays(periodFrom, -years * DAYS_PER_YEAR + 1), latitudeDeg);
+  const record = await climateRecord(scope, catchmentId);
+  if (!record || record.from <= wanted) return wanted;
+  return record.from < periodFrom ? record.from : periodFrom;
+}
+
+async function assemble(scope: TenantScope, bands: BandService, catchment: CatchmentRow, p: z.output<typeof simulationPeriodSchema>, from: string): Promise<AssembledInputs> {
+  const catchmentId = catchment.id;
   const bandRows = await bands.list(scope, catchmentId);
   const rows: DatasetRow[] = await scope.from<DatasetRow>('datasets').where('catchment_id', catchmentId).orderBy('id', 'desc');
   const newest = (variable: Variable, step?: TimeStep) => rows.find((r) => r.variable === variable && (!step || r.time_step === step));
@@ -78,7 +112,7 @@ export async function buildSimulationInputs(
 
   const load = async (row: DatasetRow): Promise<(number | null)[]> => {
     const step = row.time_step;
-    const first = `${p.from} 00:00`;
+    const first = `${from} 00:00`;
     const last = step === 'hourly' ? `${p.to} 23:00` : `${p.to} 00:00`;
     const values = await readDatasetValues(scope.db, { datasetId: row.id, organisationId: scope.organisationId }, { from: first, to: last });
     const grid = valuesOnGrid(values, step, first, last).values;
@@ -98,16 +132,16 @@ export async function buildSimulationInputs(
   if (!precipitation) missing.push({ variable: 'precipitation', message: 'No precipitation dataset is stored.' });
   const precipitationStep = precipitation?.time_step;
   if (hourlyTemperature) {
-    forcing = { timeStep: 'hourly', start: p.from, temperatureC: await load(hourlyTemperature), precipitationMm, precipitationStep };
+    forcing = { timeStep: 'hourly', start: from, temperatureC: await load(hourlyTemperature), precipitationMm, precipitationStep };
   } else if (tMin && tMax) {
     const dailyMean = newest('temperature', 'daily');
     forcing = {
-      timeStep: 'daily', start: p.from, tMinC: await load(tMin), tMaxC: await load(tMax), precipitationMm, precipitationStep,
+      timeStep: 'daily', start: from, tMinC: await load(tMin), tMaxC: await load(tMax), precipitationMm, precipitationStep,
       ...(dailyMean ? { tMeanC: await load(dailyMean) } : {}),
     };
   } else {
     missing.push({ variable: 'temperature', message: 'No hourly air temperature, and no pair of daily minimum and maximum temperature datasets.' });
-    forcing = { timeStep: 'daily', start: p.from, tMinC: [], tMaxC: [], precipitationMm };
+    forcing = { timeStep: 'daily', start: from, tMinC: [], tMaxC: [], precipitationMm };
   }
   for (const [variable, key] of OPTIONAL_SERIES) {
     const row = newest(variable, forcing.timeStep);
@@ -120,6 +154,7 @@ export async function buildSimulationInputs(
       longitudeDeg: catchment.longitude_deg,
       timeZone: catchment.time_zone,
       stationElevationM: catchment.station_elevation_m,
+      background: { blackCarbonSnowNgG: catchment.background_black_carbon_ng_g, dustSnowUgG: catchment.background_dust_ug_g },
       bands: bandRows,
     },
     forcing,

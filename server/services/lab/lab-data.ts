@@ -1,4 +1,3 @@
-import { addDays } from '../../../shared/melt/calendar';
 import type { CalibrationSet } from '../../../shared/lab/calibration-set';
 import type { DatedValue } from '../../../shared/lab/paired-series';
 import type { LabSite, Period } from '../../../shared/lab/site';
@@ -9,9 +8,6 @@ import type { DatasetRow } from '../catchments/dataset-service';
 import { readDatasetValues, readStakeReadings } from '../catchments/dataset-values';
 import { buildSimulationInputs, requireReadyInputs } from '../catchments/simulation-inputs';
 import type { TenantScope } from '../tenant-scope';
-
-/** Days simulated before a period starts so the snowpack is built (one year, or the record's start). */
-const SPIN_UP_DAYS = 365;
 
 /** Stored data the lab computes from: the climate forcing with a spin-up, and observed discharge. */
 export class LabData {
@@ -28,16 +24,14 @@ export class LabData {
     return { from: t0 > p0 ? t0 : p0, to: t1 < p1 ? t1 : p1 };
   }
 
-  /** The catchment, its forcing from up to a year before the period and the parameters in force. */
+  /** The catchment, its forcing from the engine's one-year spin-up (as far as the record allows) and the parameters in force. */
   async site(scope: TenantScope, catchmentId: number, period: Period, set: CalibrationSet): Promise<LabSite> {
     await scope.findOr404('catchments', catchmentId, 'Catchment');
     const start = (await this.recordRange(scope, catchmentId))?.from ?? null;
     if (start && period.from < start) {
       throw validationFailed(`The period starts on ${period.from}, before the climate record begins (${start}).`, 'from');
     }
-    const spinUp = addDays(period.from, -SPIN_UP_DAYS);
-    const from = start && start > spinUp ? start : spinUp;
-    const input = requireReadyInputs(await buildSimulationInputs(scope, this.bands, catchmentId, { from: start ? from : period.from, to: period.to }));
+    const input = requireReadyInputs(await buildSimulationInputs(scope, this.bands, catchmentId, period, { spinUpYears: 1 }));
     return { catchment: input.catchment, forcing: input.forcing, parameters: set.parameters, precipitationFactor: set.precipitationFactor };
   }
 

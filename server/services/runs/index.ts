@@ -39,5 +39,5 @@ export function createRunServices(deps: RunServicesDeps): RunServices {
   const runExecutor = new RunExecutor(deps.db, deps.simulator ?? simulationPool, deps.config.runs.concurrency);
   const scenarios = new ScenarioService(deps.calibrations);
   const runs = new RunService(scenarios, deps.catchmentInputs ?? storedCatchmentInputs(deps.bands), runExecutor);
-  return { scenarios, runs, results: new ResultsService(runs), runExecutor, simulationPool };
+  return { scenarios, runs, results: new ResultsService(runs, deps.calibrations), runExecutor, simulationPool };
 }

@@ -3,6 +3,7 @@ import type { SimulationSummary } from '../../../shared/analysis/simulation-summ
 import { addDays } from '../../../shared/melt/calendar';
 import { csvLine } from '../../../shared/csv/csv-writing';
 import { roundSignificant } from '../../../shared/text/numbers';
+import { setUpLines } from '../../../shared/analysis/run-set-up';
 
 /** Numbers to 8 significant digits: enough for the model, readable in a spreadsheet. */
 const line = (values: (string | number | null)[]) => csvLine(values.map((v) => (typeof v === 'number' && !Number.isInteger(v) ? roundSignificant(v, 8) : v)));
@@ -18,6 +19,7 @@ export function headerBlock(results: RunResults, what: string): string[] {
     line(['# Engine version', run.engineVersion]),
     line(['# Input hash', run.inputHash]),
     line(['# Run', run.id]),
+    ...setUpLines(results.setUp).map(([label, text]) => line([`# ${label}`, text])),
     ...results.cautions.map((c) => line(['# Caution', c])),
   ];
 }
@@ -34,6 +36,7 @@ export function bandMonthCsv(results: RunResults, baseline: SimulationSummary, v
       v.snowMeltMm - b.snowMeltMm, v.iceMeltMm - b.iceMeltMm, v.debrisIceMeltMm - b.debrisIceMeltMm, v.rainMm - b.rainMm,
       v.snowMeltMm, v.iceMeltMm, v.debrisIceMeltMm, v.rainMm, b.meanAlbedo, v.meanAlbedo,
       b.absorbedShortwaveWm2, v.absorbedShortwaveWm2,
+      v.surfaceMeltMm, v.refrozenMm, v.sublimationMm, v.evaporationMm, b.meanSnowCoverFraction, v.meanSnowCoverFraction,
     ]);
   });
   return [
@@ -41,7 +44,9 @@ export function bandMonthCsv(results: RunResults, baseline: SimulationSummary, v
     line(['band', 'mean elevation (m)', 'area (km²)', 'month', 'added snow melt (mm w.e.)', 'added clean-ice melt (mm w.e.)',
       'added debris-covered ice melt (mm w.e.)', 'added rain (mm)', 'scenario snow melt (mm w.e.)', 'scenario clean-ice melt (mm w.e.)',
       'scenario debris-covered ice melt (mm w.e.)', 'scenario rain (mm)', 'baseline albedo (-)', 'scenario albedo (-)',
-      'baseline absorbed shortwave (W/m²)', 'scenario absorbed shortwave (W/m²)']),
+      'baseline absorbed shortwave (W/m²)', 'scenario absorbed shortwave (W/m²)',
+      'scenario surface melt (mm w.e.)', 'scenario refrozen (mm w.e.)', 'scenario sublimation (mm w.e.)', 'scenario evaporation (mm w.e.)',
+      'baseline snow-covered fraction (-)', 'scenario snow-covered fraction (-)']),
     ...rows,
   ].join('\r\n') + '\r\n';
 }

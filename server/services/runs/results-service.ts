@@ -1,17 +1,31 @@
 import { attributionDrivers } from '../../../shared/analysis/run-plan';
-import { runResults } from '../../../shared/analysis/run-results';
+import { baselineSkill } from '../../../shared/analysis/baseline-skill';
+import { runResults, type ResultContext } from '../../../shared/analysis/run-results';
+import { calibrationStatus } from '../../../shared/analysis/run-set-up';
+import { dailyRunoffM3 } from '../../../shared/analysis/simulation-summary';
+import { simulationSettings } from '../../../shared/analysis/variant-settings';
+import { addDays } from '../../../shared/melt/calendar';
 import type { RunResults } from '../../../shared/schemas/results';
+import type { ScenarioChanges } from '../../../shared/schemas/scenarios';
 import { conflict } from '../../errors';
+import type { DatasetRow } from '../catchments/dataset-service';
+import { readDatasetValues } from '../catchments/dataset-values';
 import { csvFile, type DownloadFile } from '../download-file';
+import type { CalibrationStore } from '../lab/calibration-store';
 import { readChanges } from './scenario-service';
 import type { TenantScope } from '../tenant-scope';
 import { bandMonthCsv, dailyCsv } from './results-csv';
 import { loadMembers, type StoredMember } from './run-store';
-import { toRun, type RunService } from './run-service';
+import { toRun, type RunRow, type RunService } from './run-service';
+
+const ICE_LOADS = ['blackCarbonIceNgG', 'dustIceUgG'] as const;
+const nonZero = (v: number | number[]) => (Array.isArray(v) ? v.some((x) => x !== 0) : v !== 0);
+const darkensIce = (c: ScenarioChanges) =>
+  ICE_LOADS.some((k) => nonZero(c[k])) || c.impuritiesByElevation.some((r) => ICE_LOADS.some((k) => r[k] !== undefined && nonZero(r[k]!)));
 
 /** Reads a finished run's stored members and derives the added-melt results and exports. */
 export class ResultsService {
-  constructor(private readonly runs: RunService) {}
+  constructor(private readonly runs: RunService, private readonly calibrations: CalibrationStore) {}
 
   async results(scope: TenantScope, catchmentId: number, runId: number): Promise<RunResults> {
     return (await this.load(scope, catchmentId, runId)).results;
@@ -34,7 +48,30 @@ export class ResultsService {
     const catchment = await scope.findOr404<{ name: string }>('catchments', catchmentId, 'Catchment');
     const members = await loadMembers(scope, runId);
     const bandElevations = members[0]?.summary.bands.map((b) => b.elevationM) ?? [];
-    const drivers = row.baseline_changes ? attributionDrivers(readChanges(row.changes), readChanges(row.baseline_changes), bandElevations) : [];
-    return { results: runResults(toRun(row), catchment.name, members, drivers), members };
+    const changes = readChanges(row.changes);
+    const baselineChanges = row.baseline_changes ? readChanges(row.baseline_changes) : null;
+    const drivers = baselineChanges ? attributionDrivers(changes, baselineChanges, bandElevations) : [];
+    const context = await this.context(scope, catchmentId, row, members, changes, baselineChanges);
+    return { results: runResults(toRun(row), catchment.name, members, drivers, context), members };
+  }
+
+  /** The calibration check and the baseline's skill against the newest observed discharge. */
+  private async context(scope: TenantScope, catchmentId: number, row: RunRow, members: StoredMember[], changes: ScenarioChanges, baselineChanges: ScenarioChanges | null): Promise<ResultContext> {
+    const { parameters } = simulationSettings(changes, baselineChanges);
+    const saved = await this.calibrations.current(scope, catchmentId);
+    const calibration = calibrationStatus(parameters, (baselineChanges ?? changes).precipitationFactor, saved && {
+      parameters: saved.set.parameters, precipitationFactor: saved.set.precipitationFactor, period: saved.period,
+      kge: saved.scores.daily.kge, savedAt: saved.savedAt, savedBy: saved.savedBy,
+    });
+    const baseline = (members.find((m) => m.kind === 'baseline') ?? members.find((m) => m.kind === 'scenario'))!.summary;
+    const discharge = await scope.from<DatasetRow>('datasets').where({ catchment_id: catchmentId, variable: 'discharge' }).orderBy('id', 'desc').first();
+    let skill: ResultContext['skill'] = null;
+    if (discharge) {
+      const last = addDays(baseline.startDate, baseline.dayCount - 1);
+      const values = await readDatasetValues(scope.db, { datasetId: discharge.id, organisationId: scope.organisationId }, { from: `${baseline.startDate} 00:00`, to: `${last} 23:59` });
+      const observed = values.map((v) => ({ date: v.t.slice(0, 10), value: v.value }));
+      skill = baselineSkill(observed, baseline.startDate, dailyRunoffM3(baseline).map((v) => v / 86_400), discharge.file_name || `discharge dataset ${discharge.id}`);
+    }
+    return { calibration, skill, iceDarkened: darkensIce(changes) };
   }
 }

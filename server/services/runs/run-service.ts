@@ -2,7 +2,7 @@ import { planRun, RunPlanError } from '../../../shared/analysis/run-plan';
 import { simulationSettings } from '../../../shared/analysis/variant-settings';
 import { ENGINE_VERSION } from '../../../shared/melt/version';
 import { parseSimulationInput, SimulationInputError } from '../../../shared/melt/prepare';
-import type { Run, StartRunRequest } from '../../../shared/schemas/runs';
+import { DEFAULT_RUN_START, type Run, type RunStart, type StartRunRequest } from '../../../shared/schemas/runs';
 import { conflict, notFound, validationFailed } from '../../errors';
 import type { ScenarioService } from './scenario-service';
 import type { TenantScope } from '../tenant-scope';
@@ -29,10 +29,14 @@ export interface RunRow {
   input_hash: string;
   period_from: Date | string | null;
   period_to: Date | string | null;
+  start_options: string | RunStart | null;
   queued_at: Date;
   started_at: Date | null;
   finished_at: Date | null;
 }
+
+/** The record a run's forcing needs before its period. */
+const spanFor = (start: RunStart) => ({ spinUpYears: start.method === 'spin-up' ? start.years : 0 });
 
 const iso = (v: Date | null) => (v ? new Date(v).toISOString() : null);
 const day = (v: Date | string) => (v instanceof Date ? v.toISOString().slice(0, 10) : String(v).slice(0, 10));
@@ -53,6 +57,7 @@ export function toRun(row: RunRow): Run {
     engineVersion: row.engine_version,
     inputHash: row.input_hash,
     period: row.period_from && row.period_to ? { from: day(row.period_from), to: day(row.period_to) } : null,
+    start: typeof row.start_options === 'string' ? JSON.parse(row.start_options) : row.start_options ?? null,
     queuedAt: iso(row.queued_at)!,
     startedAt: iso(row.started_at),
     finishedAt: iso(row.finished_at),
@@ -77,7 +82,10 @@ export class RunService {
     if (scenario.archived) throw validationFailed('This scenario is archived; restore it before running it.', 'scenarioId');
     const baseline = scenario.isBaseline ? null : await this.scenarios.baseline(scope, catchmentId);
     const { period } = simulationSettings(scenario.changes, baseline?.changes ?? null);
-    const stored = await this.inputs(scope, catchmentId, period);
+    const stored = await this.inputs(scope, catchmentId, period, spanFor(request.start));
+    if (request.start.method === 'initial-swe' && request.start.sweMm.length !== stored.catchment.bands.length) {
+      throw validationFailed(`The snow water equivalent has ${request.start.sweMm.length} value(s); give one per band (${stored.catchment.bands.length}).`, 'start.sweMm');
+    }
     const bandElevations = stored.catchment.bands.map((b) => (b.lowerM + b.upperM) / 2);
     let plan;
     try {
@@ -86,7 +94,7 @@ export class RunService {
       if (error instanceof RunPlanError) throw validationFailed(error.message, 'attribution');
       throw error;
     }
-    const members = plan.members.map((m) => ({ plan: m, input: { ...stored, ...m.input } }));
+    const members = plan.members.map((m) => ({ plan: m, input: { ...stored, ...m.input, start: request.start } }));
     try {
       // The first member checks what all share (catchment, forcing, period); the rest differ only in validated changes.
       parseSimulationInput({ ...members[0].input, parts: undefined });
@@ -95,7 +103,7 @@ export class RunService {
       throw error;
     }
     // Every member is the stored inputs plus its own changes: hash the stored part once.
-    const hash = inputHash({ engineVersion: ENGINE_VERSION, drivers: plan.drivers, stored, members: plan.members.map((m) => [m.key, m.input]) });
+    const hash = inputHash({ engineVersion: ENGINE_VERSION, drivers: plan.drivers, stored, start: request.start, members: plan.members.map((m) => [m.key, m.input]) });
     // Within the catchment: a run is read back (and listed) under the catchment it was started for.
     const same = await scope.from<RunRow>('runs').where({ catchment_id: catchmentId, input_hash: hash }).whereIn('status', ['queued', 'running', 'done']).orderBy('id', 'desc').first();
     if (same) return { run: toRun(same), reused: true };
@@ -105,17 +113,17 @@ export class RunService {
       changes: JSON.stringify(scenario.changes), baseline_changes: baseline ? JSON.stringify(baseline.changes) : null,
       attribution: request.attribution, ensemble_size: request.ensembleSize, ensemble_seed: request.ensembleSeed,
       status: 'queued', progress: 0, simulation_count: members.length, engine_version: ENGINE_VERSION, input_hash: hash,
-      period_from: period?.from ?? null, period_to: period?.to ?? null, created_by: userId,
+      period_from: period?.from ?? null, period_to: period?.to ?? null, start_options: JSON.stringify(request.start), created_by: userId,
     });
     const run = await this.get(scope, catchmentId, id);
     this.executor.enqueue({ runId: id, organisationId: scope.organisationId, members });
     return { run, reused: false };
   }
 
-  /** Stored catchment and forcing for a period, for the builder's in-browser preview. */
+  /** Stored catchment and forcing for a period with the default spin-up, for the builder's in-browser preview. */
   async previewInputs(scope: TenantScope, catchmentId: number, period: { from: string; to: string }): Promise<CatchmentInputs> {
     await scope.findOr404('catchments', catchmentId, 'Catchment');
-    return this.inputs(scope, catchmentId, period);
+    return this.inputs(scope, catchmentId, period, spanFor(DEFAULT_RUN_START));
   }
 
   async get(scope: TenantScope, catchmentId: number, id: number): Promise<Run> {

@@ -3,6 +3,8 @@ import type { BandMonthRow, SimulationSummary } from '../../../shared/analysis/s
 import type { MemberPlan } from '../../../shared/analysis/run-plan';
 import { SOURCES, type Source } from '../../../shared/melt/result';
 import type { TenantScope } from '../tenant-scope';
+import type { ShortwaveSource } from '../../../shared/melt/schema';
+import type { StartReport } from '../../../shared/melt/spin-up';
 
 /**
  * Rows per INSERT: MySQL allows 65,535 placeholders per statement, and building one statement
@@ -26,7 +28,7 @@ export async function storeMembers(scope: TenantScope, runId: number, members: {
       const memberId = await s.insert('run_members', {
         run_id: runId, member_key: plan.key, kind: plan.kind, combination_mask: plan.combinationMask, ensemble_index: plan.ensembleIndex,
         parameters: JSON.stringify(plan.input.parameters), start_date: summary.startDate, day_count: summary.dayCount,
-        bands: JSON.stringify(summary.bands),
+        bands: JSON.stringify(summary.bands), start_report: summary.start ? JSON.stringify(summary.start) : null, shortwave_source: summary.shortwaveSource,
       });
       for (const m of summary.months) {
         months.push({
@@ -34,6 +36,8 @@ export async function storeMembers(scope: TenantScope, runId: number, members: {
           snow_melt_mm: m.snowMeltMm, ice_melt_mm: m.iceMeltMm, debris_ice_melt_mm: m.debrisIceMeltMm, rain_mm: m.rainMm,
           snowfall_mm: m.snowfallMm, mean_albedo: m.meanAlbedo, absorbed_shortwave_wm2: m.absorbedShortwaveWm2,
           net_shortwave_wm2: m.netShortwaveWm2, net_longwave_wm2: m.netLongwaveWm2, sensible_heat_wm2: m.sensibleHeatWm2,
+          rainfall_mm: m.rainfallMm, surface_melt_mm: m.surfaceMeltMm, refrozen_mm: m.refrozenMm, sublimation_mm: m.sublimationMm,
+          evaporation_mm: m.evaporationMm, snow_cover_fraction: m.meanSnowCoverFraction, latent_heat_wm2: m.latentHeatWm2,
         });
       }
       for (let d = 0; d < summary.dayCount; d++) {
@@ -56,6 +60,8 @@ interface MemberRow {
   start_date: string | Date;
   day_count: number;
   bands: string | { elevationM: number; areaM2: number }[];
+  start_report: string | StartReport | null;
+  shortwave_source: ShortwaveSource | null;
 }
 
 export interface StoredMember {
@@ -81,6 +87,7 @@ export async function loadMembers(scope: TenantScope, runId: number): Promise<St
     const summary: SimulationSummary = {
       startDate: isoDate(r.start_date), dayCount: r.day_count, bands: parsed(r.bands), months: [],
       dailyM3: { snow: new Array(r.day_count).fill(0), ice: new Array(r.day_count).fill(0), debrisIce: new Array(r.day_count).fill(0), rain: new Array(r.day_count).fill(0) },
+      start: r.start_report ? parsed(r.start_report) : null, shortwaveSource: r.shortwave_source,
     };
     byMember.set(r.id, { key: r.member_key, kind: r.kind, combinationMask: r.combination_mask, ensembleIndex: r.ensemble_index, summary });
   }
@@ -90,6 +97,9 @@ export async function loadMembers(scope: TenantScope, runId: number): Promise<St
       debrisIceMeltMm: m.debris_ice_melt_mm, rainMm: m.rain_mm, snowfallMm: m.snowfall_mm, meanAlbedo: m.mean_albedo,
       absorbedShortwaveWm2: m.absorbed_shortwave_wm2, netShortwaveWm2: m.net_shortwave_wm2, netLongwaveWm2: m.net_longwave_wm2,
       sensibleHeatWm2: m.sensible_heat_wm2,
+      // Engine 1.x stored none of these; they read as 0 there.
+      rainfallMm: m.rainfall_mm ?? 0, surfaceMeltMm: m.surface_melt_mm ?? 0, refrozenMm: m.refrozen_mm ?? 0, sublimationMm: m.sublimation_mm ?? 0,
+      evaporationMm: m.evaporation_mm ?? 0, meanSnowCoverFraction: m.snow_cover_fraction ?? 0, latentHeatWm2: m.latent_heat_wm2 ?? 0,
     };
     byMember.get(m.member_id)!.summary.months.push(row);
   }

@@ -8,6 +8,7 @@ import type { CalibrationStore } from '../lab/calibration-store';
 import type { TenantScope } from '../tenant-scope';
 import { climateRecord } from './climate-record';
 import { defaultSeason } from '../../../shared/analysis/default-season';
+import { RETIRED_PARAMETER_NAMES } from '../../../shared/melt/parameters';
 
 interface ScenarioRow {
   id: number;
@@ -22,9 +23,18 @@ interface ScenarioRow {
   updated_at: Date;
 }
 
-/** Stored changes of any schema version, read as the current version (version 1 is the only one so far). */
+/**
+ * Stored changes as the current schema reads them. Scenarios were converted by migration; runs
+ * keep the changes they were made with, so a version 1 run's changes are read as engine 1.x ran
+ * them — loads on pristine snow (no background), no dry deposition, retired parameters dropped.
+ */
 export function readChanges(raw: string | object): ScenarioChanges {
-  return scenarioChangesSchema.parse(typeof raw === 'string' ? JSON.parse(raw) : raw);
+  const stored = (typeof raw === 'string' ? JSON.parse(raw) : structuredClone(raw)) as Record<string, unknown> & { parameters?: Record<string, number> };
+  if (stored.schemaVersion === 1) {
+    stored.schemaVersion = SCENARIO_SCHEMA_VERSION;
+    for (const name of RETIRED_PARAMETER_NAMES) delete stored.parameters?.[name];
+  }
+  return scenarioChangesSchema.parse(stored);
 }
 
 function toScenario(row: ScenarioRow): ScenarioRecord {
@@ -68,16 +78,19 @@ export class ScenarioService {
 
   /**
    * What the scenario builder starts from: the stored climate record, its latest full melt season
-   * and the catchment's newest saved calibration.
+   * the catchment's newest saved calibration and the background loads snow loads are added to.
    */
   async setup(scope: TenantScope, catchmentId: number): Promise<ScenarioSetup> {
-    const catchment = await scope.findOr404<{ latitude_deg: number }>('catchments', catchmentId, 'Catchment');
+    const catchment = await scope.findOr404<{ latitude_deg: number; background_black_carbon_ng_g: number; background_dust_ug_g: number }>('catchments', catchmentId, 'Catchment');
     const record = await climateRecord(scope, catchmentId);
     const saved = await this.calibrations.current(scope, catchmentId);
     const calibration = saved
       ? { parameters: saved.set.parameters, precipitationFactor: saved.set.precipitationFactor, savedBy: saved.savedBy, savedAt: saved.savedAt }
       : null;
-    return { record, defaultPeriod: record ? defaultSeason(record, catchment.latitude_deg) : null, calibration };
+    return {
+      record, defaultPeriod: record ? defaultSeason(record, catchment.latitude_deg) : null, calibration,
+      background: { blackCarbonSnowNgG: catchment.background_black_carbon_ng_g, dustSnowUgG: catchment.background_dust_ug_g },
+    };
   }
 
   async create(scope: TenantScope, catchmentId: number, body: z.output<typeof scenarioCreateSchema>, userId: number): Promise<ScenarioRecord> {

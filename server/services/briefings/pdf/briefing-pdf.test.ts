@@ -31,7 +31,7 @@ describe('briefingPdf', () => {
     for (const h of s.headlines) {
       expect(text).toContain(h.variantName);
       expect(text).toContain(`${formatRanged(scaleRanged(h.addedVolumeM3, 1e-6), 2)} million m³`);
-      expect(text).toContain(`${formatRanged(h.shareOfSeasonalRunoffPct, 1)} %`);
+      expect(text).toContain(`${formatRanged(h.addedRunoffPercentOfBaseline, 1)} %`);
     }
     for (const caution of CAUTIONS) expect(text).toContain(caution);
     expect(text).toContain(`Page 2 of ${pages}`);

@@ -2,7 +2,7 @@ import PDFDocument from 'pdfkit';
 import type { BriefingSnapshot, Headline } from '../../../../shared/schemas/briefings';
 import { TIMING_NOTE, formatRanged, scaleRanged } from '../../../../shared/briefings/format';
 import { formatNumber } from '../../../../shared/text/numbers';
-import { CAUTIONS_HEADING } from '../../../../shared/text/cautions';
+import { CALIBRATION_HEADING, CAUTIONS_HEADING } from '../../../../shared/text/cautions';
 import { chartSvg } from './chart-svg';
 import { FONTS } from './fonts';
 import { MUTED, PAGE_MARGIN, contentWidth, ensureRoom, heading, labelledLine, pageNumbers, paragraph, svgFigure, table } from './layout';
@@ -39,7 +39,7 @@ function headlineBlock(doc: Doc, h: Headline): void {
   const lines: [string, string][] = [
     ['Added melt volume', `${formatRanged(scaleRanged(h.addedVolumeM3, 1e-6), 2)} million m³`],
     [`Added discharge in the melt season (${h.meltSeason})`, `${formatRanged(h.addedMeltSeasonDischargeM3s, 3)} m³/s`],
-    ['Share of seasonal runoff', `${formatRanged(h.shareOfSeasonalRunoffPct, 1)} %`],
+    ['Added runoff, % of baseline', `${formatRanged(h.addedRunoffPercentOfBaseline, 1)} %`],
     [`Timing shift (${TIMING_NOTE})`, `${formatRanged(h.timingShiftDays, 1)} days`],
   ];
   for (const [label, value] of lines) labelledLine(doc, label, value, { labelWidth: 250, indent: 10, bold: true });
@@ -73,6 +73,12 @@ function assumptions(doc: Doc, s: BriefingSnapshot): void {
     columns: [{ label: 'Run', unit: '' }, { label: 'Engine version', unit: '' }, { label: 'Input hash', unit: '' }, { label: 'Ensemble members', unit: '' }],
     rows: a.runs.map((r) => [`${r.scenarioName} (#${r.id})`, r.engineVersion, r.inputHash, r.ensembleSize]),
   });
+  if (a.setUp.length) {
+    table(doc, {
+      columns: [{ label: 'Run set-up', unit: '' }, { label: 'Item', unit: '' }, { label: 'Value', unit: '' }],
+      rows: a.setUp.flatMap((run) => run.lines.map((l, i) => [i === 0 ? run.scenarioName : '', l.label, l.value])),
+    });
+  }
 }
 
 /** The briefing version as a PDF: title page, headline numbers, sections in order, assumptions, cautions last. */
@@ -94,6 +100,10 @@ export function briefingPdf(s: BriefingSnapshot): Promise<Buffer> {
   doc.addPage();
   heading(doc, 'Headline numbers', 17);
   paragraph(doc, `Each variant against the baseline “${s.baselineName}”. Ranges in brackets are the 5–95 % spread of the ensemble where one was run.`, { size: 9, color: MUTED });
+  if (s.warnings.length) {
+    heading(doc, CALIBRATION_HEADING);
+    s.warnings.forEach((w) => paragraph(doc, `• ${w}`, { bold: true }));
+  }
   s.headlines.forEach((h) => headlineBlock(doc, h));
   if (s.summary.trim()) {
     heading(doc, 'Summary');
@@ -113,6 +123,8 @@ export function briefingPdf(s: BriefingSnapshot): Promise<Buffer> {
     } else narrative(doc, section.markdown);
   }
   assumptions(doc, s);
+  // The cautions stay together on one page (about 30 pt a line of text).
+  ensureRoom(doc, 60 + 30 * s.cautions.length);
   heading(doc, CAUTIONS_HEADING);
   s.cautions.forEach((c) => paragraph(doc, `• ${c}`));
   pageNumbers(doc, `${s.title} · version ${s.version}`);

@@ -1,0 +1,81 @@
+import { ICE, stepIce } from './ice-surface';
+import { DEBRIS, stepDebris } from './debris-layers';
+import { ACC, type LoopContext } from './loop-context';
+
+/**
+ * One hour of band b's snow-free glacier (a share `exposed` of the band's glacier): clean ice,
+ * bare ice between debris patches, and debris. Energy balance (surface temperatures, melt,
+ * vapour exchange) or, for the reference models, their melt index; debris in the reference
+ * models melts the clean-ice amount times H* / (H* + h) (Anderson & Anderson 2016).
+ * Debris always takes the stability correction: midday debris is far warmer than the air, and the
+ * free convection over it is what keeps its surface within measured temperatures (Reid & Brock
+ * 2010; Collier et al. 2014) [memory]; the run's option applies to snow and ice.
+ */
+export function glacierHour(c: LoopContext, b: number, month: number, exposed: number, global: number, longIn: number, airC: number, airK: number): void {
+  const run = c.run;
+  const g = run.geometry;
+  const p = run.params;
+  const s = run.state;
+  const a = c.acc;
+  const out = c.scratch;
+  const clean = g.cleanIceShare[b];
+  const debris = g.debrisShare[b];
+  if (exposed <= 0) {
+    s.iceSurfaceC[b] = s.iceDeepC[b] = 0;
+    s.debrisSurfaceC[b] = s.debrisUpperC[b] = s.debrisLowerC[b] = 0;
+    return;
+  }
+  const patch = g.debrisPatchShare[b];
+  const iceAlbedo = run.tables.iceAlbedo[month];
+  const bareShare = clean + (c.model === 0 ? debris * (1 - patch) : 0);
+  if (bareShare > 0 || (c.model !== 0 && debris > 0)) {
+    const absorbed = global * (1 - iceAlbedo);
+    let melt: number;
+    if (c.model === 0) {
+      stepIce(out, run.surfaceVapour, c.air, absorbed, longIn, s.iceSurfaceC[b], s.iceDeepC[b], c.snowIceDrag, c.snowIceHeightOverRoughness, c.stability);
+      melt = out[ICE.melt];
+      s.iceSurfaceC[b] = out[ICE.surfaceC];
+      s.iceDeepC[b] = out[ICE.deepC];
+      const vapour = exposed * bareShare * out[ICE.vapourLoss];
+      a[ACC.iceVapour] += vapour;
+      if (out[ICE.evaporating] > 0) a[ACC.evaporation] += vapour;
+      else a[ACC.sublimation] += vapour;
+      const weight = exposed * bareShare;
+      a[ACC.longwaveNet] += weight * out[ICE.netLongwave];
+      a[ACC.sensible] += weight * out[ICE.sensible];
+      a[ACC.latent] += weight * out[ICE.latent];
+    } else {
+      melt = c.model === 1
+        ? (airC > 0 ? (p.degreeDayIce / 24) * airC : 0)
+        : (airC > p.etiThresholdC ? p.etiTemperatureFactor * airC + p.etiShortwaveFactor * absorbed : 0);
+      if (melt < 0) melt = 0;
+    }
+    a[ACC.iceMelt] += exposed * clean * melt;
+    if (c.model === 0) a[ACC.debrisMelt] += exposed * debris * (1 - patch) * melt;
+    else a[ACC.debrisMelt] += exposed * debris * melt * (p.debrisHalfThicknessM / (p.debrisHalfThicknessM + g.debrisThicknessM[b]));
+    const weight = exposed * bareShare;
+    a[ACC.weight] += weight;
+    a[ACC.shortwaveIn] += weight * global;
+    a[ACC.shortwaveAbsorbed] += weight * absorbed;
+    a[ACC.albedoWeighted] += weight * iceAlbedo * global;
+  }
+  if (debris > 0 && patch > 0 && c.model === 0) {
+    const absorbed = global * (1 - p.debrisAlbedo);
+    const column = c.columns[b];
+    column.sensibleCoefficient = (g.pressurePa[b] / airK) * c.cpOverRd * c.debrisExchange * c.air.windMs;
+    stepDebris(out, column, absorbed, p.debrisEmissivity * longIn, airC, c.air.windMs, s.debrisSurfaceC[b], s.debrisUpperC[b], s.debrisLowerC[b], true);
+    s.debrisSurfaceC[b] = out[DEBRIS.surfaceC];
+    s.debrisUpperC[b] = out[DEBRIS.upperC];
+    s.debrisLowerC[b] = out[DEBRIS.lowerC];
+    const weight = exposed * debris * patch;
+    a[ACC.debrisMelt] += weight * out[DEBRIS.melt];
+    if (a[ACC.debrisSeen] === 0 || out[DEBRIS.surfaceC] > a[ACC.debrisMax]) a[ACC.debrisMax] = out[DEBRIS.surfaceC];
+    a[ACC.debrisSeen] = 1;
+    a[ACC.weight] += weight;
+    a[ACC.shortwaveIn] += weight * global;
+    a[ACC.shortwaveAbsorbed] += weight * absorbed;
+    a[ACC.longwaveNet] += weight * out[DEBRIS.netLongwave];
+    a[ACC.sensible] += weight * out[DEBRIS.sensible];
+    a[ACC.albedoWeighted] += weight * p.debrisAlbedo * global;
+  }
+}

@@ -1,0 +1,97 @@
+import type { BandState } from './state';
+
+/**
+ * Black carbon and dust in the snow, per m² of snow-covered ground: a surface layer of mass Ms
+ * (snowSurfaceLayerMm) with its own concentration, the pack below it, and one buried dirty
+ * horizon (the surface of an earlier melt season or a dusty spell) with its impurity mass and
+ * the snow lying on top of it.
+ *
+ * - Snowfall buries the surface: the new surface layer is the fresh snow (at the fresh-snow
+ *   concentration) plus what is left of the old surface layer. The buried part goes into the pack
+ *   at the pack's concentration; what it held beyond that joins the buried horizon, so last
+ *   summer's dirt reappears when the melt reaches it, not with the first melt of spring.
+ * - Dry deposition (ng or µg per m² per hour) lands on the surface layer.
+ * - Melt leaves impurities behind: of the impurity in melted snow only the scavenging share k
+ *   (Flanner et al. 2007; Doherty et al. 2013) [memory] leaves with the meltwater, the rest stays on
+ *   the surface; sublimation leaves it all. The surface layer is refilled from the pack at the
+ *   pack's concentration, so surface loads rise through the melt season, towards the pack's
+ *   concentration over k. When the surface reaches the buried horizon, its impurities join it.
+ * - Where the whole pack is thinner than the surface layer, what melt leaves behind lies on the
+ *   ground or ice below and no longer concentrates in the remaining snow (assumption).
+ * Concentrations are capped at the albedo table's largest load.
+ */
+const MAX_BLACK_CARBON_NG_G = 50_000;
+const MAX_DUST_UG_G = 5_000;
+
+/** Fresh snow of mass `snow` (kg m⁻²) falls on a pack of `solid` kg m⁻² (per m² of snow-covered ground). */
+export function buryUnderSnowfall(state: BandState, b: number, snow: number, solid: number, layerMass: number, freshBc: number, freshDust: number): void {
+  if (solid <= 0) {
+    state.surfaceBlackCarbonNgG[b] = state.packBlackCarbonNgG[b] = freshBc;
+    state.surfaceDustUgG[b] = state.packDustUgG[b] = freshDust;
+    state.horizonBlackCarbonNgM2[b] = state.horizonDustUgM2[b] = state.horizonDepthMm[b] = 0;
+    return;
+  }
+  const oldSurface = solid < layerMass ? solid : layerMass;
+  const oldPack = solid - oldSurface;
+  const total = solid + snow;
+  const newSurface = total < layerMass ? total : layerMass;
+  const freshInSurface = snow < newSurface ? snow : newSurface;
+  const keptOfSurface = Math.min(newSurface - freshInSurface, oldSurface);
+  const buried = oldSurface - keptOfSurface;
+  const freshToPack = snow - freshInSurface;
+  const newPack = oldPack + buried + freshToPack;
+  const excessBc = buried * Math.max(0, state.surfaceBlackCarbonNgG[b] - state.packBlackCarbonNgG[b]) * 1000;
+  const excessDust = buried * Math.max(0, state.surfaceDustUgG[b] - state.packDustUgG[b]) * 1000;
+  burySurfaceLoad(state.surfaceBlackCarbonNgG, state.packBlackCarbonNgG, b, freshBc, freshInSurface, keptOfSurface, newSurface, oldPack, buried, freshToPack, newPack);
+  burySurfaceLoad(state.surfaceDustUgG, state.packDustUgG, b, freshDust, freshInSurface, keptOfSurface, newSurface, oldPack, buried, freshToPack, newPack);
+  // The horizon sinks under the new snow; a new excess joins it at an impurity-weighted depth.
+  const held = state.horizonBlackCarbonNgM2[b] + state.horizonDustUgM2[b] * 1000;
+  const added = excessBc + excessDust * 1000;
+  const depth = state.horizonDepthMm[b] + snow;
+  state.horizonDepthMm[b] = held + added > 0 ? (held * depth + added * freshInSurface) / (held + added) : depth;
+  state.horizonBlackCarbonNgM2[b] += excessBc;
+  state.horizonDustUgM2[b] += excessDust;
+}
+
+function burySurfaceLoad(
+  surface: Float64Array, pack: Float64Array, b: number, fresh: number, freshInSurface: number, keptOfSurface: number,
+  newSurface: number, oldPack: number, buried: number, freshToPack: number, newPack: number,
+): void {
+  const buriedAtPack = Math.min(surface[b], pack[b]);
+  surface[b] = (fresh * freshInSurface + surface[b] * keptOfSurface) / newSurface;
+  pack[b] = newPack > 0 ? (pack[b] * oldPack + buriedAtPack * buried + fresh * freshToPack) / newPack : surface[b];
+}
+
+/** Dry deposition onto the surface layer of a pack of `solid` kg m⁻². */
+export function depositOnSurface(state: BandState, b: number, blackCarbonNgM2: number, dustUgM2: number, solid: number, layerMass: number): void {
+  const grams = 1000 * (solid < layerMass ? solid : layerMass);
+  if (grams <= 0) return;
+  state.surfaceBlackCarbonNgG[b] = Math.min(MAX_BLACK_CARBON_NG_G, state.surfaceBlackCarbonNgG[b] + blackCarbonNgM2 / grams);
+  state.surfaceDustUgG[b] = Math.min(MAX_DUST_UG_G, state.surfaceDustUgG[b] + dustUgM2 / grams);
+}
+
+/**
+ * The surface loses `melt` kg m⁻² to melting and `vapour` kg m⁻² to sublimation from a pack of
+ * `solid` kg m⁻² (before the loss); scavenging shares kBc, kDust.
+ */
+export function enrichOnLoss(state: BandState, b: number, melt: number, vapour: number, solid: number, layerMass: number, kBc: number, kDust: number): void {
+  const lost = melt + (vapour > 0 ? vapour : 0);
+  if (lost <= 0 || solid <= layerMass) return;
+  const below = solid - layerMass;
+  const refill = lost < below ? lost : below;
+  const mass = layerMass - lost + refill;
+  if (mass <= 0) return;
+  leaveBehind(state.surfaceBlackCarbonNgG, state.packBlackCarbonNgG, b, kBc, MAX_BLACK_CARBON_NG_G, layerMass, melt, refill, mass);
+  leaveBehind(state.surfaceDustUgG, state.packDustUgG, b, kDust, MAX_DUST_UG_G, layerMass, melt, refill, mass);
+  const depth = state.horizonDepthMm[b] - lost;
+  state.horizonDepthMm[b] = depth > 0 ? depth : 0;
+  if (depth < layerMass && (state.horizonBlackCarbonNgM2[b] > 0 || state.horizonDustUgM2[b] > 0)) {
+    depositOnSurface(state, b, state.horizonBlackCarbonNgM2[b], state.horizonDustUgM2[b], mass, layerMass);
+    state.horizonBlackCarbonNgM2[b] = state.horizonDustUgM2[b] = state.horizonDepthMm[b] = 0;
+  }
+}
+
+function leaveBehind(surfaceLoad: Float64Array, packLoad: Float64Array, b: number, k: number, cap: number, surface: number, melt: number, refill: number, mass: number): void {
+  const kept = surfaceLoad[b] * surface - k * surfaceLoad[b] * melt + packLoad[b] * refill;
+  surfaceLoad[b] = Math.min(cap, kept / mass);
+}

@@ -1,0 +1,16 @@
+import { z } from 'zod';
+
+/** Names of the per-band state variables a run carries from hour to hour (see state.ts). */
+export const STATE_FIELDS = [
+  'sweMm', 'liquidMeltMm', 'liquidRainMm', 'peakSweMm', 'freshSweMm', 'grainRadiusUm',
+  'snowSurfaceC', 'snowDeepC', 'surfaceBlackCarbonNgG', 'surfaceDustUgG', 'packBlackCarbonNgG', 'packDustUgG',
+  'horizonBlackCarbonNgM2', 'horizonDustUgM2', 'horizonDepthMm',
+  'iceSurfaceC', 'iceDeepC', 'debrisSurfaceC', 'debrisUpperC', 'debrisLowerC',
+] as const;
+export type StateField = (typeof STATE_FIELDS)[number];
+
+/** The state a run ended with, as plain numbers per band: a later run can start from it. */
+export const engineStateSchema = z.object(
+  Object.fromEntries(STATE_FIELDS.map((f) => [f, z.array(z.number().min(-100).max(1e7))])) as Record<StateField, z.ZodArray<z.ZodNumber>>,
+);
+export type EngineState = z.output<typeof engineStateSchema>;
