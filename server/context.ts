@@ -26,8 +26,12 @@ export interface AppContext
   threads: ThreadBudget;
   /** Marks work an earlier process left unfinished as failed and starts a thread per pool (server start). */
   start(): Promise<void>;
-  /** Waits for runs and lab jobs under way, then stops the worker threads and the mail transport. The database stays open. */
-  close(): Promise<void>;
+  /**
+   * Waits for runs and lab jobs under way (at most `graceMs`, after which those left end failed with
+   * the restart message; without it, until they end), then stops the worker threads and the mail
+   * transport. The database stays open.
+   */
+  close(graceMs?: number): Promise<void>;
 }
 
 export interface ContextOptions {
@@ -81,9 +85,14 @@ export function createContext(config: AppConfig, db: Knex, options: ContextOptio
       await labServices.lab.jobs.recover();
       for (const pool of pools) pool.warm();
     },
-    async close() {
-      await runServices.runExecutor.idle();
-      await labServices.lab.jobs.idle();
+    async close(graceMs?: number) {
+      if (graceMs === undefined) {
+        await runServices.runExecutor.idle();
+        await labServices.lab.jobs.idle();
+      } else {
+        // One deadline for both: they wait side by side.
+        await Promise.all([runServices.runExecutor.stop(graceMs), labServices.lab.jobs.stop(graceMs)]);
+      }
       await Promise.all(pools.map((pool) => pool.close()));
       mailServices.mail.close();
     },

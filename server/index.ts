@@ -17,9 +17,11 @@ export async function startServer(options: ContextOptions = {}): Promise<{ close
   return {
     url: http.url,
     ctx,
+    // One deadline for the whole shutdown: answers in progress first, then runs and lab jobs with what is left of it.
     close: async () => {
+      const deadline = Date.now() + config.shutdownGraceMs;
       await http.close();
-      await ctx.close();
+      await ctx.close(Math.max(0, deadline - Date.now()));
       await db.destroy();
     },
   };
