@@ -54,7 +54,11 @@ describe('route × role × tenant, from the route table', () => {
     const reads = memberRoutes().filter((r) => withIds(r) && r.method === 'get' && mayCall(role, r));
     for (const route of reads) {
       const res = await agent.get(pathIn(own, route.path));
-      expect(res.status, label(role, route, res.status)).not.toBe(404);
+      const text = label(role, route, res.status);
+      expect(res.status, text).not.toBe(404);
+      expect(res.status, text).not.toBe(500);
+      // Its answers and exports hold tenant data: never kept by a browser or a shared cache.
+      expect(res.headers['cache-control'], text).toBe('no-store');
     }
   });
 });

@@ -2,6 +2,7 @@ import { gzipSync } from 'node:zlib';
 import type { Knex } from 'knex';
 import { insertBaseline } from '../../server/services/catchments/baseline-scenario';
 import { TenantScope } from '../../server/services/tenant-scope';
+import { testSnapshot } from '../fixtures/briefing-snapshot';
 import { createOrganisation, unique, type TestOrg } from './factories';
 
 /** One record of every kind a route's path can name, in one organisation, every name carrying `marker`. */
@@ -11,7 +12,7 @@ export interface TenantWorld extends TestOrg {
   uploadToken: string;
 }
 
-/** Rows written straight to the database: the matrix needs ids of every kind, not working results. */
+/** Rows written straight to the database: the matrix needs ids of every kind, each valid enough to be read, not working results. */
 export async function createTenantWorld(db: Knex): Promise<TenantWorld> {
   const marker = unique('World');
   const org = await createOrganisation(db, `${marker} Org`);
@@ -47,8 +48,8 @@ export async function createTenantWorld(db: Knex): Promise<TenantWorld> {
   const [labJob] = await db('lab_jobs').insert({
     organisation_id, catchment_id: catchment, kind: 'sweep', status: 'failed', request: '{}', created_by_name: marker, error_message: marker,
   });
-  const [briefing] = await db('briefings').insert({ organisation_id, catchment_id: catchment, title: `${marker} briefing`, summary: marker, selection: '{}', latest_version: 1 });
-  await db('briefing_versions').insert({ organisation_id, briefing_id: briefing, version: 1, snapshot: JSON.stringify({ title: marker }) });
+  const [briefing] = await db('briefings').insert({ organisation_id, catchment_id: catchment, title: `${marker} briefing`, summary: marker, selection: JSON.stringify({ runIds: [run] }), latest_version: 1 });
+  await db('briefing_versions').insert({ organisation_id, briefing_id: briefing, version: 1, snapshot: JSON.stringify(testSnapshot({ title: `${marker} briefing`, summary: marker })) });
   await db('briefing_shares').insert({ organisation_id, briefing_id: briefing, user_id: org.users.client.id });
   await db('briefing_comments').insert({ organisation_id, briefing_id: briefing, version: 1, user_id: org.users.client.id, body: marker });
   const [invited] = await db('users').insert({ organisation_id, email: `${unique('invited')}@test.example`, name: `${marker} invitee`, role: 'client', status: 'invited' });
