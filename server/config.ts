@@ -25,11 +25,11 @@ const envSchema = z.object({
   SIGNIN_MAX_FAILURES_PER_IP: z.coerce.number().int().positive().default(30),
   SIGNIN_WINDOW_MINUTES: z.coerce.number().positive().default(15),
   /** After SIGNIN_MAX_FAILURES_PER_ACCOUNT failures, each attempt waits a doubling delay from this, up to the maximum. */
+  SIGNIN_BACKOFF_BASE_MS: z.coerce.number().int().positive().default(1000),
+  SIGNIN_BACKOFF_MAX_SECONDS: z.coerce.number().positive().default(30),
   /** Sign-up requests per client address and per e-mail address in an hour; more answer 429. */
   SIGNUPS_PER_IP_PER_HOUR: z.coerce.number().int().positive().default(10),
   SIGNUPS_PER_ADDRESS_PER_HOUR: z.coerce.number().int().positive().default(3),
-  SIGNIN_BACKOFF_BASE_MS: z.coerce.number().int().positive().default(1000),
-  SIGNIN_BACKOFF_MAX_SECONDS: z.coerce.number().positive().default(30),
   // The payment service, reached only through its SDK; locally the fake in stripe-fake/.
   STRIPE_API_HOST: z.string().min(1).default('127.0.0.1'),
   STRIPE_API_PORT: z.coerce.number().int().min(1).max(65535).default(12111),

@@ -47,6 +47,10 @@ describe('accepting', () => {
     const preview = await request(h.t.app).post('/api/invitations/preview').send({ token });
     expect(preview.status).toBe(200);
     expect(preview.body).toMatchObject({ email, role: 'consultant' });
+    // The token never travels in a URL (where proxies, logs and the browser history keep it).
+    const inUrl = await request(h.t.app).get(`/api/invitations/preview?token=${token}`);
+    expect(inUrl.status).not.toBe(200);
+    expect(JSON.stringify(inUrl.body)).not.toContain(email);
 
     const first = await accept(token);
     expect(first.status).toBe(200);
