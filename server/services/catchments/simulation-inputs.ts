@@ -67,7 +67,7 @@ export async function buildSimulationInputs(
 ): Promise<AssembledInputs> {
   const p = parseWith(simulationPeriodSchema, period);
   const catchment = await scope.findOr404<CatchmentRow>('catchments', catchmentId, 'Catchment');
-  const bandRows = await bands.list(scope, catchmentId);
+  const bandRows = await bands.list(scope, catchmentId, { terrain: true });
   const rows: DatasetRow[] = await scope.from<DatasetRow>('datasets').where('catchment_id', catchmentId).orderBy('id', 'desc');
   const newest = (variable: Variable, step?: TimeStep) => rows.find((r) => r.variable === variable && (!step || r.time_step === step));
 
