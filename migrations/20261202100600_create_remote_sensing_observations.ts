@@ -19,7 +19,7 @@ export async function up(knex: Knex): Promise<void> {
       t.double('snow_covered_fraction').nullable();
       t.double('valid_fraction').notNullable();
       t.double('cloud_fraction').notNullable();
-      t.index(['organisation_id', 'catchment_id', 'observed_on']);
+      t.index(['organisation_id', 'catchment_id', 'observed_on'], 'snow_cover_observations_catchment_date');
     });
   }
   if (!(await knex.schema.hasTable('elevation_change_observations'))) {
@@ -39,7 +39,7 @@ export async function up(knex: Knex): Promise<void> {
       t.double('balance_mwe_per_year').notNullable();
       t.double('balance_sigma_mwe_per_year').notNullable();
       t.double('density_kg_m3').notNullable();
-      t.index(['organisation_id', 'catchment_id']);
+      t.index(['organisation_id', 'catchment_id'], 'elevation_change_observations_catchment');
     });
   }
 }
