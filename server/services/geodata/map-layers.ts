@@ -1,4 +1,5 @@
 import { aspectClassIndex } from '../../../shared/geodata/band-zones';
+import { OUTSIDE_CATCHMENT } from '../../../shared/geodata/unit-runs';
 import type { CatchmentZones, DeriveInput } from '../../../shared/geodata/derive';
 import { transformOutline, type Outline } from '../../../shared/geodata/outline';
 import { gridBounds } from '../../../shared/geodata/raster';
@@ -9,8 +10,6 @@ import { encodeGreyAlphaPng } from './png';
 
 /** Longest side of the map's images in cells: enough for a screen, small enough to send. */
 export const MAP_MAX_SIDE = 900;
-/** Elevation stored for cells outside the catchment in the map's cell layer. */
-export const OUTSIDE = -32768;
 
 export type MapGeometry = Pick<CatchmentMap, 'crs' | 'extent' | 'width' | 'height' | 'outlines'>;
 
@@ -19,9 +18,8 @@ export interface MapLayers {
   /** Shaded relief of the whole working grid (sun from the north-west, 45° up), transparent where the DEM has no data. */
   hillshadePng: Buffer;
   /**
-   * The cells the bands are drawn from, at map resolution: Int16 elevation (m, `OUTSIDE` off the
-   * catchment) for every cell, then one byte per cell with its aspect class (0 N, 1 E, 2 S, 3 W),
-   * so any band table's elevation ranges (and response units) can be drawn without the DEM.
+   * The cells the bands are drawn from, at map resolution, as `encodeUnitRuns` reads them, so any
+   * band table's elevation ranges (and response units) can be drawn without the DEM.
    */
   cells: Buffer;
 }
@@ -48,7 +46,7 @@ export function mapLayers(zones: CatchmentZones, input: DeriveInput): MapLayers 
       const z = zones.elevation[i];
       grey[k] = shade[i];
       alpha[k] = z === z ? 255 : 0;
-      cells.writeInt16LE(zones.band[i] >= 0 ? Math.round(z) : OUTSIDE, k * 2);
+      cells.writeInt16LE(zones.band[i] >= 0 ? Math.round(z) : OUTSIDE_CATCHMENT, k * 2);
       cells[width * height * 2 + k] = aspectClassIndex(aspectDeg(gradient.east[i], gradient.north[i]));
     }
   }

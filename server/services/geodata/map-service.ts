@@ -1,4 +1,4 @@
-import { ASPECT_CLASS_VALUES, type BandRow } from '../../../shared/schemas/catchment-bands';
+import { encodeUnitRuns } from '../../../shared/geodata/unit-runs';
 import type { CatchmentMap } from '../../../shared/schemas/geodata';
 import { crsFromEpsg, crsFromText } from '../../../shared/geodata/crs';
 import { pointTransform } from '../../../shared/geodata/reproject';
@@ -8,45 +8,8 @@ import type { CatchmentRow } from '../catchments/catchment-service';
 import type { TenantScope } from '../tenant-scope';
 import { cellsName, type Derivations } from './derivation-service';
 import type { GeodataStore } from './geodata-store';
-import { OUTSIDE, type MapGeometry } from './map-layers';
+import type { MapGeometry } from './map-layers';
 import { json } from './upload-service';
-
-/**
- * Which band row each map cell belongs to, as runs per map row ([row index, count, …], −1 off the
- * catchment): the elevation range holding the cell's elevation (the end ranges take what lies
- * beyond them) and, where the band is split into response units, the unit of the cell's aspect.
- */
-export function unitRuns(cells: Buffer, width: number, height: number, bands: readonly BandRow[]): number[][] {
-  const n = width * height;
-  const ranges: { lowerM: number; upperM: number; byAspect: number[] }[] = [];
-  bands.forEach((b, i) => {
-    let range = ranges.at(-1);
-    // The first unit of a range stands for the aspects the table gives no unit of.
-    if (!range || range.lowerM !== b.lowerM || range.upperM !== b.upperM) {
-      range = { lowerM: b.lowerM, upperM: b.upperM, byAspect: [i, i, i, i] };
-      ranges.push(range);
-    }
-    if (b.aspectClass) range.byAspect[ASPECT_CLASS_VALUES.indexOf(b.aspectClass)] = i;
-  });
-  const out: number[][] = [];
-  for (let r = 0; r < height; r++) {
-    const runs: number[] = [];
-    for (let c = 0; c < width; c++) {
-      const k = r * width + c;
-      const z = cells.readInt16LE(k * 2);
-      let unit = -1;
-      if (z !== OUTSIDE && ranges.length > 0) {
-        let b = 0;
-        while (b < ranges.length - 1 && z >= ranges[b].upperM) b++;
-        unit = ranges[b].byAspect[cells[2 * n + k]];
-      }
-      if (runs.length > 0 && runs[runs.length - 2] === unit) runs[runs.length - 1]++;
-      else runs.push(unit, 1);
-    }
-    out.push(runs);
-  }
-  return out;
-}
 
 /** The map of a catchment: the derivation's hillshade and outlines, with the bands of the table in use (or of a run's table). */
 export class CatchmentMaps {
@@ -63,7 +26,7 @@ export class CatchmentMaps {
     const crs = crsFromText(geometry.crs.proj4, 'map');
     const [x, y] = pointTransform(crsFromEpsg(4326, 'map'), crs)(catchment.longitude_deg, catchment.latitude_deg);
     return {
-      derivationId: row.id, ...geometry, units: unitRuns(cells, geometry.width, geometry.height, bands), bands,
+      derivationId: row.id, ...geometry, units: encodeUnitRuns(cells, geometry.width, geometry.height, bands), bands,
       bandTable: table ? { id: table.id, version: table.version, source: table.source } : null,
       station: { name: catchment.station_name ?? 'Reference station', elevationM: catchment.station_elevation_m, x, y },
     };
