@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
 import { variableSpec, type Variable } from '../shared/schemas/dataset-variables';
+import { BandService } from '../server/services/catchments/band-service';
 import { insertBandTable } from '../server/services/catchments/band-tables';
 import { insertBaseline } from '../server/services/catchments/baseline-scenario';
 import { insertDatasetValues, insertStakeReadings } from '../server/services/catchments/dataset-values';
@@ -39,9 +40,10 @@ export async function seed(knex: Knex): Promise<void> {
     // A new catchment gets its baseline in the same transaction, as through the API.
     else await insertBaseline(new TenantScope(trx, organisationId), catchmentId, user?.id ?? null);
 
-    // A re-run starts the band table's versions again from the demo table (their bands go with them).
-    await trx('band_tables').where({ catchment_id: catchmentId }).delete();
-    await insertBandTable(new TenantScope(trx, organisationId), catchmentId, DEMO_BANDS, { userId: user?.id ?? null });
+    // A re-run keeps the table in use when it is the demo table (runs point to it), else saves the demo table as a new version.
+    const scope = new TenantScope(trx, organisationId);
+    const inUse = await new BandService().list(scope, catchmentId);
+    if (JSON.stringify(inUse) !== JSON.stringify(DEMO_BANDS)) await insertBandTable(scope, catchmentId, DEMO_BANDS, { userId: user?.id ?? null });
 
     const seeded = trx('datasets').where({ catchment_id: catchmentId, source: SOURCE }).select('id');
     await trx('dataset_values').whereIn('dataset_id', seeded.clone()).delete();

@@ -4,7 +4,7 @@ import type { SimulationResult } from '../melt/result';
 import { unitsOfRange } from './band-ranges';
 import { catchmentInput, forcingDays } from './calibration-set';
 import type { LabSite, Period } from './site';
-import { skillScores, type SkillScores } from './skill-scores';
+import { skillScoresOrNull, type SkillScores } from './skill-scores';
 
 /** The geodetic balance of one band's glacier between two surveys, m w.e. per year, with its 1 σ. */
 export interface GeodeticObservation {
@@ -89,12 +89,7 @@ export function compareGeodetic(site: LabSite, observed: readonly GeodeticObserv
   const area = rows.reduce((s, r) => s + r.glacierAreaKm2, 0);
   const wide = (pick: (r: (typeof rows)[number]) => number) => (area > 0 ? rows.reduce((s, r) => s + r.glacierAreaKm2 * pick(r), 0) / area : 0);
   const errors = rows.map((r) => r.simulatedMwePerYear - r.balanceMwePerYear);
-  let scores: SkillScores | null = null;
-  try {
-    scores = rows.length >= 2 ? skillScores(rows.map((r) => r.balanceMwePerYear), rows.map((r) => r.simulatedMwePerYear)) : null;
-  } catch {
-    scores = null;
-  }
+  const scores = skillScoresOrNull(rows.map((r) => r.balanceMwePerYear), rows.map((r) => r.simulatedMwePerYear));
   const n = Math.max(1, rows.length);
   return {
     period,

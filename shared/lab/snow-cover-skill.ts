@@ -4,7 +4,7 @@ import type { SimulationResult } from '../melt/result';
 import { unitsOfRange } from './band-ranges';
 import { catchmentInput, forcingDays } from './calibration-set';
 import type { LabSite } from './site';
-import { skillScores, type SkillScores } from './skill-scores';
+import { skillScoresOrNull, type SkillScores } from './skill-scores';
 
 /** Snow-covered share of one band's cloud-free area on one map date, from a classified snow map. */
 export interface SnowCoverObservation {
@@ -59,12 +59,7 @@ export function compareSnowCover(site: LabSite, observed: readonly SnowCoverObse
     return { ...o, snowCoveredFraction: o.snowCoveredFraction!, simulatedFraction: units.reduce((s, u) => s + u.weight * coverOn(result, u.index, d), 0) };
   });
   const errors = pairs.map((p) => p.simulatedFraction - p.snowCoveredFraction);
-  let scores: SkillScores | null = null;
-  try {
-    scores = skillScores(pairs.map((p) => p.snowCoveredFraction), pairs.map((p) => p.simulatedFraction));
-  } catch {
-    scores = null;
-  }
+  const scores = skillScoresOrNull(pairs.map((p) => p.snowCoveredFraction), pairs.map((p) => p.simulatedFraction));
   return {
     pairs,
     leftOut: observed.length - pairs.length,

@@ -1,5 +1,5 @@
 import type { DerivedBand } from '../../../shared/geodata/terrain-fields';
-import { deriveRequestSchema, type Derivation, type DeriveRequest } from '../../../shared/schemas/geodata';
+import type { deriveRequestSchema, Derivation } from '../../../shared/schemas/geodata';
 import type { z } from 'zod';
 import { conflict, notFound } from '../../errors';
 import type { UserRow } from '../auth/auth-service';

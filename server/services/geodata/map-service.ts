@@ -36,7 +36,7 @@ export class CatchmentMaps {
     if (runId === undefined) return this.bands.current(scope, catchmentId);
     const run: { band_table_id: number | null } | undefined = await scope.from('runs').where('runs.id', runId).where('catchment_id', catchmentId).first('band_table_id');
     if (!run) throw notFound('Run');
-    if (run.band_table_id === null) return null;
+    if (run.band_table_id === null) throw validationFailed('This run was made before its band table was recorded, so its bands cannot be drawn on the map.', 'run');
     const table: { id: number; version: number; source: 'entered' | 'derived' } | undefined = await scope.from('band_tables').where('band_tables.id', run.band_table_id).first('id', 'version', 'source');
     return table ?? null;
   }
