@@ -41,10 +41,18 @@ const toBand = (r: BandDbRow): BandRow => ({
   ...(r.aspect_class ? { aspectClass: r.aspect_class } : {}),
 });
 
+/**
+ * The engine's band schema takes horizon angles from −30°. Lower ones (the ground under a steep
+ * cell, looking down its slope) are raised to it: they lie below any sun that shines, and raising
+ * them changes the interpolated sunlit share of a sun above the horizon only slightly.
+ */
+const LOWEST_ENGINE_HORIZON_DEG = -30;
+
 function terrainOf(r: BandDbRow): TerrainFields {
   if (r.sky_view_factor === null) return {};
   const horizon = typeof r.horizon_deg === 'string' ? (JSON.parse(r.horizon_deg) as number[][]) : r.horizon_deg;
-  return { skyViewFactor: r.sky_view_factor, ...(horizon ? { horizonDeg: horizon } : {}) };
+  const forEngine = horizon?.map((sector) => sector.map((v) => Math.max(LOWEST_ENGINE_HORIZON_DEG, v)));
+  return { skyViewFactor: r.sky_view_factor, ...(forEngine ? { horizonDeg: forEngine } : {}) };
 }
 
 const sameUnit = (a: BandRow, b: BandRow): boolean => a.lowerM === b.lowerM && a.upperM === b.upperM && (a.aspectClass ?? null) === (b.aspectClass ?? null);
