@@ -4,6 +4,17 @@ import { roundTo } from '../text/numbers';
 import type { ChartSpec } from './chart-spec';
 import { lineStyle } from './palette';
 
+/** The frame of a profile chart: a quantity (x) against elevation (y), as hypsometry and balance profiles are drawn. */
+export function profileFrame(xName: string) {
+  return {
+    tooltip: { trigger: 'item' },
+    legend: { top: 0 },
+    grid: { left: 64, right: 24, top: 40, bottom: 48 },
+    xAxis: { type: 'value', name: xName, nameLocation: 'middle', nameGap: 28 },
+    yAxis: { type: 'value', name: 'Elevation (m)', scale: true },
+  };
+}
+
 /**
  * Hypsometry of the table in use beside the one derived from the DEM: area per 100 m of
  * elevation (km²), so bands of different widths and the DEM's 50 m steps compare on one axis.
@@ -23,11 +34,7 @@ export function hypsometryComparisonChart(current: readonly BandRow[], derived: 
   const now = ranges(current);
   return {
     option: {
-      tooltip: { trigger: 'item' },
-      legend: { top: 0 },
-      grid: { left: 64, right: 24, top: 40, bottom: 48 },
-      xAxis: { type: 'value', name: 'Area per 100 m of elevation (km²)', nameLocation: 'middle', nameGap: 28 },
-      yAxis: { type: 'value', name: 'Elevation (m)', scale: true },
+      ...profileFrame('Area per 100 m of elevation (km²)'),
       series: [
         { name: 'Table in use', type: 'line', data: steps(now), showSymbol: false, ...lineStyle(0, true) },
         { name: 'Derived from the DEM (50 m steps)', type: 'line', data: steps(derived), showSymbol: false, ...lineStyle(1) },
@@ -69,11 +76,7 @@ export function geodeticBalanceChart(change: ElevationChange): ChartSpec {
   const mid = (r: { lowerM: number; upperM: number }) => (r.lowerM + r.upperM) / 2;
   return {
     option: {
-      tooltip: { trigger: 'item' },
-      legend: { top: 0 },
-      grid: { left: 64, right: 24, top: 40, bottom: 48 },
-      xAxis: { type: 'value', name: 'Balance (m w.e. per year)', nameLocation: 'middle', nameGap: 28 },
-      yAxis: { type: 'value', name: 'Elevation (m)', scale: true },
+      ...profileFrame('Balance (m w.e. per year)'),
       series: [
         { name: `Geodetic balance ${change.fromDate} to ${change.toDate}`, type: 'line', data: change.rows.map((r) => [roundTo(r.balanceMwePerYear, 3), mid(r)]), ...lineStyle(0) },
         { name: '− 1 σ', type: 'line', data: change.rows.map((r) => [roundTo(r.balanceMwePerYear - r.balanceSigmaMwePerYear, 3), mid(r)]), showSymbol: false, ...lineStyle(1, true), lineStyle: { type: 'dotted', width: 1 } },

@@ -1,9 +1,9 @@
 import type { GeodeticComparisonReply, SnowCoverComparisonReply } from '../schemas/lab-remote-sensing';
 import { roundTo } from '../text/numbers';
 import type { ChartSpec } from './chart-spec';
+import { profileFrame } from './geodata-charts';
 import { GUIDE_GREY, lineStyle } from './palette';
 
-const GRID = { left: 64, right: 24, top: 40, bottom: 48 };
 
 /** Mapped against simulated snow-covered fraction (%), one point per band and map date, with the 1:1 line. */
 export function snowCoverSkillChart(r: SnowCoverComparisonReply): ChartSpec {
@@ -12,7 +12,7 @@ export function snowCoverSkillChart(r: SnowCoverComparisonReply): ChartSpec {
     option: {
       tooltip: { trigger: 'item' },
       legend: { top: 0, type: 'scroll' },
-      grid: GRID,
+      grid: { left: 64, right: 24, top: 40, bottom: 48 },
       xAxis: { type: 'value', name: 'Mapped snow-covered fraction (%)', nameLocation: 'middle', nameGap: 28, min: 0, max: 100 },
       yAxis: { type: 'value', name: 'Simulated (%)', min: 0, max: 100 },
       series: [
@@ -35,11 +35,7 @@ export function geodeticSkillChart(r: GeodeticComparisonReply): ChartSpec {
   const mid = (x: { lowerM: number; upperM: number }) => (x.lowerM + x.upperM) / 2;
   return {
     option: {
-      tooltip: { trigger: 'item' },
-      legend: { top: 0 },
-      grid: GRID,
-      xAxis: { type: 'value', name: 'Balance (m w.e. per year)', nameLocation: 'middle', nameGap: 28 },
-      yAxis: { type: 'value', name: 'Elevation (m)', scale: true },
+      ...profileFrame('Balance (m w.e. per year)'),
       series: [
         { name: `Geodetic ${r.rows[0]?.fromDate ?? ''} to ${r.rows[0]?.toDate ?? ''}`, type: 'line', data: r.rows.map((x) => [roundTo(x.balanceMwePerYear, 3), mid(x)]), ...lineStyle(0, true) },
         {
