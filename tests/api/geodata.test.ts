@@ -5,6 +5,8 @@ import type TestAgent from 'supertest/lib/agent';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { demoGeodataFiles, type DemoGeodataFile } from '../../seeds/data/demo-geodata';
 import { DEMO_BANDS } from '../../seeds/data/demo-catchment';
+import { readGeoTiff } from '../../server/services/geodata/geotiff-reader';
+import { encodeGeoTiff } from '../../server/services/geodata/geotiff-writer';
 import { TenantScope } from '../../server/services/tenant-scope';
 import { catchmentFields } from '../support/catchments';
 import { createOrganisation, signedInAgent, type TestOrg } from '../support/factories';
@@ -103,10 +105,28 @@ describe('geodata of a catchment: upload, derive, preview, replace', () => {
     const april = body.snowCover[0];
     expect(april.rows).toHaveLength(DEMO_BANDS.length);
     expect(april.rows.at(-1).snowCoveredFraction).toBeGreaterThan(april.rows[0].snowCoveredFraction);
-    const [thinning] = body.elevationChange;
+    const [thinning] = body.elevationChange.filter((c: { fileName: string }) => c.fileName === file('elevationChange').fileName);
     expect(thinning).toMatchObject({ fromDate: '2000-09-15', toDate: '2020-09-15', densityKgM3: 850 });
     expect(thinning.rows[0].balanceMwePerYear).toBeLessThan(-1);
     expect(thinning.rows[0].balanceSigmaMwePerYear).toBeGreaterThan(0);
+  }, 60_000);
+
+  it('reduces two dated DEMs to the geodetic balance: 10 m lower over 20 years is −0.5 m per year, −0.425 m w.e. per year at 850 kg m⁻³', async () => {
+    const { raster } = await readGeoTiff(file('dem').bytes, { field: 'dem' });
+    const lower = encodeGeoTiff({ ...raster, values: raster.values.map((z) => z - 10) });
+    const res = await consultant.post(`/api/catchments/${catchmentId}/geodata/uploads/elevationChange`)
+      .field('changeKind', 'two-dems').field('fromDate', '2000-01-01').field('toDate', '2020-01-01')
+      .attach('file', Buffer.from(file('dem').bytes), { filename: 'survey-2000.tif' }).attach('after', Buffer.from(lower), { filename: 'survey-2020.tif' });
+    expect(res.status, JSON.stringify(res.body)).toBe(201);
+    // the ice-free ground sank too, which the upload names as a DEM-difference bias
+    expect(res.body.upload.summary.notices.map((n: { code: string }) => n.code)).toContain('stable_ground_bias');
+    const { body } = await consultant.get(`/api/catchments/${catchmentId}/geodata/observations`).expect(200);
+    const pair = body.elevationChange.find((c: { fileName: string }) => c.fileName === 'survey-2000.tif');
+    const years = 7305 / 365.25;
+    for (const row of pair.rows) {
+      expect(row.dhdtMPerYear).toBeCloseTo(-10 / years, 4);
+      expect(row.balanceMwePerYear).toBeCloseTo((-10 / years) * 0.85, 4);
+    }
   }, 60_000);
 });
 
