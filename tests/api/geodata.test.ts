@@ -7,6 +7,7 @@ import { demoGeodataFiles, type DemoGeodataFile } from '../../seeds/data/demo-ge
 import { DEMO_BANDS } from '../../seeds/data/demo-catchment';
 import { readGeoTiff } from '../../server/services/geodata/geotiff-reader';
 import { encodeGeoTiff } from '../../server/services/geodata/geotiff-writer';
+import { buildSimulationInputs } from '../../server/services/catchments/simulation-inputs';
 import { TenantScope } from '../../server/services/tenant-scope';
 import { catchmentFields } from '../support/catchments';
 import { createOrganisation, signedInAgent, type TestOrg } from '../support/factories';
@@ -127,6 +128,30 @@ describe('geodata of a catchment: upload, derive, preview, replace', () => {
       expect(row.dhdtMPerYear).toBeCloseTo(-10 / years, 4);
       expect(row.balanceMwePerYear).toBeCloseTo((-10 / years) * 0.85, 4);
     }
+  }, 60_000);
+});
+
+describe('response units and terrain shading on their way to the engine', () => {
+  it('splits bands by aspect, stores the units as a table and passes their sky view and horizons to the engine', async () => {
+    const derived = await consultant.post(`/api/catchments/${catchmentId}/geodata/derivations`).send({ bandWidthM: 400, horizonSectors: 8, splitByAspect: true });
+    expect(derived.status, JSON.stringify(derived.body)).toBe(201);
+    const units = derived.body.derivation.bands as { lowerM: number; aspectClass?: string }[];
+    expect(units.every((u) => u.aspectClass)).toBe(true);
+    expect(units.length).toBeGreaterThan(new Set(units.map((u) => u.lowerM)).size);
+    await consultant.post(`/api/catchments/${catchmentId}/geodata/derivations/${derived.body.derivation.id}/apply`).expect(200);
+
+    const scope = new TenantScope(t.db, org.organisationId);
+    const { input } = await buildSimulationInputs(scope, t.ctx.bands, catchmentId, { from: '2024-04-01', to: '2024-04-30' });
+    expect(input.catchment.bands).toHaveLength(units.length);
+    for (const band of input.catchment.bands as { skyViewFactor?: number; horizonDeg?: number[][]; aspectClass?: string }[]) {
+      expect(band.aspectClass).toMatch(/^[NESW]$/);
+      expect(band.skyViewFactor).toBeGreaterThan(0.3);
+      expect(band.horizonDeg).toHaveLength(8);
+      expect(band.horizonDeg!.flat().every((v) => v >= -30 && v <= 90)).toBe(true);
+    }
+    const { body } = await consultant.get(`/api/catchments/${catchmentId}/geodata/map`).expect(200);
+    const drawn = new Set(body.units.flatMap((runs: number[]) => runs.filter((_, i) => i % 2 === 0)));
+    expect(drawn.size).toBeGreaterThan(new Set(units.map((u) => u.lowerM)).size + 1);
   }, 60_000);
 });
 
