@@ -1,3 +1,4 @@
+import { readFileSync } from 'node:fs';
 import { readdir } from 'node:fs/promises';
 import path from 'node:path';
 import type { Test } from 'supertest';
@@ -8,6 +9,7 @@ import { DEMO_BANDS } from '../../seeds/data/demo-catchment';
 import { readGeoTiff } from '../../server/services/geodata/geotiff-reader';
 import { encodeGeoTiff } from '../../server/services/geodata/geotiff-writer';
 import { buildSimulationInputs } from '../../server/services/catchments/simulation-inputs';
+import { scratchFolder, zippedShapefile } from '../../server/services/geodata/test-support/gdal';
 import { TenantScope } from '../../server/services/tenant-scope';
 import { catchmentFields } from '../support/catchments';
 import { createOrganisation, signedInAgent, type TestOrg } from '../support/factories';
@@ -129,6 +131,19 @@ describe('geodata of a catchment: upload, derive, preview, replace', () => {
       expect(row.balanceMwePerYear).toBeCloseTo((-10 / years) * 0.85, 4);
     }
   }, 60_000);
+});
+
+describe('outlines as zipped shapefiles', () => {
+  const scratch = scratchFolder();
+  afterAll(() => scratch.dispose());
+  it('reads glacier outlines written by ogr2ogr (GDAL) and zipped, the same polygons as the GeoJSON', async () => {
+    const json = JSON.parse(new TextDecoder().decode(file('glacierOutline').bytes)) as { features: { geometry: { coordinates: unknown[] } }[] };
+    const zip = zippedShapefile(scratch, 'glaciers', json);
+    const res = await upload(consultant, catchmentId, 'glacierOutline', 'glaciers.zip', readFileSync(zip));
+    expect(res.status, JSON.stringify(res.body)).toBe(201);
+    expect(res.body.upload.summary.system).toMatch(/WGS (84|1984)/);
+    expect(res.body.upload.summary.facts[0]).toMatch(new RegExp(`^${json.features[0].geometry.coordinates.length} polygon`));
+  });
 });
 
 describe('response units and terrain shading on their way to the engine', () => {
