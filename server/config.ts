@@ -1,3 +1,4 @@
+import path from 'node:path';
 import { z } from 'zod';
 import { defaultThreadCount } from './services/thread-budget';
 
@@ -45,6 +46,8 @@ const envSchema = z.object({
   WORKER_THREADS: z.coerce.number().int().min(0).max(64).default(0),
   /** Runs simulated at the same time; their simulations share the worker threads. */
   RUN_CONCURRENCY: z.coerce.number().int().min(1).max(16).default(2),
+  /** Folder for uploaded geodata files and the maps drawn from them (one subfolder per organisation). */
+  GEODATA_DIR: z.string().min(1).default('.local/geodata'),
 });
 
 export type Env = z.infer<typeof envSchema>;
@@ -81,6 +84,7 @@ export interface AppConfig {
   /** Worker threads all pools share (see server/services/thread-budget.ts). */
   workerThreads: number;
   runs: { concurrency: number };
+  geodata: { dir: string };
 }
 
 /** Parses an environment map into the typed config; throws one readable message listing every bad variable. */
@@ -131,6 +135,7 @@ export function parseConfig(env: Record<string, string | undefined>): AppConfig 
     },
     workerThreads: e.WORKER_THREADS || defaultThreadCount(),
     runs: { concurrency: e.RUN_CONCURRENCY },
+    geodata: { dir: path.resolve(e.GEODATA_DIR) },
   };
 }
 

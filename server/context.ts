@@ -5,6 +5,7 @@ import { createBillingServices, type BillingServices } from './services/billing'
 import { createBriefingServices, type BriefingServices } from './services/briefings';
 import type { BriefingResultsSource } from './services/briefings/comparison';
 import { createCatchmentServices, type CatchmentServices } from './services/catchments';
+import { createGeodataServices, type GeodataServices } from './services/geodata';
 import { createLabServices, type LabServices } from './services/lab';
 import { createMailServices, type MailServices } from './services/mail';
 import type { MailInbox } from './services/mail/mail-catcher';
@@ -16,7 +17,7 @@ import { ThreadBudget } from './services/thread-budget';
 
 /** Everything the routes need, built once per app by `createContext` (tests and seeds build their own). */
 export interface AppContext
-  extends AuthServices, MailServices, BillingServices, MemberServices, CatchmentServices, LabServices, RunServices, BriefingServices {
+  extends AuthServices, MailServices, BillingServices, MemberServices, CatchmentServices, GeodataServices, LabServices, RunServices, BriefingServices {
   config: AppConfig;
   db: Knex;
   /** The worker threads the run, lab and PDF pools share (`config.workerThreads`). */
@@ -47,6 +48,7 @@ export function createContext(config: AppConfig, db: Knex, options: ContextOptio
   const mailServices = createMailServices({ config, db, inbox: options.inbox });
   const memberServices = createMemberServices({ config, db, auth: authServices.auth, mail: mailServices.mail });
   const catchmentServices = createCatchmentServices();
+  const geodataServices = createGeodataServices({ config, bands: catchmentServices.bands, threads });
   const labServices = createLabServices({ db, bands: catchmentServices.bands, threads });
   const runServices = createRunServices({
     config, db, bands: catchmentServices.bands, calibrations: labServices.lab.calibrations, threads,
@@ -65,6 +67,7 @@ export function createContext(config: AppConfig, db: Knex, options: ContextOptio
     ...createBillingServices({ config, db }),
     ...memberServices,
     ...catchmentServices,
+    ...geodataServices,
     ...labServices,
     ...runServices,
     ...briefingServices,
@@ -77,7 +80,8 @@ export function createContext(config: AppConfig, db: Knex, options: ContextOptio
     async close() {
       await runServices.runExecutor.idle();
       await labServices.lab.jobs.idle();
-      await Promise.all(pools.map((pool) => pool.close()));
+      // The geodata pool is not warmed: its threads start with the first upload.
+      await Promise.all([...pools, geodataServices.geodata.pool].map((pool) => pool.close()));
       mailServices.mail.close();
     },
   };
