@@ -39,6 +39,7 @@ export default defineConfig({
           name: 'api',
           include: ['tests/api/**/*.test.ts'],
           environment: 'node',
+          setupFiles: ['tests/setup/api-log.ts'],
           fileParallelism: false,
           testTimeout: 30_000,
           hookTimeout: 60_000,

@@ -13,8 +13,6 @@
  * is never reused.
  */
 import bcrypt from 'bcryptjs';
-import { spawn } from 'node:child_process';
-import { createInterface } from 'node:readline';
 import { availableParallelism, loadavg } from 'node:os';
 import { loadConfig } from '../../server/config';
 import { createDb } from '../../server/db';
@@ -24,6 +22,7 @@ import { insertDatasetValues } from '../../server/services/catchments/dataset-va
 import { TenantScope } from '../../server/services/tenant-scope';
 import { DEMO_BANDS, DEMO_CATCHMENT } from '../../seeds/data/demo-catchment';
 import { syntheticStation } from '../../seeds/data/synthetic-station';
+import { startApiProcess } from './api-process';
 import type { Run } from '../../shared/schemas/runs';
 
 const SEASON = { from: '2024-04-01', to: '2024-09-30' };
@@ -61,18 +60,6 @@ async function setUp(): Promise<number> {
   await add('temperature', 'climate', '°C', 'hourly', station.hourlyTemperature);
   await add('precipitation', 'climate', 'mm', 'daily', station.dailyPrecipitation);
   return catchmentId;
-}
-
-/** Starts scripts/bench/runs-server.ts and reads the lines it prints. */
-async function startApiProcess() {
-  const child = spawn(process.execPath, ['--import', 'tsx', ...(process.env.BENCH_PROFILE_DIR ? ['--cpu-prof', `--cpu-prof-dir=${process.env.BENCH_PROFILE_DIR}`] : []), 'scripts/bench/runs-server.ts'], { stdio: ['ignore', 'pipe', 'inherit'], env: process.env });
-  const lines = createInterface({ input: child.stdout });
-  const next = () => new Promise<Record<string, number>>((resolve, reject) => {
-    lines.once('line', (line) => resolve(JSON.parse(line)));
-    child.once('exit', (code) => reject(new Error(`the API process exited (${code})`)));
-  });
-  const { port, threads } = await next();
-  return { port, threads, stop: async () => { const report = next(); child.kill('SIGTERM'); return report; } };
 }
 
 async function main(): Promise<void> {

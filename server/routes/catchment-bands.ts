@@ -32,7 +32,7 @@ export function catchmentBandRoutes(ctx: AppContext): ApiArea {
       sendDownload(res, await ctx.bands.csvFile(scope, params.catchmentId));
     });
 
-    route.post('/bands/file', 'editCatchments', { params, before: [requireCatchment(ctx), csvUpload()] }, ({ req }, res) => {
+    route.post('/bands/file', 'editCatchments', { params, before: [requireCatchment(ctx), ctx.uploadSlots.hold(), csvUpload()] }, ({ req }, res) => {
       res.json(ctx.bands.readFile(req.file!));
     });
   });

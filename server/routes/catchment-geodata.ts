@@ -22,8 +22,9 @@ export function catchmentGeodataRoutes(ctx: AppContext): ApiArea {
       res.json(await uploads.list(scope, params.catchmentId));
     });
 
-    // The catchment is checked before the file is streamed to disk, so foreign ids never get as far as reading it.
-    route.post('/uploads/:layer', 'editCatchments', { params: layerParams, before: [requireCatchment(ctx), geodataUpload()], body: geodataUploadFieldsSchema },
+    // The catchment is checked before the file is streamed to disk, so foreign ids never get as far as reading it;
+    // a geodata upload takes one of the organisation's upload slots like a CSV upload.
+    route.post('/uploads/:layer', 'editCatchments', { params: layerParams, before: [requireCatchment(ctx), ctx.uploadSlots.hold(), geodataUpload()], body: geodataUploadFieldsSchema },
       async ({ auth: { scope, user }, params, body, req }, res) => {
         res.status(201).json({ upload: await uploads.add(scope, user, params.catchmentId, params.layer, uploadedFiles(req), body) });
       });
@@ -50,7 +51,7 @@ export function catchmentGeodataRoutes(ctx: AppContext): ApiArea {
     });
 
     route.get('/derivations/:derivationId/hillshade.png', 'readCatchments', { params: derivationParams }, async ({ auth: { scope }, params }, res) => {
-      res.type('png').set('Cache-Control', 'private, max-age=3600').send(await derivations.hillshade(scope, params.catchmentId, params.derivationId));
+      res.type('png').send(await derivations.hillshade(scope, params.catchmentId, params.derivationId));
     });
 
     route.get('/map', 'readCatchments', { params, query: mapQuery }, async ({ auth: { scope }, params, query }, res) => {

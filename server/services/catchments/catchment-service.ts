@@ -83,13 +83,16 @@ export class CatchmentService {
         q.where('catchments.name', 'like', like).orWhere('catchments.station_name', 'like', like).orWhere('catchments.description', 'like', like);
       });
     }
-    const [{ total }] = await base.clone().count({ total: '*' });
-    const rows = await withCounts(base, scope.db)
+    // The total comes with the page (a window count before LIMIT): one query instead of two.
+    const rows = (await withCounts(base.clone(), scope.db)
+      .select(scope.db.raw('count(*) over () as total_count'))
       .orderBy(`catchments.${SORT_COLUMNS[query.sort]}`, query.descending ? 'desc' : 'asc')
       .orderBy('catchments.id')
       .limit(query.perPage)
-      .offset((query.page - 1) * query.perPage);
-    return { catchments: (rows as CatchmentRow[]).map(toCatchment), total: Number(total), page: query.page, perPage: query.perPage };
+      .offset((query.page - 1) * query.perPage)) as (CatchmentRow & { total_count: number })[];
+    // A page past the end has no row to carry the total.
+    const total = rows[0] ? rows[0].total_count : query.page > 1 ? Number((await base.clone().count({ n: '*' }))[0]!.n) : 0;
+    return { catchments: rows.map(toCatchment), total: Number(total), page: query.page, perPage: query.perPage };
   }
 
   /** A new catchment with its baseline scenario, in one transaction. */
