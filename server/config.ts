@@ -1,3 +1,4 @@
+import path from 'node:path';
 import { z } from 'zod';
 import type { LogSettings } from './logger';
 import { defaultThreadCount } from './services/thread-budget';
@@ -53,6 +54,8 @@ const envSchema = z.object({
   WORKER_THREADS: z.coerce.number().int().min(0).max(64).default(0),
   /** Runs simulated at the same time; their simulations share the worker threads. */
   RUN_CONCURRENCY: z.coerce.number().int().min(1).max(16).default(2),
+  /** Folder for uploaded geodata files and the maps drawn from them (one subfolder per organisation). */
+  GEODATA_DIR: z.string().min(1).default('.local/geodata'),
   /** Uploads (file reads and stores) one organisation may have in progress at once; more answer 429. */
   UPLOADS_PER_ORGANISATION: z.coerce.number().int().min(1).max(50).default(2),
   /** How long a shutdown waits for requests being answered before it cuts them. */
@@ -97,6 +100,7 @@ export interface AppConfig {
   /** Worker threads all pools share (see server/services/thread-budget.ts). */
   workerThreads: number;
   runs: { concurrency: number };
+  geodata: { dir: string };
   uploads: { perOrganisation: number };
   shutdownGraceMs: number;
   log: LogSettings;
@@ -162,6 +166,7 @@ export function parseConfig(env: Record<string, string | undefined>): AppConfig 
     },
     workerThreads: e.WORKER_THREADS || defaultThreadCount(),
     runs: { concurrency: e.RUN_CONCURRENCY },
+    geodata: { dir: path.resolve(e.GEODATA_DIR) },
     uploads: { perOrganisation: e.UPLOADS_PER_ORGANISATION },
     shutdownGraceMs: e.SHUTDOWN_GRACE_SECONDS * 1000,
     // Tests log only errors unless asked (the API suite captures every request in a file: tests/setup/api-log.ts).

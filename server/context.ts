@@ -6,6 +6,7 @@ import { createBillingServices, type BillingServices } from './services/billing'
 import { createBriefingServices, type BriefingServices } from './services/briefings';
 import type { BriefingResultsSource } from './services/briefings/comparison';
 import { createCatchmentServices, type CatchmentServices } from './services/catchments';
+import { createGeodataServices, type GeodataServices } from './services/geodata';
 import { createLabServices, type LabServices } from './services/lab';
 import { createMailServices, type MailServices } from './services/mail';
 import type { MailInbox } from './services/mail/mail-catcher';
@@ -17,7 +18,7 @@ import { ThreadBudget } from './services/thread-budget';
 
 /** Everything the routes need, built once per app by `createContext` (tests and seeds build their own). */
 export interface AppContext
-  extends AuthServices, MailServices, BillingServices, MemberServices, CatchmentServices, LabServices, RunServices, BriefingServices {
+  extends AuthServices, MailServices, BillingServices, MemberServices, CatchmentServices, GeodataServices, LabServices, RunServices, BriefingServices {
   config: AppConfig;
   db: Knex;
   /** The structured log; requests, errors and background failures, never values (server/logger.ts). */
@@ -57,6 +58,7 @@ export function createContext(config: AppConfig, db: Knex, options: ContextOptio
   const mailServices = createMailServices({ config, db, inbox: options.inbox });
   const memberServices = createMemberServices({ config, db, logger, auth: authServices.auth, mail: mailServices.mail });
   const catchmentServices = createCatchmentServices({ threads, uploadsPerOrganisation: config.uploads.perOrganisation });
+  const geodataServices = createGeodataServices({ config, bands: catchmentServices.bands, threads });
   const labServices = createLabServices({ db, bands: catchmentServices.bands, threads });
   const runServices = createRunServices({
     config, db, bands: catchmentServices.bands, calibrations: labServices.lab.calibrations, threads,
@@ -76,6 +78,7 @@ export function createContext(config: AppConfig, db: Knex, options: ContextOptio
     ...createBillingServices({ config, db, logger }),
     ...memberServices,
     ...catchmentServices,
+    ...geodataServices,
     ...labServices,
     ...runServices,
     ...briefingServices,
@@ -93,7 +96,8 @@ export function createContext(config: AppConfig, db: Knex, options: ContextOptio
         // One deadline for both: they wait side by side.
         await Promise.all([runServices.runExecutor.stop(graceMs), labServices.lab.jobs.stop(graceMs)]);
       }
-      await Promise.all(pools.map((pool) => pool.close()));
+      // The geodata pool is not warmed: its threads start with the first upload.
+      await Promise.all([...pools, geodataServices.geodata.pool].map((pool) => pool.close()));
       mailServices.mail.close();
     },
   };

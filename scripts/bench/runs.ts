@@ -16,6 +16,7 @@ import bcrypt from 'bcryptjs';
 import { availableParallelism, loadavg } from 'node:os';
 import { loadConfig } from '../../server/config';
 import { createDb } from '../../server/db';
+import { insertBandTable } from '../../server/services/catchments/band-tables';
 import { insertBaseline } from '../../server/services/catchments/baseline-scenario';
 import { insertDatasetValues } from '../../server/services/catchments/dataset-values';
 import { TenantScope } from '../../server/services/tenant-scope';
@@ -46,10 +47,7 @@ async function setUp(): Promise<number> {
     time_zone: c.timeZone, station_name: c.stationName, station_elevation_m: c.stationElevationM, outlet_description: c.outletDescription,
   });
   await insertBaseline(new TenantScope(db, organisationId), catchmentId, null);
-  await db('elevation_bands').insert(DEMO_BANDS.map((b, position) => ({
-    organisation_id: organisationId, catchment_id: catchmentId, position, lower_m: b.lowerM, upper_m: b.upperM, area_km2: b.areaKm2,
-    slope_deg: b.slopeDeg, aspect_deg: b.aspectDeg, glacier_fraction: b.glacierFraction, debris_fraction: b.debrisFraction, debris_thickness_m: b.debrisThicknessM,
-  })));
+  await insertBandTable(new TenantScope(db, organisationId), catchmentId, DEMO_BANDS);
   const station = syntheticStation({ start: '2023-10-01', days: 366, seed: 20231001 });
   const add = async (variable: string, kind: string, unit: string, step: string, series: { times: string[]; values: number[] }) => {
     const [datasetId] = await db('datasets').insert({

@@ -9,6 +9,7 @@ import { billingRoutes, billingWebhookRoutes } from './billing';
 import { briefingRoutes } from './briefings';
 import { catchmentBandRoutes } from './catchment-bands';
 import { catchmentDatasetRoutes } from './catchment-datasets';
+import { catchmentGeodataRoutes } from './catchment-geodata';
 import { catchmentUploadRoutes } from './catchment-uploads';
 import { catchmentRoutes } from './catchments';
 import { devInboxRoutes } from './dev-inbox';
@@ -36,6 +37,7 @@ export function apiAreas(ctx: AppContext): ApiArea[] {
     catchmentBandRoutes(ctx),
     catchmentDatasetRoutes(ctx),
     catchmentUploadRoutes(ctx),
+    catchmentGeodataRoutes(ctx),
     scenarioRoutes(ctx),
     runRoutes(ctx),
     labRoutes(ctx),

@@ -8,6 +8,7 @@ import type { DatedValue } from '../../shared/lab/paired-series';
 import { compareStakes, type StakeObservation } from '../../shared/lab/stake-balance';
 import { calibrateToStakes, readingsWithin } from '../../shared/lab/stake-calibration';
 import type { BandSite, LabSite, Period } from '../../shared/lab/site';
+import { runRemoteSensing, type RemoteSensingTask } from './lab-remote-sensing';
 
 /** The lab's computations, each run in a worker thread so the API keeps answering. */
 export type LabTask =
@@ -24,7 +25,8 @@ export type LabTask =
   | {
     kind: 'calibrateStakes'; site: LabSite; observed: StakeObservation[]; keys: CalibrationKey[]; start: CalibrationSet;
     period: Period; validationPeriod?: Period; maxEvaluations: number; seed: number;
-  };
+  }
+  | RemoteSensingTask;
 
 /** The search reports the first 70 % of a calibration's progress, the behavioural-range sampling after it the rest. */
 function searchProgress(report: (fraction: number) => void) {
@@ -64,6 +66,11 @@ function run(task: LabTask, report: (fraction: number) => void): unknown {
         validation: { period: task.validationPeriod, before: outcome.validationBefore, after: outcome.validationAfter },
       };
     }
+    case 'snowCoverSkill':
+    case 'geodeticSkill':
+    case 'calibrateSnowCover':
+    case 'calibrateGeodetic':
+      return runRemoteSensing(task, report);
     case 'calibrateStakes': {
       const outcome = calibrateToStakes(task.site, task.observed, {
         keys: task.keys, period: task.period, start: task.start, maxEvaluations: task.maxEvaluations, seed: task.seed, ...searchProgress(report),

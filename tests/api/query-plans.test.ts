@@ -12,9 +12,9 @@ let world: TenantWorld;
 
 beforeAll(async () => {
   t = createTestApp();
-  world = await createTenantWorld(t.db);
+  world = await createTenantWorld(t.db, t.config.geodata.dir);
   // Other tenants' rows, so a list that scans every organisation has something to scan.
-  for (let i = 0; i < 3; i++) await createTenantWorld(t.db);
+  for (let i = 0; i < 3; i++) await createTenantWorld(t.db, t.config.geodata.dir);
 });
 afterAll(() => t.close());
 

@@ -12,8 +12,8 @@ let foreign: TenantWorld;
 
 beforeAll(async () => {
   t = createTestApp();
-  own = await createTenantWorld(t.db);
-  foreign = await createTenantWorld(t.db);
+  own = await createTenantWorld(t.db, t.config.geodata.dir);
+  foreign = await createTenantWorld(t.db, t.config.geodata.dir);
 });
 afterAll(() => t.close());
 

@@ -88,7 +88,8 @@ describe('malformed multipart bodies', () => {
 });
 
 describe('uploads in progress per organisation', () => {
-  it('answers one of three uploads sent at once with 429 and Retry-After while two are still arriving, and takes uploads again after', async () => {
+  // A geodata upload takes a slot of the same organisation's count as a CSV upload.
+  it.each(['uploads', 'geodata/uploads/dem'])('answers one of three uploads to …/%s sent at once with 429 and Retry-After while two are still arriving, and takes uploads again after', async (target) => {
     const id = await newCatchment();
     const server = f.t.app.listen(0, '127.0.0.1');
     await new Promise<void>((resolve) => server.once('listening', () => resolve()));
@@ -99,7 +100,7 @@ describe('uploads in progress per organisation', () => {
     // Three uploads whose bodies have only begun to arrive (the rest never comes).
     const slow = Array.from({ length: 3 }, () => {
       const req = http.request({
-        host: '127.0.0.1', port, method: 'POST', path: `/api/catchments/${id}/uploads`,
+        host: '127.0.0.1', port, method: 'POST', path: `/api/catchments/${id}/${target}`,
         headers: { Cookie: cookie, 'X-Requested-With': 'tarnish', 'Content-Type': 'multipart/form-data; boundary=slow', 'Content-Length': '100000' },
       });
       req.on('error', () => undefined);

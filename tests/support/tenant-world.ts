@@ -1,6 +1,10 @@
 import { gzipSync } from 'node:zlib';
 import type { Knex } from 'knex';
+import { insertBandTable } from '../../server/services/catchments/band-tables';
 import { insertBaseline } from '../../server/services/catchments/baseline-scenario';
+import { cellsName, hillshadeName } from '../../server/services/geodata/derivation-service';
+import { GeodataStore } from '../../server/services/geodata/geodata-store';
+import { encodeGreyAlphaPng } from '../../server/services/geodata/png';
 import { TenantScope } from '../../server/services/tenant-scope';
 import { testSnapshot } from '../fixtures/briefing-snapshot';
 import { createOrganisation, unique, type TestOrg } from './factories';
@@ -8,12 +12,18 @@ import { createOrganisation, unique, type TestOrg } from './factories';
 /** One record of every kind a route's path can name, in one organisation, every name carrying `marker`. */
 export interface TenantWorld extends TestOrg {
   marker: string;
-  ids: { catchment: number; dataset: number; scenario: number; run: number; labJob: number; briefing: number; member: number; invited: number; sharedClient: number };
+  ids: {
+    catchment: number; dataset: number; scenario: number; run: number; labJob: number; briefing: number; member: number; invited: number; sharedClient: number;
+    geodataUpload: number; derivation: number;
+  };
   uploadToken: string;
 }
 
-/** Rows written straight to the database: the matrix needs ids of every kind, each valid enough to be read, not working results. */
-export async function createTenantWorld(db: Knex): Promise<TenantWorld> {
+/**
+ * Rows written straight to the database (and the one map image a derivation's route reads, into
+ * `geodataDir`): the matrix needs ids of every kind, each valid enough to be read, not working results.
+ */
+export async function createTenantWorld(db: Knex, geodataDir: string): Promise<TenantWorld> {
   const marker = unique('World');
   const org = await createOrganisation(db, `${marker} Org`);
   const organisation_id = org.organisationId;
@@ -25,9 +35,32 @@ export async function createTenantWorld(db: Knex): Promise<TenantWorld> {
   });
   await insertBaseline(new TenantScope(db, organisation_id), catchment!, null);
   const scenario = (await db('scenarios').where({ catchment_id: catchment }).first('id')).id as number;
-  await db('elevation_bands').insert({
-    organisation_id, catchment_id: catchment, position: 0, lower_m: 3000, upper_m: 3200, area_km2: 2, slope_deg: 10, aspect_deg: 180,
-    glacier_fraction: 0.5, debris_fraction: 0, debris_thickness_m: 0,
+  await insertBandTable(new TenantScope(db, organisation_id), catchment!, [
+    { lowerM: 3000, upperM: 3200, areaKm2: 2, slopeDeg: 10, aspectDeg: 180, glacierFraction: 0.5, debrisFraction: 0, debrisThicknessM: 0 },
+  ]);
+  const [geodataUpload] = await db('geodata_uploads').insert({
+    organisation_id, catchment_id: catchment, kind: 'dem', file_name: `${marker}.tif`, byte_size: 1, stored_name: `${marker}.tif`.replace(/[^\w.-]/g, ''),
+    summary: JSON.stringify({ notices: [] }), uploaded_by: org.users.consultant.id,
+  });
+  const storedPrefix = unique('map').replace(/[^\w-]/g, '');
+  // A map of one cell at 3100 m, facing north: its shaded relief and the cell layer the map route reads.
+  const store = new GeodataStore(geodataDir);
+  await store.write(organisation_id, hillshadeName(storedPrefix), encodeGreyAlphaPng(1, 1, Uint8Array.of(128), Uint8Array.of(255)));
+  const cells = Buffer.alloc(3);
+  cells.writeInt16LE(3100, 0);
+  await store.write(organisation_id, cellsName(storedPrefix), cells);
+  const map = {
+    crs: { name: 'WGS 84 / UTM zone 43N', proj4: '+proj=utm +zone=43 +datum=WGS84 +units=m +no_defs' },
+    extent: [500000, 3650000, 500030, 3650030], width: 1, height: 1, outlines: { catchment: [], glacier: [], debris: [] },
+  };
+  const summary = {
+    areaKm2: 2, trueAreaKm2: 2, glacierAreaKm2: 1, debrisAreaKm2: 0, minElevationM: 3000, maxElevationM: 3200, cellSizeM: 30,
+    workingCrs: 'EPSG:32643', centreLonLat: [75, 33], nodataShare: 0,
+  };
+  const [derivation] = await db('band_derivations').insert({
+    organisation_id, catchment_id: catchment, options: JSON.stringify({ bandWidthM: 200, splitByAspect: false, horizonSectors: 0 }),
+    upload_ids: JSON.stringify({ dem: geodataUpload }), result: JSON.stringify({ bands: [], units: [], hypsometry: [], summary, notices: [] }),
+    map: JSON.stringify(map), stored_prefix: storedPrefix, seconds: 0, created_by: org.users.consultant.id,
   });
   const [dataset] = await db('datasets').insert({
     organisation_id, catchment_id: catchment, variable: 'temperature', kind: 'climate', unit: '°C', original_unit: '°C', time_step: 'hourly',
@@ -55,12 +88,17 @@ export async function createTenantWorld(db: Knex): Promise<TenantWorld> {
   const [invited] = await db('users').insert({ organisation_id, email: `${unique('invited')}@test.example`, name: `${marker} invitee`, role: 'client', status: 'invited' });
   return {
     ...org, marker, uploadToken,
-    ids: { catchment: catchment!, dataset: dataset!, scenario, run: run!, labJob: labJob!, briefing: briefing!, member: org.users.scientist.id, invited: invited!, sharedClient: org.users.client.id },
+    ids: {
+      catchment: catchment!, dataset: dataset!, scenario, run: run!, labJob: labJob!, briefing: briefing!, member: org.users.scientist.id, invited: invited!,
+      sharedClient: org.users.client.id, geodataUpload: geodataUpload!, derivation: derivation!,
+    },
   };
 }
 
 /** The path of a route with every parameter set to this world's record of that kind. */
 export function pathIn(world: TenantWorld, path: string): string {
+  // A geodata layer is a name, the same in every organisation.
+  path = path.replace('/:layer', '/dem');
   const { ids } = world;
   return path.replace(/\/([a-z-]+)\/:([A-Za-z]+)/g, (_all, segment: string, param: string) => {
     const value = (() => {
@@ -70,6 +108,8 @@ export function pathIn(world: TenantWorld, path: string): string {
       if (param === 'jobId') return ids.labJob;
       if (param === 'version') return 1;
       if (param === 'userId') return ids.sharedClient;
+      if (param === 'uploadId') return ids.geodataUpload;
+      if (param === 'derivationId') return ids.derivation;
       const bySegment: Record<string, number> = { scenarios: ids.scenario, runs: ids.run, briefings: ids.briefing, members: ids.member, invitations: ids.invited };
       if (bySegment[segment] !== undefined) return bySegment[segment];
       throw new Error(`no record for :${param} after /${segment} in ${path}`);
@@ -80,7 +120,7 @@ export function pathIn(world: TenantWorld, path: string): string {
 
 /** Every row of the world's organisation in the tables routes can change, to prove a foreign caller changed none. */
 export async function snapshotOf(db: Knex, world: TenantWorld): Promise<string> {
-  const tables = ['catchments', 'elevation_bands', 'datasets', 'pending_uploads', 'scenarios', 'runs', 'lab_jobs', 'briefings', 'briefing_versions', 'briefing_shares', 'briefing_comments', 'users'];
+  const tables = ['catchments', 'band_tables', 'elevation_bands', 'geodata_uploads', 'band_derivations', 'datasets', 'pending_uploads', 'scenarios', 'runs', 'lab_jobs', 'briefings', 'briefing_versions', 'briefing_shares', 'briefing_comments', 'users'];
   const rows = await Promise.all(tables.map((table) => db(table).where({ organisation_id: world.organisationId }).orderBy('id').select()));
   const values = await db('dataset_values').where({ organisation_id: world.organisationId }).orderBy(['dataset_id', 't']).select();
   return JSON.stringify([...rows, values]);

@@ -141,7 +141,7 @@ export class CatchmentService {
 function withCounts(query: Knex.QueryBuilder, db: Knex | Knex.Transaction): Knex.QueryBuilder {
   return query.select(
     'catchments.*',
-    db('elevation_bands').count('*').whereRaw('elevation_bands.catchment_id = catchments.id').as('band_count'),
+    db('elevation_bands').count('*').whereRaw('elevation_bands.band_table_id = (SELECT MAX(t.id) FROM band_tables t WHERE t.catchment_id = catchments.id)').as('band_count'),
     db('datasets').count('*').whereRaw('datasets.catchment_id = catchments.id').as('dataset_count'),
   );
 }

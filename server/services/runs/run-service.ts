@@ -114,6 +114,8 @@ export class RunService {
       attribution: request.attribution, ensemble_size: request.ensembleSize, ensemble_seed: request.ensembleSeed,
       status: 'queued', progress: 0, simulation_count: members.length, engine_version: ENGINE_VERSION, input_hash: hash,
       period_from: period?.from ?? null, period_to: period?.to ?? null, start_options: JSON.stringify(request.start), created_by: userId,
+      // The band table version in use, which later saves leave in place for this run.
+      band_table_id: scope.db.raw('(SELECT MAX(id) FROM band_tables WHERE catchment_id = ?)', [catchmentId]),
     });
     const run = await this.get(scope, catchmentId, id);
     this.executor.enqueue({ runId: id, organisationId: scope.organisationId, members });
