@@ -141,7 +141,8 @@ export class CatchmentService {
 function withCounts(query: Knex.QueryBuilder, db: Knex | Knex.Transaction): Knex.QueryBuilder {
   return query.select(
     'catchments.*',
-    db('elevation_bands').count('*').whereRaw('elevation_bands.band_table_id = (SELECT MAX(t.id) FROM band_tables t WHERE t.catchment_id = catchments.id)').as('band_count'),
+    // The newest band table version's own count (kept with it): one index lookup per catchment.
+    db('band_tables').select('band_tables.band_count').whereRaw('band_tables.catchment_id = catchments.id').orderBy('band_tables.version', 'desc').limit(1).as('band_count'),
     db('datasets').count('*').whereRaw('datasets.catchment_id = catchments.id').as('dataset_count'),
   );
 }
