@@ -1,7 +1,7 @@
 import type { Knex } from 'knex';
 import type { Catchment, CatchmentFields, catchmentListQuerySchema } from '../../../shared/schemas/catchments';
 import type { z } from 'zod';
-import { conflict } from '../../errors';
+import { conflict, notFound } from '../../errors';
 import type { TenantScope } from '../tenant-scope';
 import { insertBaseline } from './baseline-scenario';
 
@@ -67,9 +67,11 @@ export function toCatchment(row: CatchmentRow): Catchment {
 export class CatchmentService {
   /** The row with its band and dataset counts, or 404. */
   async get(scope: TenantScope, id: number): Promise<Catchment> {
-    await scope.findOr404('catchments', id, 'Catchment');
-    const row = await withCounts(scope.from<CatchmentRow>('catchments'), scope.db).where('catchments.id', id).first();
-    return toCatchment(row as CatchmentRow);
+    const row = Number.isSafeInteger(id) && id > 0
+      ? ((await withCounts(scope.from<CatchmentRow>('catchments'), scope.db).where('catchments.id', id).first()) as CatchmentRow | undefined)
+      : undefined;
+    if (!row) throw notFound('Catchment');
+    return toCatchment(row);
   }
 
   async list(scope: TenantScope, query: z.output<typeof catchmentListQuerySchema>) {
