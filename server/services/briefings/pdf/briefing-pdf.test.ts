@@ -15,8 +15,7 @@ async function pdfText(pdf: Buffer): Promise<{ text: string; pages: number }> {
   }
 }
 
-// Laying out a whole briefing with its fonts and charts takes seconds on a busy machine.
-describe('briefingPdf', { timeout: 30_000 }, () => {
+describe('briefingPdf', () => {
   const s = testSnapshot();
 
   it('is a valid PDF with a title page, the headline numbers, page numbers and the cautions', async () => {
