@@ -17,8 +17,9 @@ let otherCatchmentId: number;
 const season = { from: '2022-06-01', to: '2022-08-31' };
 const query = `band=6&from=${season.from}&to=${season.to}`;
 
+/** Waits up to two minutes: a calibration simulates whole spun-up seasons, searched and then sampled for behavioural ranges. */
 async function waitForJob(agent: Awaited<ReturnType<typeof signedInAgent>>, id: number): Promise<LabJob> {
-  for (let i = 0; i < 600; i++) {
+  for (let i = 0; i < 1200; i++) {
     const res = await agent.get(`/api/lab/jobs/${id}`);
     const job = labJobSchema.parse(res.body);
     if (job.status !== 'running' && job.status !== 'queued') return job;
@@ -212,7 +213,7 @@ describe('jobs: sweeps and automatic calibration', () => {
     expect(result.ranges.map((r) => r.key)).toEqual(['precipitationFactor', 'temperatureRangeRadiationCoefficient']);
     for (const r of result.ranges) expect(r.low <= r.best && r.best <= r.high).toBe(true);
     expect(result.atBounds.every((key) => result.keys.includes(key))).toBe(true);
-  });
+  }, 120_000);
   it('calibrates against stake balances, validated on the next balance year', async () => {
     const scientist = await signedInAgent(app, org.users.scientist.email);
     const res = await scientist.post(`/api/lab/catchments/${catchmentId}/calibrations`).send({
@@ -226,7 +227,7 @@ describe('jobs: sweeps and automatic calibration', () => {
     expect(result.result.readings).toHaveLength(8);
     expect(result.result.scores!.kge).toBeGreaterThanOrEqual(result.start.scores!.kge);
     expect(result.validation!.after.readings.every((r) => r.from === '2022-10-01')).toBe(true);
-  });
+  }, 120_000);
   it('can be cancelled', async () => {
     const scientist = await signedInAgent(app, org.users.scientist.email);
     const res = await scientist.post(`/api/lab/catchments/${catchmentId}/calibrations`).send({ keys: ['lapseRateCPerKm', 'iceAlbedo', 'temperatureRangeRadiationCoefficient'], period: season, maxEvaluations: 400 });
