@@ -18,6 +18,33 @@ export const ACC = {
 } as const;
 export const ACC_SIZE = 22;
 
+/**
+ * The weather of the band being simulated through one day, hour by hour (band-day.ts: worked out
+ * by bandWeather, used by bandSurfaces).
+ */
+export interface BandHours {
+  airC: Float64Array;
+  airK: Float64Array;
+  rainMm: Float64Array;
+  snowMm: Float64Array;
+  /** Shortwave on the band's slope and incoming longwave, W m⁻². */
+  globalWm2: Float64Array;
+  longInWm2: Float64Array;
+  /** Vapour pressure of the air, Pa, wind, and the neutral turbulent coefficients of TurbulentAir. */
+  vapourPa: Float64Array;
+  windMs: Float64Array;
+  sensibleCoefficient: Float64Array;
+  vapourCoefficient: Float64Array;
+}
+
+function allocateBandHours(): BandHours {
+  const day = () => new Float64Array(24);
+  return {
+    airC: day(), airK: day(), rainMm: day(), snowMm: day(), globalWm2: day(), longInWm2: day(),
+    vapourPa: day(), windMs: day(), sensibleCoefficient: day(), vapourCoefficient: day(),
+  };
+}
+
 /** Everything the hour step reads, gathered once per run so the loop allocates nothing. */
 export interface LoopContext {
   run: PreparedRun;
@@ -39,6 +66,7 @@ export interface LoopContext {
   cpOverRd: number;
   vapourOverRd: number;
   air: TurbulentAir;
+  hours: BandHours;
   /** Grain growth per hour, µm³-equivalent: dr = rate / r² (dV/(4πr²), Brun 1989 form). */
   wetGrowth: number;
   dryGrowth: number;
@@ -75,6 +103,7 @@ export function buildLoopContext(run: PreparedRun, sun: SunTrack, shortwave: Sho
     debrisExchange: debris.heat, debrisDrag: debris.drag, debrisHeightOverRoughness: debris.heightOverRoughness,
     cpOverRd: SPECIFIC_HEAT_AIR / GAS_CONSTANT_DRY_AIR, vapourOverRd: VAPOUR_MASS_RATIO / GAS_CONSTANT_DRY_AIR,
     air: { airC: 0, vapourPa: 0, windMs: 1, sensibleCoefficient: 0, vapourCoefficient: 0 },
+    hours: allocateBandHours(),
     wetGrowth: p.wetGrainGrowthMm3PerDay * GRAIN_SCALE,
     dryGrowth: p.dryGrainGrowthMm3PerDay * GRAIN_SCALE,
     columns: Array.from({ length: g.count }, (_, b) => ({
