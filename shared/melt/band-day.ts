@@ -4,8 +4,9 @@ import { erbsDiffuseFraction } from './diffuse-split';
 import { readTable } from './temperature-table';
 import { horizonSector, sunlitShare } from './terrain';
 import { readCover } from './snow-cover';
-import { buryUnderSnowfall, depositOnSurface, enrichOnLoss } from './impurities';
-import { SNOW, stepSnow, stepSnowIndex } from './snow-pack';
+import { buryUnderSnowfall, depositOnSurface, enrichOnLoss, IMPURITY_IN } from './impurities';
+import { SNOW, stepSnowFrom, stepSnowIndex } from './snow-pack';
+import { STEP_IN } from './surface-flux';
 import { glacierHour } from './glacier-hour';
 import { ACC, type LoopContext } from './loop-context';
 
@@ -173,12 +174,19 @@ export function bandSurfaces(c: LoopContext, b: number, d: number, month: number
   const layerMm = p.snowSurfaceLayerMm;
   const surfaceMass = c.layers.surfaceMass;
   const freshGrain = p.freshGrainRadiusUm;
-  const freshBc = t.freshBlackCarbonNgG[month];
-  const freshDust = t.freshDustUgG[month];
-  const depositBc = t.blackCarbonDepositionNgM2Hour[month];
-  const depositDust = t.dustDepositionUgM2Hour[month];
-  const deposits = depositBc > 0 || depositDust > 0;
+  const impurityIn = c.impurityInput;
+  impurityIn[IMPURITY_IN.layerMass] = layerMm;
+  impurityIn[IMPURITY_IN.scavengingBlackCarbon] = p.scavengingBlackCarbon;
+  impurityIn[IMPURITY_IN.scavengingDust] = p.scavengingDust;
+  impurityIn[IMPURITY_IN.freshBlackCarbon] = t.freshBlackCarbonNgG[month];
+  impurityIn[IMPURITY_IN.freshDust] = t.freshDustUgG[month];
+  impurityIn[IMPURITY_IN.depositBlackCarbon] = t.blackCarbonDepositionNgM2Hour[month];
+  impurityIn[IMPURITY_IN.depositDust] = t.dustDepositionUgM2Hour[month];
+  const deposits = t.blackCarbonDepositionNgM2Hour[month] > 0 || t.dustDepositionUgM2Hour[month] > 0;
   const maxGrain = p.maxGrainRadiusUm;
+  const snowIn = c.snowInput;
+  snowIn[STEP_IN.drag] = c.snowIceDrag;
+  snowIn[STEP_IN.heightOverRoughness] = c.snowIceHeightOverRoughness;
 
   let swe = s.sweMm[b];
   let liquidMelt = s.liquidMeltMm[b];
@@ -204,7 +212,9 @@ export function bandSurfaces(c: LoopContext, b: number, d: number, month: number
         const mixed = snow < surfaceMass ? snow : surfaceMass;
         surfaceC = (surfaceC * (surfaceMass - mixed) + snowC * mixed) / surfaceMass;
       }
-      buryUnderSnowfall(s, b, snow, swe, layerMm, freshBc, freshDust);
+      impurityIn[IMPURITY_IN.snow] = snow;
+      impurityIn[IMPURITY_IN.solid] = swe;
+      buryUnderSnowfall(s, b, impurityIn);
       swe += snow;
       fresh += snow;
     }
@@ -215,7 +225,6 @@ export function bandSurfaces(c: LoopContext, b: number, d: number, month: number
       continue;
     }
     const global = w.globalWm2[k];
-    const longIn = w.longInWm2[k];
     air.airC = airC;
     air.vapourPa = w.vapourPa[k];
     air.windMs = w.windMs[k];
@@ -243,15 +252,22 @@ export function bandSurfaces(c: LoopContext, b: number, d: number, month: number
       }
       const absorbed = global * (1 - albedo);
 
+      snowIn[STEP_IN.rain] = rain;
+      snowIn[STEP_IN.solid] = solid;
+      snowIn[STEP_IN.liquid] = liquid;
       if (c.model === 0) {
-        const rainHeat = rain > 0 && airC > 0 ? (SPECIFIC_HEAT_WATER * rain * airC) / SECONDS_PER_HOUR : 0;
-        stepSnow(out, run.surfaceVapour, c.layers, air, absorbed, longIn, rain, rainHeat, surfaceC, deepC, solid, liquid,
-          c.snowIceDrag, c.snowIceHeightOverRoughness, c.stability);
+        snowIn[STEP_IN.absorbed] = absorbed;
+        snowIn[STEP_IN.longIn] = w.longInWm2[k];
+        snowIn[STEP_IN.rainHeat] = rain > 0 && airC > 0 ? (SPECIFIC_HEAT_WATER * rain * airC) / SECONDS_PER_HOUR : 0;
+        snowIn[STEP_IN.surfaceC] = surfaceC;
+        snowIn[STEP_IN.deepC] = deepC;
+        stepSnowFrom(out, snowIn, run.surfaceVapour, c.layers, air, c.stability);
       } else {
         const index = c.model === 1
           ? (airC > 0 ? (p.degreeDaySnow / 24) * airC : 0)
           : (airC > p.etiThresholdC ? p.etiTemperatureFactor * airC + p.etiShortwaveFactor * absorbed : 0);
-        stepSnowIndex(out, c.layers, index > 0 ? index : 0, rain, solid, liquid);
+        snowIn[STEP_IN.indexMelt] = index > 0 ? index : 0;
+        stepSnowIndex(out, snowIn, c.layers);
       }
 
       // Water and mass back to the band: what drained, what is held, what left as vapour.
@@ -271,8 +287,16 @@ export function bandSurfaces(c: LoopContext, b: number, d: number, month: number
       else a[ACC.sublimation] += cover * vapour;
 
       // Impurities left behind and deposited; grains grow, faster when wet.
-      if (melt > 0 || vapour > 0) enrichOnLoss(s, b, melt, vapour, solid, layerMm, p.scavengingBlackCarbon, p.scavengingDust);
-      if (deposits) depositOnSurface(s, b, depositBc, depositDust, out[SNOW.solid], layerMm);
+      if (melt > 0 || vapour > 0) {
+        impurityIn[IMPURITY_IN.melt] = melt;
+        impurityIn[IMPURITY_IN.vapour] = vapour;
+        impurityIn[IMPURITY_IN.solid] = solid;
+        enrichOnLoss(s, b, impurityIn);
+      }
+      if (deposits) {
+        impurityIn[IMPURITY_IN.solid] = out[SNOW.solid];
+        depositOnSurface(s, b, impurityIn);
+      }
       surfaceC = out[SNOW.surfaceC];
       deepC = out[SNOW.deepC];
       const wet = melt > 0 || held > 0 || surfaceC > -0.05;
@@ -311,7 +335,10 @@ export function bandSurfaces(c: LoopContext, b: number, d: number, month: number
         surfaceC = deepC = 0;
       }
     } else a[ACC.rainRunoff] += rain;
-    if (hasGlacier) glacierHour(c, b, month, 1 - cover, global, longIn, airC, w.airK[k]);
+    if (hasGlacier) {
+      w.cover[k] = cover;
+      glacierHour(c, b, k, month);
+    }
   }
 
   s.sweMm[b] = swe;

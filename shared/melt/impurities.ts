@@ -23,14 +23,32 @@ import type { BandState } from './state';
 const MAX_BLACK_CARBON_NG_G = 50_000;
 const MAX_DUST_UG_G = 5_000;
 
-/** Fresh snow of mass `snow` (kg m⁻²) falls on a pack of `solid` kg m⁻² (per m² of snow-covered ground). */
-export function buryUnderSnowfall(state: BandState, b: number, snow: number, solid: number, layerMass: number, freshBc: number, freshDust: number): void {
+/**
+ * Where the impurity steps read their numbers in the input array they are given (an array
+ * instead of arguments for the reason given at STEP_IN in surface-flux.ts): the surface layer's
+ * mass Ms and the scavenging shares (set once), the pack's solid mass (kg m⁻² of snow-covered
+ * ground) before the step, new snow (kg m⁻²) and its loads (ng g⁻¹, µg g⁻¹), the mass lost to
+ * melt and to the air (kg m⁻²), and dry deposition this hour (ng m⁻², µg m⁻²).
+ */
+export const IMPURITY_IN = {
+  layerMass: 0, scavengingBlackCarbon: 1, scavengingDust: 2, solid: 3, snow: 4, freshBlackCarbon: 5, freshDust: 6,
+  melt: 7, vapour: 8, depositBlackCarbon: 9, depositDust: 10,
+} as const;
+export const IMPURITY_IN_SIZE = 11;
+
+/** Fresh snow (IMPURITY_IN.snow, with its loads) falls on a pack of IMPURITY_IN.solid kg m⁻² (per m² of snow-covered ground). */
+export function buryUnderSnowfall(state: BandState, b: number, input: Float64Array): void {
+  const solid = input[IMPURITY_IN.solid];
+  const freshBc = input[IMPURITY_IN.freshBlackCarbon];
+  const freshDust = input[IMPURITY_IN.freshDust];
   if (solid <= 0) {
     state.surfaceBlackCarbonNgG[b] = state.packBlackCarbonNgG[b] = freshBc;
     state.surfaceDustUgG[b] = state.packDustUgG[b] = freshDust;
     state.horizonBlackCarbonNgM2[b] = state.horizonDustUgM2[b] = state.horizonDepthMm[b] = 0;
     return;
   }
+  const snow = input[IMPURITY_IN.snow];
+  const layerMass = input[IMPURITY_IN.layerMass];
   const oldSurface = solid < layerMass ? solid : layerMass;
   const oldPack = solid - oldSurface;
   const total = solid + snow;
@@ -62,8 +80,12 @@ function burySurfaceLoad(
   pack[b] = newPack > 0 ? (pack[b] * oldPack + buriedAtPack * buried + fresh * freshToPack) / newPack : surface[b];
 }
 
-/** Dry deposition onto the surface layer of a pack of `solid` kg m⁻². */
-export function depositOnSurface(state: BandState, b: number, blackCarbonNgM2: number, dustUgM2: number, solid: number, layerMass: number): void {
+/** Dry deposition this hour (IMPURITY_IN.deposit…) onto the surface layer of a pack of IMPURITY_IN.solid kg m⁻². */
+export function depositOnSurface(state: BandState, b: number, input: Float64Array): void {
+  addToSurface(state, b, input[IMPURITY_IN.depositBlackCarbon], input[IMPURITY_IN.depositDust], input[IMPURITY_IN.solid], input[IMPURITY_IN.layerMass]);
+}
+
+function addToSurface(state: BandState, b: number, blackCarbonNgM2: number, dustUgM2: number, solid: number, layerMass: number): void {
   const grams = 1000 * (solid < layerMass ? solid : layerMass);
   if (grams <= 0) return;
   state.surfaceBlackCarbonNgG[b] = Math.min(MAX_BLACK_CARBON_NG_G, state.surfaceBlackCarbonNgG[b] + blackCarbonNgM2 / grams);
@@ -71,22 +93,26 @@ export function depositOnSurface(state: BandState, b: number, blackCarbonNgM2: n
 }
 
 /**
- * The surface loses `melt` kg m⁻² to melting and `vapour` kg m⁻² to sublimation from a pack of
- * `solid` kg m⁻² (before the loss); scavenging shares kBc, kDust.
+ * The surface loses IMPURITY_IN.melt kg m⁻² to melting and IMPURITY_IN.vapour to sublimation
+ * from a pack of IMPURITY_IN.solid kg m⁻² (before the loss), with the scavenging shares.
  */
-export function enrichOnLoss(state: BandState, b: number, melt: number, vapour: number, solid: number, layerMass: number, kBc: number, kDust: number): void {
+export function enrichOnLoss(state: BandState, b: number, input: Float64Array): void {
+  const melt = input[IMPURITY_IN.melt];
+  const vapour = input[IMPURITY_IN.vapour];
+  const solid = input[IMPURITY_IN.solid];
+  const layerMass = input[IMPURITY_IN.layerMass];
   const lost = melt + (vapour > 0 ? vapour : 0);
   if (lost <= 0 || solid <= layerMass) return;
   const below = solid - layerMass;
   const refill = lost < below ? lost : below;
   const mass = layerMass - lost + refill;
   if (mass <= 0) return;
-  leaveBehind(state.surfaceBlackCarbonNgG, state.packBlackCarbonNgG, b, kBc, MAX_BLACK_CARBON_NG_G, layerMass, melt, refill, mass);
-  leaveBehind(state.surfaceDustUgG, state.packDustUgG, b, kDust, MAX_DUST_UG_G, layerMass, melt, refill, mass);
+  leaveBehind(state.surfaceBlackCarbonNgG, state.packBlackCarbonNgG, b, input[IMPURITY_IN.scavengingBlackCarbon], MAX_BLACK_CARBON_NG_G, layerMass, melt, refill, mass);
+  leaveBehind(state.surfaceDustUgG, state.packDustUgG, b, input[IMPURITY_IN.scavengingDust], MAX_DUST_UG_G, layerMass, melt, refill, mass);
   const depth = state.horizonDepthMm[b] - lost;
   state.horizonDepthMm[b] = depth > 0 ? depth : 0;
   if (depth < layerMass && (state.horizonBlackCarbonNgM2[b] > 0 || state.horizonDustUgM2[b] > 0)) {
-    depositOnSurface(state, b, state.horizonBlackCarbonNgM2[b], state.horizonDustUgM2[b], mass, layerMass);
+    addToSurface(state, b, state.horizonBlackCarbonNgM2[b], state.horizonDustUgM2[b], mass, layerMass);
     state.horizonBlackCarbonNgM2[b] = state.horizonDustUgM2[b] = state.horizonDepthMm[b] = 0;
   }
 }

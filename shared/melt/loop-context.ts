@@ -2,12 +2,13 @@ import { GAS_CONSTANT_DRY_AIR, SPECIFIC_HEAT_AIR, VAPOUR_MASS_RATIO } from './co
 import { OVERCAST_EMISSIVITY } from './longwave';
 import { neutralExchange, roughnessForExchange } from './turbulence';
 import { snowLayers, type SnowLayers } from './snow-pack';
-import type { DebrisColumn } from './debris-layers';
+import { DEBRIS_IN_SIZE, type DebrisColumn } from './debris-layers';
 import { cloudTermTable, type CloudTermTable } from './albedo-table';
+import { IMPURITY_IN_SIZE } from './impurities';
 import type { PreparedRun } from './prepare';
 import type { ShortwaveForcing } from './shortwave-forcing';
 import type { SunTrack } from './sun-track';
-import type { TurbulentAir } from './surface-flux';
+import { STEP_IN_SIZE, type TurbulentAir } from './surface-flux';
 import type { MeltModel } from './result';
 
 /** Slots of the per band-day accumulators the hour step adds to. */
@@ -20,7 +21,7 @@ export const ACC_SIZE = 22;
 
 /**
  * The weather of the band being simulated through one day, hour by hour (band-day.ts: worked out
- * by bandWeather, used by bandSurfaces).
+ * by bandWeather, used by bandSurfaces and glacierHour).
  */
 export interface BandHours {
   airC: Float64Array;
@@ -35,13 +36,15 @@ export interface BandHours {
   windMs: Float64Array;
   sensibleCoefficient: Float64Array;
   vapourCoefficient: Float64Array;
+  /** Snow-covered share of the band in each hour, for the glacier the snow leaves exposed. */
+  cover: Float64Array;
 }
 
 function allocateBandHours(): BandHours {
   const day = () => new Float64Array(24);
   return {
     airC: day(), airK: day(), rainMm: day(), snowMm: day(), globalWm2: day(), longInWm2: day(),
-    vapourPa: day(), windMs: day(), sensibleCoefficient: day(), vapourCoefficient: day(),
+    vapourPa: day(), windMs: day(), sensibleCoefficient: day(), vapourCoefficient: day(), cover: day(),
   };
 }
 
@@ -74,6 +77,11 @@ export interface LoopContext {
   cloudTerm: CloudTermTable;
   acc: Float64Array;
   scratch: Float64Array;
+  /** What the snow, ice, debris and impurity steps read (STEP_IN.*, DEBRIS_IN.*, IMPURITY_IN.*); the ice's rain heat stays 0. */
+  snowInput: Float64Array;
+  iceInput: Float64Array;
+  debrisInput: Float64Array;
+  impurityInput: Float64Array;
 }
 
 /** µm of radius growth per hour, times r², from a grain volume growth in mm³ per day: dr = dV/(4πr²). */
@@ -113,5 +121,9 @@ export function buildLoopContext(run: PreparedRun, sun: SunTrack, shortwave: Sho
     cloudTerm: cloudTermTable(),
     acc: new Float64Array(ACC_SIZE),
     scratch: new Float64Array(16),
+    snowInput: new Float64Array(STEP_IN_SIZE),
+    iceInput: new Float64Array(STEP_IN_SIZE),
+    debrisInput: new Float64Array(DEBRIS_IN_SIZE),
+    impurityInput: new Float64Array(IMPURITY_IN_SIZE),
   };
 }
