@@ -301,7 +301,7 @@ export function bandSurfaces(c: LoopContext, b: number, d: number, month: number
       deepC = out[SNOW.deepC];
       const wet = melt > 0 || held > 0 || surfaceC > -0.05;
       const grown = grain + (wet ? c.wetGrowth : c.dryGrowth) / (grain * grain);
-      grain = grown < maxGrain ? grown : maxGrain;
+      grain = Math.min(grown, maxGrain);
 
       // The snow left, taken from the fresh layer first; without melt the fresh layer settles into the older snow.
       const left = cover * out[SNOW.solid];
