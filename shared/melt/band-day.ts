@@ -1,7 +1,7 @@
 import { SPECIFIC_HEAT_WATER, STEFAN_BOLTZMANN, ZERO_CELSIUS_K, SECONDS_PER_HOUR } from './constants';
 import { loadPosition, radiusPosition, readClean, readCloudTerm, readImpurity } from './albedo-table';
 import { erbsDiffuseFraction } from './diffuse-split';
-import { readTable } from './temperature-table';
+import { readAt, sameGrid, tablePosition } from './temperature-table';
 import { horizonSector, sunlitShare } from './terrain';
 import { readCover } from './snow-cover';
 import { buryUnderSnowfall, depositOnSurface, enrichOnLoss, IMPURITY_IN } from './impurities';
@@ -34,6 +34,8 @@ const MERGE_PER_HOUR = 1 - Math.exp(-1 / FRESH_MERGE_HOURS);
  */
 export function snowCover(coverTable: Float64Array, swe: number, fresh: number, peak: number): number {
   const old = swe - fresh;
+  // Undepleted older snow and no fresh layer (most of a winter): the table's last node, 1.
+  if (fresh <= 0 && peak > 0 && old >= peak) return 1;
   const oldCover = old > 0 && peak > 0 ? readCover(coverTable, old / peak) : 0;
   if (fresh <= 0) return oldCover;
   const freshCover = fresh >= FRESH_FULL_COVER_MM ? 1 : fresh / FRESH_FULL_COVER_MM;
@@ -81,6 +83,8 @@ export function bandWeather(c: LoopContext, b: number, d: number): void {
   const width = p.rainSnowTransitionK;
   const snowTop = p.rainSnowThresholdC + width / 2;
   const inverseWidth = width > 0 ? 1 / width : 0;
+  // Emissivity and vapour pressure are tabulated on one grid of air temperature: one position serves both.
+  const oneGrid = sameGrid(run.emissivity, run.airVapour);
 
   for (let k = 0, h = d * 24; k < 24; k++, h++) {
     const airC = f.temperatureC[h] + temperatureOffset;
@@ -117,7 +121,8 @@ export function bandWeather(c: LoopContext, b: number, d: number): void {
     const tk2 = tk * tk;
     const inverseTk = 1 / tk;
     // The terrain a band sees emits as a black body at air temperature (assumption).
-    const skyEmissivity = readTable(run.emissivity, airC) * c.clearSkyEmissivityScale[h] + c.overcastEmissivity[h];
+    const position = tablePosition(run.airVapour, airC);
+    const skyEmissivity = readAt(run.emissivity, oneGrid ? position : tablePosition(run.emissivity, airC)) * c.clearSkyEmissivityScale[h] + c.overcastEmissivity[h];
     const wind = f.windMs[h];
     w.airC[k] = airC;
     w.airK[k] = tk;
@@ -125,7 +130,7 @@ export function bandWeather(c: LoopContext, b: number, d: number): void {
     w.snowMm[k] = snow;
     w.globalWm2[k] = global;
     w.longInWm2[k] = (skyEmissivity * skyView + groundView) * STEFAN_BOLTZMANN * tk2 * tk2;
-    w.vapourPa[k] = f.relativeHumidity[h] * readTable(run.airVapour, airC);
+    w.vapourPa[k] = f.relativeHumidity[h] * readAt(run.airVapour, position);
     w.windMs[k] = wind;
     w.sensibleCoefficient[k] = sensibleScale * inverseTk * wind;
     w.vapourCoefficient[k] = vapourScale * inverseTk * wind;
@@ -165,6 +170,8 @@ export function bandSurfaces(c: LoopContext, b: number, d: number, month: number
   const density = p.snowDensityKgM3;
   const thinDepth = p.thinSnowDepthM;
   const thinBelow = 8 * thinDepth;
+  // Deeper than this (with a margin far beyond rounding), the depth is past thinBelow without dividing.
+  const thinSolid = thinBelow * density * (1 + 1e-9);
   const ice = t.iceAlbedo[month];
   const patch = g.debrisPatchShare[b];
   const glacier = g.cleanIceShare[b] + g.debrisShare[b];
@@ -188,6 +195,8 @@ export function bandSurfaces(c: LoopContext, b: number, d: number, month: number
   snowIn[STEP_IN.drag] = c.snowIceDrag;
   snowIn[STEP_IN.heightOverRoughness] = c.snowIceHeightOverRoughness;
 
+  let lastLoad = NaN;
+  let loadPos = 0;
   let swe = s.sweMm[b];
   let liquidMelt = s.liquidMeltMm[b];
   let liquidRain = s.liquidRainMm[b];
@@ -232,7 +241,7 @@ export function bandSurfaces(c: LoopContext, b: number, d: number, month: number
     air.vapourCoefficient = w.vapourCoefficient[k];
 
     if (cover > 0) {
-      const inverseCover = 1 / cover;
+      const inverseCover = cover === 1 ? 1 : 1 / cover;
       const solid = swe * inverseCover;
       const meltLiquid = liquidMelt * inverseCover;
       const liquid = meltLiquid + liquidRain * inverseCover;
@@ -243,12 +252,20 @@ export function bandSurfaces(c: LoopContext, b: number, d: number, month: number
       if (global > 0) {
         const rPos = radiusPosition(grain);
         const clean = readClean(albedoTable, rPos);
-        const loaded = clean + readImpurity(albedoTable, rPos, loadPosition(s.surfaceBlackCarbonNgG[b] + dustWeight * s.surfaceDustUgG[b]));
+        // The surface load changes only when snow falls, melts, sublimates or dust settles: its table position is kept until it does.
+        const load = s.surfaceBlackCarbonNgG[b] + dustWeight * s.surfaceDustUgG[b];
+        if (load !== lastLoad) {
+          lastLoad = load;
+          loadPos = loadPosition(load);
+        }
+        const loaded = clean + readImpurity(albedoTable, rPos, loadPos);
         const tau = sw.cloudOpticalThickness[h];
         albedo = loaded + 0.53 * clean * (1 - loaded) * sw.albedoSunFactor[h];
         if (tau > 0) albedo += readCloudTerm(c.cloudTerm, clean, loaded, tau, sw.cloudLogTerm[h]);
-        const depth = solid / density;
-        if (depth < thinBelow) albedo += (below - albedo) * Math.exp(-depth / thinDepth);
+        if (solid < thinSolid) {
+          const depth = solid / density;
+          if (depth < thinBelow) albedo += (below - albedo) * Math.exp(-depth / thinDepth);
+        }
       }
       const absorbed = global * (1 - albedo);
 
