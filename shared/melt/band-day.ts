@@ -352,7 +352,11 @@ export function bandSurfaces(c: LoopContext, b: number, d: number, month: number
         surfaceC = deepC = 0;
       }
     } else a[ACC.rainRunoff] += rain;
-    if (hasGlacier) {
+    if (hasGlacier && cover >= 1) {
+      // No glacier exposed: ice and debris start from 0 °C when the snow next leaves them.
+      s.iceSurfaceC[b] = s.iceDeepC[b] = 0;
+      s.debrisSurfaceC[b] = s.debrisUpperC[b] = s.debrisLowerC[b] = 0;
+    } else if (hasGlacier) {
       w.cover[k] = cover;
       glacierHour(c, b, k, month);
     }

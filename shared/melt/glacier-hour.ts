@@ -4,8 +4,9 @@ import { STEP_IN } from './surface-flux';
 import { ACC, type LoopContext } from './loop-context';
 
 /**
- * Hour k of band b's snow-free glacier (the share 1 − cover of the band's glacier, with the hour's
- * weather and snow cover in `c.hours`): clean ice, bare ice between debris patches, and debris. Energy balance (surface temperatures, melt,
+ * Hour k of band b's snow-free glacier (the share 1 − cover > 0 of the band's glacier, with the
+ * hour's weather and snow cover in `c.hours`): clean ice, bare ice between debris patches, and
+ * debris. Energy balance (surface temperatures, melt,
  * vapour exchange) or, for the reference models, their melt index; debris in the reference
  * models melts the clean-ice amount times H* / (H* + h) (Anderson & Anderson 2016).
  * Debris always takes the stability correction: midday debris is far warmer than the air, and the
@@ -23,11 +24,6 @@ export function glacierHour(c: LoopContext, b: number, k: number, month: number)
   const clean = g.cleanIceShare[b];
   const debris = g.debrisShare[b];
   const exposed = 1 - w.cover[k];
-  if (exposed <= 0) {
-    s.iceSurfaceC[b] = s.iceDeepC[b] = 0;
-    s.debrisSurfaceC[b] = s.debrisUpperC[b] = s.debrisLowerC[b] = 0;
-    return;
-  }
   const global = w.globalWm2[k];
   const longIn = w.longInWm2[k];
   const airC = w.airC[k];
