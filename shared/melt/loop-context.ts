@@ -94,10 +94,17 @@ export function buildLoopContext(run: PreparedRun, sun: SunTrack, shortwave: Sho
   const hours = run.timeline.dayCount * 24;
   const clear = new Float64Array(hours);
   const overcast = new Float64Array(hours);
+  // RH^(1/7) again only when the humidity changes (daily series repeat it through the day).
+  let humidity = NaN;
+  let humidityRoot = 0;
   for (let h = 0; h < hours; h++) {
     const n = shortwave.cloudiness[h];
     const n4 = n * n * n * n;
-    clear[h] = Math.pow(run.forcing.relativeHumidity[h], 1 / 7) * (1 - n4);
+    if (run.forcing.relativeHumidity[h] !== humidity) {
+      humidity = run.forcing.relativeHumidity[h];
+      humidityRoot = Math.pow(humidity, 1 / 7);
+    }
+    clear[h] = humidityRoot * (1 - n4);
     overcast[h] = OVERCAST_EMISSIVITY * n4;
   }
   const snowIce = neutralExchange(roughnessForExchange(p.exchangeCoefficient));
