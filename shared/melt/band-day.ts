@@ -4,8 +4,8 @@ import { erbsDiffuseFraction } from './diffuse-split';
 import { readAt, sameGrid, tablePosition } from './temperature-table';
 import { horizonSector, sunlitShare } from './terrain';
 import { readCover } from './snow-cover';
-import { buryUnderSnowfall, depositOnSurface, enrichOnLoss, IMPURITY_IN } from './impurities';
-import { SNOW, stepSnowFrom, stepSnowIndex } from './snow-pack';
+import { afterSnowStep, buryUnderSnowfall, IMPURITY_IN } from './impurities';
+import { SNOW, stepSnowFrom } from './snow-pack';
 import { STEP_IN } from './surface-flux';
 import { glacierHour } from './glacier-hour';
 import { ACC, type LoopContext } from './loop-context';
@@ -180,7 +180,8 @@ export function bandSurfaces(c: LoopContext, b: number, d: number, month: number
   const dustWeight = 1000 * p.dustToBlackCarbon;
   const layerMm = p.snowSurfaceLayerMm;
   const surfaceMass = c.layers.surfaceMass;
-  const freshGrain = p.freshGrainRadiusUm;
+  // As a number V8 knows to be one: the grain radius it is assigned to would otherwise be boxed every hour.
+  const freshGrain = +p.freshGrainRadiusUm;
   const impurityIn = c.impurityInput;
   impurityIn[IMPURITY_IN.layerMass] = layerMm;
   impurityIn[IMPURITY_IN.scavengingBlackCarbon] = p.scavengingBlackCarbon;
@@ -278,14 +279,13 @@ export function bandSurfaces(c: LoopContext, b: number, d: number, month: number
         snowIn[STEP_IN.rainHeat] = rain > 0 && airC > 0 ? (SPECIFIC_HEAT_WATER * rain * airC) / SECONDS_PER_HOUR : 0;
         snowIn[STEP_IN.surfaceC] = surfaceC;
         snowIn[STEP_IN.deepC] = deepC;
-        stepSnowFrom(out, snowIn, run.surfaceVapour, c.layers, air, c.stability);
       } else {
         const index = c.model === 1
           ? (airC > 0 ? (p.degreeDaySnow / 24) * airC : 0)
           : (airC > p.etiThresholdC ? p.etiTemperatureFactor * airC + p.etiShortwaveFactor * absorbed : 0);
         snowIn[STEP_IN.indexMelt] = index > 0 ? index : 0;
-        stepSnowIndex(out, snowIn, c.layers);
       }
+      stepSnowFrom(out, snowIn, run.surfaceVapour, c.layers, air, c.stability, c.model !== 0);
 
       // Water and mass back to the band: what drained, what is held, what left as vapour.
       const melt = out[SNOW.melt];
@@ -304,16 +304,11 @@ export function bandSurfaces(c: LoopContext, b: number, d: number, month: number
       else a[ACC.sublimation] += cover * vapour;
 
       // Impurities left behind and deposited; grains grow, faster when wet.
-      if (melt > 0 || vapour > 0) {
-        impurityIn[IMPURITY_IN.melt] = melt;
-        impurityIn[IMPURITY_IN.vapour] = vapour;
-        impurityIn[IMPURITY_IN.solid] = solid;
-        enrichOnLoss(s, b, impurityIn);
-      }
-      if (deposits) {
-        impurityIn[IMPURITY_IN.solid] = out[SNOW.solid];
-        depositOnSurface(s, b, impurityIn);
-      }
+      impurityIn[IMPURITY_IN.melt] = melt;
+      impurityIn[IMPURITY_IN.vapour] = vapour;
+      impurityIn[IMPURITY_IN.solid] = solid;
+      impurityIn[IMPURITY_IN.solidAfter] = out[SNOW.solid];
+      if (melt > 0 || vapour > 0 || deposits) afterSnowStep(s, b, impurityIn, deposits);
       surfaceC = out[SNOW.surfaceC];
       deepC = out[SNOW.deepC];
       const wet = melt > 0 || held > 0 || surfaceC > -0.05;

@@ -88,11 +88,21 @@ export function stepSnow(
   input[STEP_IN.liquid] = liquid;
   input[STEP_IN.drag] = drag;
   input[STEP_IN.heightOverRoughness] = heightOverRoughness;
-  stepSnowFrom(out, input, table, layers, air, stability);
+  stepSnowFrom(out, input, table, layers, air, stability, false);
 }
 
-/** One hour of the pack as stepSnow, reading its numbers from `input` (STEP_IN.*), as the hour loop calls it. */
-export function stepSnowFrom(out: Float64Array, input: Float64Array, table: SurfaceVapourTable, layers: SnowLayers, air: TurbulentAir, stability: boolean): void {
+/**
+ * One hour of the pack as stepSnow, reading its numbers from `input` (STEP_IN.*), as the hour loop
+ * calls it; with `indexMelt`, the reference models' pack instead (stepSnowIndex). One entry for
+ * both, so V8 compiles the hour loop alike for every model.
+ */
+export function stepSnowFrom(
+  out: Float64Array, input: Float64Array, table: SurfaceVapourTable, layers: SnowLayers, air: TurbulentAir, stability: boolean, indexMelt: boolean,
+): void {
+  if (indexMelt) {
+    stepSnowIndex(out, input, layers);
+    return;
+  }
   const surfaceC = input[STEP_IN.surfaceC];
   const solid = input[STEP_IN.solid];
   const m1 = solid < layers.surfaceMass ? solid : layers.surfaceMass;
@@ -152,7 +162,7 @@ export function stepSnowFrom(out: Float64Array, input: Float64Array, table: Surf
  * exchange. Reads rain, solid and liquid water from `input` as stepSnowFrom does and writes the
  * same SNOW.* fields; temperatures stay at 0 °C.
  */
-export function stepSnowIndex(out: Float64Array, input: Float64Array, layers: SnowLayers): void {
+function stepSnowIndex(out: Float64Array, input: Float64Array, layers: SnowLayers): void {
   const solid = input[STEP_IN.solid];
   const melt = input[STEP_IN.indexMelt];
   const m = melt < solid ? melt : solid;
