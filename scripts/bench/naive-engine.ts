@@ -52,8 +52,8 @@ function hour(c: LoopContext, b: number, h: number, month: number, instantMs: nu
   const g = run.geometry;
   const p = run.params;
   const f = run.forcing;
-  const airC = f.temperatureC[h] + g.temperatureOffsetC[b];
-  const precipitation = f.precipitationMm[h] * g.precipitationFactor[b];
+  const airC = f.temperatureC[h] + g.temperatureOffsetK[b * 12 + month];
+  const precipitation = f.precipitationMm[h] * g.precipitationMultiplier[b * 12 + month];
   const width = p.rainSnowTransitionK;
   const top = p.rainSnowThresholdC + width / 2;
   const snowShare = width > 0 ? Math.min(1, Math.max(0, (top - airC) * (1 / width))) : airC < top ? 1 : 0;

@@ -57,7 +57,7 @@ export function addSnowfall(c: LoopContext, b: number, snow: number, airC: numbe
     const mixed = snow < surfaceMass ? snow : surfaceMass;
     s.snowSurfaceC[b] = (s.snowSurfaceC[b] * (surfaceMass - mixed) + snowC * mixed) / surfaceMass;
   }
-  buryUnderSnowfall(s, b, snow, old, layer, t.freshBlackCarbonNgG[month], t.freshDustUgG[month]);
+  buryUnderSnowfall(s, b, snow, old, layer, t.freshBlackCarbonNgG[b * 12 + month], t.freshDustUgG[b * 12 + month]);
   s.sweMm[b] = old + snow;
   s.freshSweMm[b] += snow;
 }
@@ -94,7 +94,7 @@ function snowAlbedoNow(c: LoopContext, b: number, h: number, month: number, soli
   if (tau > 0) albedo += readCloudTerm(c.cloudTerm, clean, loaded, tau, sw.cloudLogTerm[h]);
   const depth = solid / p.snowDensityKgM3;
   if (depth < 8 * p.thinSnowDepthM) {
-    const ice = c.run.tables.iceAlbedo[month];
+    const ice = c.run.tables.iceAlbedo[b * 12 + month];
     const patch = g.debrisPatchShare[b];
     const glacier = g.cleanIceShare[b] + g.debrisShare[b];
     const below = g.cleanIceShare[b] * ice + g.debrisShare[b] * (patch * p.debrisAlbedo + (1 - patch) * ice) + (1 - glacier) * GROUND_ALBEDO;
@@ -142,8 +142,8 @@ export function snowHour(c: LoopContext, b: number, h: number, month: number, co
   else a[ACC.sublimation] += cover * vapour;
 
   if (melt > 0 || vapour > 0) enrichOnLoss(s, b, melt, vapour, solid, p.snowSurfaceLayerMm, p.scavengingBlackCarbon, p.scavengingDust);
-  const depositBc = c.run.tables.blackCarbonDepositionNgM2Hour[month];
-  const depositDust = c.run.tables.dustDepositionUgM2Hour[month];
+  const depositBc = c.run.tables.blackCarbonDepositionNgM2Hour[b * 12 + month];
+  const depositDust = c.run.tables.dustDepositionUgM2Hour[b * 12 + month];
   if (depositBc > 0 || depositDust > 0) depositOnSurface(s, b, depositBc, depositDust, out[SNOW.solid], p.snowSurfaceLayerMm);
   const r = s.grainRadiusUm[b];
   const wet = melt > 0 || out[SNOW.liquid] > 0 || out[SNOW.surfaceC] > -0.05;
@@ -177,9 +177,33 @@ export function snowHour(c: LoopContext, b: number, h: number, month: number, co
 }
 
 /**
+ * Sets the turbulent air of hour h at air temperature `airC` (c.air) and returns the incoming
+ * longwave on the band: the sky's, seen over the sky view, plus the terrain's, which emits as a
+ * black body at air temperature (assumption).
+ */
+function airAt(c: LoopContext, h: number, airC: number, skyView: number, groundView: number, sensibleScale: number, vapourScale: number): number {
+  const run = c.run;
+  const f = run.forcing;
+  const air = c.air;
+  const tk = airC + ZERO_CELSIUS_K;
+  const tk2 = tk * tk;
+  const inverseTk = 1 / tk;
+  const skyEmissivity = readTable(run.emissivity, airC) * c.clearSkyEmissivityScale[h] + c.overcastEmissivity[h];
+  const wind = f.windMs[h];
+  air.airC = airC;
+  air.vapourPa = f.relativeHumidity[h] * readTable(run.airVapour, airC);
+  air.windMs = wind;
+  air.sensibleCoefficient = sensibleScale * inverseTk * wind;
+  air.vapourCoefficient = vapourScale * inverseTk * wind;
+  return (skyEmissivity * skyView + groundView) * STEFAN_BOLTZMANN * tk2 * tk2;
+}
+
+/**
  * One day of band b, hour by hour: precipitation phase, snowfall, radiation on the slope, the
  * snow and the exposed glacier. Adds the band's contributions to `c.acc`. The band's constants
  * are read once for the day; what all bands share for an hour comes from the per-hour arrays.
+ * Where the band climate cools the air over snow-free glacier (katabatic damping), the glacier
+ * hour gets its own air temperature, longwave and exchange coefficients.
  */
 export function bandDay(c: LoopContext, b: number, d: number, month: number): void {
   const run = c.run;
@@ -189,9 +213,9 @@ export function bandDay(c: LoopContext, b: number, d: number, month: number): vo
   const sun = c.sun;
   const sw = c.shortwave;
   const a = c.acc;
-  const air = c.air;
-  const temperatureOffset = g.temperatureOffsetC[b];
-  const precipitationFactor = g.precipitationFactor[b];
+  const temperatureOffset = g.temperatureOffsetK[b * 12 + month];
+  const precipitationFactor = g.precipitationMultiplier[b * 12 + month];
+  const glacierDelta = g.glacierTemperatureDeltaK[b * 12 + month];
   const hasGlacier = g.cleanIceShare[b] > 0 || g.debrisShare[b] > 0;
   const pressureKPa = g.pressureKPa[b];
   const vapourFactor = g.vapourFactor[b];
@@ -245,21 +269,16 @@ export function bandDay(c: LoopContext, b: number, d: number, month: number): vo
       }
       global = direct + diffuse * skyView + reflected * horizontal;
     }
-    const tk = airC + ZERO_CELSIUS_K;
-    const tk2 = tk * tk;
-    const inverseTk = 1 / tk;
-    // The terrain a band sees emits as a black body at air temperature (assumption).
-    const skyEmissivity = readTable(run.emissivity, airC) * c.clearSkyEmissivityScale[h] + c.overcastEmissivity[h];
-    const longIn = (skyEmissivity * skyView + groundView) * STEFAN_BOLTZMANN * tk2 * tk2;
-    const wind = f.windMs[h];
-    air.airC = airC;
-    air.vapourPa = f.relativeHumidity[h] * readTable(run.airVapour, airC);
-    air.windMs = wind;
-    air.sensibleCoefficient = sensibleScale * inverseTk * wind;
-    air.vapourCoefficient = vapourScale * inverseTk * wind;
+    const longIn = airAt(c, h, airC, skyView, groundView, sensibleScale, vapourScale);
 
     if (cover > 0) snowHour(c, b, h, month, cover, global, longIn, rain, airC);
     else a[ACC.rainRunoff] += rain;
-    if (hasGlacier) glacierHour(c, b, month, 1 - cover, global, longIn, airC, tk);
+    if (!hasGlacier) continue;
+    if (glacierDelta === 0) glacierHour(c, b, month, 1 - cover, global, longIn, airC, airC + ZERO_CELSIUS_K);
+    else {
+      const glacierC = airC + glacierDelta;
+      const glacierLongIn = airAt(c, h, glacierC, skyView, groundView, sensibleScale, vapourScale);
+      glacierHour(c, b, month, 1 - cover, global, glacierLongIn, glacierC, glacierC + ZERO_CELSIUS_K);
+    }
   }
 }

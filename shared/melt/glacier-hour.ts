@@ -26,7 +26,7 @@ export function glacierHour(c: LoopContext, b: number, month: number, exposed: n
     return;
   }
   const patch = g.debrisPatchShare[b];
-  const iceAlbedo = run.tables.iceAlbedo[month];
+  const iceAlbedo = run.tables.iceAlbedo[b * 12 + month];
   const bareShare = clean + (c.model === 0 ? debris * (1 - patch) : 0);
   if (bareShare > 0 || (c.model !== 0 && debris > 0)) {
     const absorbed = global * (1 - iceAlbedo);

@@ -8,7 +8,8 @@ import type { PreparedRun } from './prepare';
 import type { ShortwaveForcing } from './shortwave-forcing';
 import type { SunTrack } from './sun-track';
 import type { TurbulentAir } from './surface-flux';
-import type { MeltModel } from './result';
+import { SOURCES, type MeltModel, type Source } from './result';
+import { planRedistribution, type Redistribution } from './redistribution';
 
 /** Slots of the per band-day accumulators the hour step adds to. */
 export const ACC = {
@@ -46,6 +47,10 @@ export interface LoopContext {
   cloudTerm: CloudTermTable;
   acc: Float64Array;
   scratch: Float64Array;
+  /** Snow moved between bands at the end of each day; null when the run does not redistribute. */
+  redistribution: Redistribution | null;
+  /** With routing on: the catchment's runoff volume by source for every simulated day in order (spin-up first), m³. */
+  stepVolumesM3: Record<Source, Float64Array> | null;
 }
 
 /** µm of radius growth per hour, times r², from a grain volume growth in mm³ per day: dr = dV/(4πr²). */
@@ -84,5 +89,12 @@ export function buildLoopContext(run: PreparedRun, sun: SunTrack, shortwave: Sho
     cloudTerm: cloudTermTable(),
     acc: new Float64Array(ACC_SIZE),
     scratch: new Float64Array(16),
+    redistribution: planRedistribution(run.input, run.input.catchment.bands),
+    stepVolumesM3: run.input.routing ? stepVolumes(run) : null,
   };
+}
+
+function stepVolumes(run: PreparedRun): Record<Source, Float64Array> {
+  const steps = run.segments.reduce((n, s) => n + s.lastDay - s.firstDay + 1, 0);
+  return Object.fromEntries(SOURCES.map((source) => [source, new Float64Array(steps)])) as Record<Source, Float64Array>;
 }
