@@ -1,6 +1,7 @@
 import type { Knex } from 'knex';
 import { variableSpec, type Variable } from '../shared/schemas/dataset-variables';
 import { insertBaseline } from '../server/services/catchments/baseline-scenario';
+import { insertReferenceStation, syncReferenceStation } from '../server/services/stations/reference-station';
 import { insertDatasetValues, insertStakeReadings } from '../server/services/catchments/dataset-values';
 import { TenantScope } from '../server/services/tenant-scope';
 import { DEMO_ACCOUNTS, DEMO_ORGANISATION } from './data/demo-accounts';
@@ -41,9 +42,16 @@ export async function seed(knex: Knex): Promise<void> {
     };
     const existing = await trx('catchments').where({ organisation_id: organisationId, name: c.name }).first('id');
     const catchmentId: number = existing ? existing.id : (await trx('catchments').insert({ ...columns, created_by: user?.id ?? null }))[0];
-    if (existing) await trx('catchments').where('id', catchmentId).update(columns);
-    // A new catchment gets its baseline in the same transaction, as through the API.
-    else await insertBaseline(new TenantScope(trx, organisationId), catchmentId, user?.id ?? null);
+    const scope = new TenantScope(trx, organisationId);
+    if (existing) {
+      await trx('catchments').where('id', catchmentId).update(columns);
+      await syncReferenceStation(scope, catchmentId, c.stationName, c.stationElevationM);
+    } else {
+      // A new catchment gets its baseline and reference station in the same transaction, as through the API.
+      await insertBaseline(scope, catchmentId, user?.id ?? null);
+      await insertReferenceStation(scope, catchmentId, c.stationName, c.stationElevationM);
+    }
+    const referenceId: number = (await trx('stations').where({ catchment_id: catchmentId, is_reference: true }).first('id')).id;
 
     await trx('elevation_bands').where({ catchment_id: catchmentId }).delete();
     await trx('elevation_bands').insert(DEMO_BANDS.map((b, position) => ({
@@ -60,7 +68,8 @@ export async function seed(knex: Knex): Promise<void> {
     const addDataset = async (variable: Variable, step: 'hourly' | 'daily', accuracy: string, fileName: string, range: { first: string; last: string; count: number }) => {
       const spec = variableSpec(variable);
       const [datasetId] = await trx('datasets').insert({
-        organisation_id: organisationId, catchment_id: catchmentId, variable, kind: spec.kind, unit: spec.storedUnit, original_unit: spec.storedUnit,
+        organisation_id: organisationId, catchment_id: catchmentId, station_id: spec.kind === 'climate' ? referenceId : null,
+        variable, kind: spec.kind, unit: spec.storedUnit, original_unit: spec.storedUnit,
         time_step: step, time_zone: c.timeZone, source: SOURCE, accuracy, file_name: fileName,
         uploaded_by: user?.id ?? null, uploaded_by_name: user?.name ?? 'Demo seed',
         first_at: range.first, last_at: range.last, value_count: range.count,

@@ -10,13 +10,14 @@ import { createMailServices, type MailServices } from './services/mail';
 import type { MailInbox } from './services/mail/mail-catcher';
 import { createMemberServices, type MemberServices } from './services/members';
 import { createRunServices, type RunServices } from './services/runs';
+import { createStationServices, type StationServices } from './services/stations';
 import type { CatchmentInputSource } from './services/runs/catchment-inputs';
 import type { Simulator } from './services/runs/simulator';
 import { ThreadBudget } from './services/thread-budget';
 
 /** Everything the routes need, built once per app by `createContext` (tests and seeds build their own). */
 export interface AppContext
-  extends AuthServices, MailServices, BillingServices, MemberServices, CatchmentServices, LabServices, RunServices, BriefingServices {
+  extends AuthServices, MailServices, BillingServices, MemberServices, CatchmentServices, StationServices, LabServices, RunServices, BriefingServices {
   config: AppConfig;
   db: Knex;
   /** The worker threads the run, lab and PDF pools share (`config.workerThreads`). */
@@ -65,6 +66,7 @@ export function createContext(config: AppConfig, db: Knex, options: ContextOptio
     ...createBillingServices({ config, db }),
     ...memberServices,
     ...catchmentServices,
+    ...createStationServices(catchmentServices),
     ...labServices,
     ...runServices,
     ...briefingServices,

@@ -19,6 +19,7 @@ import { availableParallelism, loadavg } from 'node:os';
 import { loadConfig } from '../../server/config';
 import { createDb } from '../../server/db';
 import { insertBaseline } from '../../server/services/catchments/baseline-scenario';
+import { insertReferenceStation } from '../../server/services/stations/reference-station';
 import { insertDatasetValues } from '../../server/services/catchments/dataset-values';
 import { TenantScope } from '../../server/services/tenant-scope';
 import { DEMO_BANDS, DEMO_CATCHMENT } from '../../seeds/data/demo-catchment';
@@ -47,6 +48,7 @@ async function setUp(): Promise<number> {
     time_zone: c.timeZone, station_name: c.stationName, station_elevation_m: c.stationElevationM, outlet_description: c.outletDescription,
   });
   await insertBaseline(new TenantScope(db, organisationId), catchmentId, null);
+  const stationId = await insertReferenceStation(new TenantScope(db, organisationId), catchmentId, c.stationName, c.stationElevationM);
   await db('elevation_bands').insert(DEMO_BANDS.map((b, position) => ({
     organisation_id: organisationId, catchment_id: catchmentId, position, lower_m: b.lowerM, upper_m: b.upperM, area_km2: b.areaKm2,
     slope_deg: b.slopeDeg, aspect_deg: b.aspectDeg, glacier_fraction: b.glacierFraction, debris_fraction: b.debrisFraction, debris_thickness_m: b.debrisThicknessM,
@@ -54,7 +56,7 @@ async function setUp(): Promise<number> {
   const station = syntheticStation({ start: '2023-10-01', days: 366, seed: 20231001 });
   const add = async (variable: string, kind: string, unit: string, step: string, series: { times: string[]; values: number[] }) => {
     const [datasetId] = await db('datasets').insert({
-      organisation_id: organisationId, catchment_id: catchmentId, variable, kind, unit, original_unit: unit, time_step: step, time_zone: c.timeZone,
+      organisation_id: organisationId, catchment_id: catchmentId, station_id: kind === 'climate' ? stationId : null, variable, kind, unit, original_unit: unit, time_step: step, time_zone: c.timeZone,
       source: 'Synthetic benchmark series', accuracy: '', file_name: 'bench.csv', uploaded_by_name: 'Benchmark',
       first_at: series.times[0], last_at: series.times.at(-1), value_count: series.values.length,
     });

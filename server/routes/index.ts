@@ -9,6 +9,7 @@ import { catchmentBandRoutes } from './catchment-bands';
 import { catchmentDatasetRoutes } from './catchment-datasets';
 import { catchmentUploadRoutes } from './catchment-uploads';
 import { catchmentRoutes } from './catchments';
+import { catchmentStationRoutes } from './catchment-stations';
 import { devInboxRoutes } from './dev-inbox';
 import { healthRoutes } from './health';
 import { invitationRoutes } from './invitations';
@@ -34,6 +35,7 @@ export function apiAreas(ctx: AppContext): ApiArea[] {
     catchmentBandRoutes(ctx),
     catchmentDatasetRoutes(ctx),
     catchmentUploadRoutes(ctx),
+    catchmentStationRoutes(ctx),
     scenarioRoutes(ctx),
     runRoutes(ctx),
     labRoutes(ctx),

@@ -1,6 +1,7 @@
 import type { Knex } from 'knex';
 import { variableSpec, type Variable } from '../../shared/schemas/dataset-variables';
 import { insertBaseline } from '../../server/services/catchments/baseline-scenario';
+import { insertReferenceStation } from '../../server/services/stations/reference-station';
 import { insertDatasetValues, insertStakeReadings } from '../../server/services/catchments/dataset-values';
 import { TenantScope } from '../../server/services/tenant-scope';
 import { DEMO_BANDS, DEMO_CATCHMENT } from '../../seeds/data/demo-catchment';
@@ -20,6 +21,7 @@ export async function createDemoCatchment(db: Knex, organisationId: number, opti
     time_zone: c.timeZone, station_name: c.stationName, station_elevation_m: c.stationElevationM, outlet_description: c.outletDescription,
   });
   await insertBaseline(new TenantScope(db, organisationId), catchmentId, null);
+  const stationId = await insertReferenceStation(new TenantScope(db, organisationId), catchmentId, c.stationName, c.stationElevationM);
   await db('elevation_bands').insert(DEMO_BANDS.map((b, position) => ({
     organisation_id: organisationId, catchment_id: catchmentId, position,
     lower_m: b.lowerM, upper_m: b.upperM, area_km2: b.areaKm2, slope_deg: b.slopeDeg, aspect_deg: b.aspectDeg,
@@ -29,8 +31,8 @@ export async function createDemoCatchment(db: Knex, organisationId: number, opti
   const dataset = async (variable: Variable, step: 'hourly' | 'daily', first: string, last: string, count: number): Promise<number> => {
     const spec = variableSpec(variable);
     const [datasetId] = await db('datasets').insert({
-      organisation_id: organisationId, catchment_id: catchmentId, variable, kind: spec.kind, unit: spec.storedUnit, original_unit: spec.storedUnit,
-      time_step: step, time_zone: c.timeZone, source: 'lab test', accuracy: 'invented', file_name: `${variable}.csv`, uploaded_by_name: 'test',
+      organisation_id: organisationId, catchment_id: catchmentId, station_id: spec.kind === 'climate' ? stationId : null, variable, kind: spec.kind,
+      unit: spec.storedUnit, original_unit: spec.storedUnit, time_step: step, time_zone: c.timeZone, source: 'lab test', accuracy: 'invented', file_name: `${variable}.csv`, uploaded_by_name: 'test',
       first_at: first, last_at: last, value_count: count,
     });
     return datasetId;

@@ -7,7 +7,8 @@ import { AppError, notFound, validationFailed } from '../../errors';
 import { readSeriesFile, type SeriesFileOptions } from './csv/series-file';
 import { readStakeFile } from './csv/stake-file';
 import { decodeCsvText } from './csv/read-table';
-import { toDataset, type DatasetRow } from './dataset-service';
+import { datasetsWithStations, toDataset, type DatasetRow } from './dataset-service';
+import { referenceStation, stationOfCatchment } from '../stations/station-rows';
 import { insertDatasetValues, insertStakeReadings } from './dataset-values';
 import type { TenantScope } from '../tenant-scope';
 
@@ -45,6 +46,7 @@ interface PendingRow {
 export class UploadService {
   async preview(scope: TenantScope, catchmentId: number, file: UploadedFile, fields: UploadFields, user: Uploader): Promise<UploadPreview> {
     await scope.findOr404('catchments', catchmentId, 'Catchment');
+    if (fields.stationId !== undefined) await stationOfCatchment(scope, catchmentId, fields.stationId);
     const text = decodeCsvText(file.buffer);
     const read = readUpload(text, fields);
     await scope.from('pending_uploads').where('expires_at', '<', new Date()).delete();
@@ -72,9 +74,12 @@ export class UploadService {
       throw validationFailed('The file has problems that must be fixed before it can be stored; nothing was stored.', 'file', { problems: read.preview.problems });
     }
     const spec = variableSpec(fields.variable);
+    // A climate series without a named station is the reference station's, as before stations existed.
+    const stationId = fields.stationId ?? (spec.kind === 'climate' ? (await referenceStation(scope, catchmentId)).id : null);
     const datasetId = await scope.transaction(async (s) => {
       const id = await s.insert('datasets', {
         catchment_id: catchmentId,
+        station_id: stationId,
         variable: fields.variable,
         kind: spec.kind,
         unit: spec.storedUnit,
@@ -96,8 +101,8 @@ export class UploadService {
       await s.from('pending_uploads').where('id', pending.id).delete();
       return id;
     });
-    const row = await scope.findOr404<DatasetRow>('datasets', datasetId, 'Dataset');
-    return toDataset(row);
+    const row = await datasetsWithStations(scope).where('datasets.id', datasetId).first();
+    return toDataset(row as DatasetRow);
   }
 
   async discard(scope: TenantScope, catchmentId: number, token: string): Promise<void> {

@@ -8,6 +8,7 @@ import type { DatasetRow } from '../catchments/dataset-service';
 import { readDatasetValues, readStakeReadings } from '../catchments/dataset-values';
 import { buildSimulationInputs, requireReadyInputs } from '../catchments/simulation-inputs';
 import type { TenantScope } from '../tenant-scope';
+import { drivingDatasets } from '../stations/station-rows';
 
 /** Stored data the lab computes from: the climate forcing with a spin-up, and observed discharge. */
 export class LabData {
@@ -15,7 +16,7 @@ export class LabData {
 
   /** First and last dates on which both temperature and precipitation are recorded, or null without them. */
   async recordRange(scope: TenantScope, catchmentId: number): Promise<Period | null> {
-    const rows: DatasetRow[] = await scope.from<DatasetRow>('datasets').where({ catchment_id: catchmentId, kind: 'climate' }).orderBy('id', 'desc');
+    const rows: DatasetRow[] = await drivingDatasets(scope, catchmentId).orderBy('datasets.id', 'desc');
     const newest = (variables: string[]) => rows.find((r) => variables.includes(r.variable) && r.first_at && r.last_at);
     const temperature = newest(['temperature', 'temperatureMin']);
     const precipitation = newest(['precipitation']);
