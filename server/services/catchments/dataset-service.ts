@@ -152,7 +152,7 @@ export class DatasetService {
   }
 }
 
-function monthsBetween(first: string, last: string): string[] {
+export function monthsBetween(first: string, last: string): string[] {
   const months: string[] = [];
   let [y, m] = first.slice(0, 7).split('-').map(Number);
   const end = last.slice(0, 7);
@@ -165,7 +165,7 @@ function monthsBetween(first: string, last: string): string[] {
   }
 }
 
-function expectedStepsInMonth(month: string, first: string, last: string, step: 'hourly' | 'daily'): number {
+export function expectedStepsInMonth(month: string, first: string, last: string, step: 'hourly' | 'daily'): number {
   const [y, m] = month.split('-').map(Number);
   const size = STEP_MINUTES[step];
   const monthStart = Date.UTC(y, m - 1, 1) / 60_000;
