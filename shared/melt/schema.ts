@@ -104,7 +104,8 @@ export const parametersSchema = z.object(
 
 export const scenarioSchema = z.object({
   temperatureDeltaC: monthly(-15, 15).default(0),
-  precipitationFactor: monthly(0, 5).default(1),
+  // Up to 20: a water-balance correction (up to 6, shared/hydrology) times a scenario's change.
+  precipitationFactor: monthly(0, 20).default(1),
   blackCarbonSnowNgG: monthly(0, 50_000).default(0),
   blackCarbonIceNgG: monthly(0, 50_000).default(0),
   dustSnowUgG: monthly(0, 5_000).default(0),
