@@ -17,6 +17,8 @@ export interface ModelledBalance {
   snowStorageChangeMm: number;
   /** Change of glacier ice and firn storage (positive = gained), mm w.e. over the catchment area. */
   iceStorageChangeMm: number;
+  /** With runoff routing: change of the water held in the routing stores (soil, channels, groundwater), mm over the catchment area. */
+  storesChangeMm?: number;
   /** Glacier-wide mass balance, mm w.e. over the glacier area; needed when one is measured. */
   glacierMassBalanceMm?: number;
   /** Mass balance of the glacier part of each band, mm w.e. over that part; needed for band balances. */
@@ -47,7 +49,9 @@ export interface BalanceTerms {
   evaporationSublimationMm: number;
   snowStorageChangeMm: number;
   iceStorageChangeMm: number;
-  /** P − E − ΔS_snow − ΔS_ice − measured R: what the balance leaves open, mm. */
+  /** Change of the water in the routing stores (0 without routing). */
+  storesChangeMm: number;
+  /** P − E − ΔS_snow − ΔS_ice − ΔS_stores − measured R: what the balance leaves open, mm. */
   closureMm: number;
 }
 
@@ -84,6 +88,7 @@ export function termsOf(m: ModelledBalance, measuredRunoffMm: number): BalanceTe
     evaporationSublimationMm: m.evaporationSublimationMm,
     snowStorageChangeMm: m.snowStorageChangeMm,
     iceStorageChangeMm: m.iceStorageChangeMm,
-    closureMm: m.precipitationMm - m.evaporationSublimationMm - m.snowStorageChangeMm - m.iceStorageChangeMm - measuredRunoffMm,
+    storesChangeMm: m.storesChangeMm ?? 0,
+    closureMm: m.precipitationMm - m.evaporationSublimationMm - m.snowStorageChangeMm - m.iceStorageChangeMm - (m.storesChangeMm ?? 0) - measuredRunoffMm,
   };
 }
