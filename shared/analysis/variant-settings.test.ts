@@ -22,6 +22,12 @@ describe('a variant inherits what it does not set from its baseline', () => {
   });
 
   it('is its own settings for the baseline (no baseline to inherit from)', () => {
-    expect(simulationSettings({ period: null, parameters: { rainSnowThresholdC: 1 } }, null)).toEqual({ period: null, parameters: { rainSnowThresholdC: 1 } });
+    expect(simulationSettings({ period: null, parameters: { rainSnowThresholdC: 1 } }, null)).toEqual({ period: null, parameters: { rainSnowThresholdC: 1 }, waterBalancePrecipitation: false });
+  });
+
+  it('takes the water-balance precipitation from the baseline unless it sets its own source', () => {
+    expect(simulationSettings({ precipitationSource: null }, { precipitationSource: 'water-balance' }).waterBalancePrecipitation).toBe(true);
+    expect(simulationSettings({ precipitationSource: 'station' }, { precipitationSource: 'water-balance' }).waterBalancePrecipitation).toBe(false);
+    expect(simulationSettings({}, null).waterBalancePrecipitation).toBe(false);
   });
 });
