@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
+import { expectWithin } from '../../tests/support/within';
 import { simulate } from '../../shared/melt/simulate';
 import type { SimulationResult } from '../../shared/melt/result';
-import { glacierShortwave, impliedDegreeDayFactors } from '../../shared/analysis/plausibility';
+import { glacierShortwave, impliedDegreeDayFactors, PUBLISHED_RANGES } from '../../shared/analysis/plausibility';
 import { demoEngineInput } from './demo-forcing';
 import { DEMO_CALIBRATION } from './demo-calibration';
 
@@ -29,21 +30,17 @@ const baseline = run({});
 describe('the calibrated demo through the 2024 melt season', () => {
   it('implies degree-day factors inside the published ranges (Hock 2003)', () => {
     const ddf = impliedDegreeDayFactors(baseline);
-    expect(ddf.snow).toBeGreaterThan(2.5);
-    expect(ddf.snow).toBeLessThan(11.6);
-    expect(ddf.ice).toBeGreaterThan(6.6);
-    expect(ddf.ice).toBeLessThan(20);
+    expectWithin(ddf.snow, PUBLISHED_RANGES.snowDegreeDayFactor, 'snow degree-day factor');
+    expectWithin(ddf.ice, PUBLISHED_RANGES.iceDegreeDayFactor, 'ice degree-day factor');
   });
   it('receives summer shortwave on the glacier inside weather-station climatologies', () => {
     const sw = glacierShortwave(baseline, [5, 6, 7])!;
-    expect(sw).toBeGreaterThan(150);
-    expect(sw).toBeLessThan(320);
+    expectWithin(sw, [150, 320], 'June–August shortwave on the glacier');
   });
   it('adds 5–40 % runoff under the moderate black-carbon variant', () => {
     const variant = run({ blackCarbonSnowNgG: 100, blackCarbonIceNgG: 500 });
     const added = (total(variant) - total(baseline)) / total(baseline);
-    expect(added).toBeGreaterThan(0.05);
-    expect(added).toBeLessThan(0.4);
+    expectWithin(added, PUBLISHED_RANGES.darkeningAddedRunoff, 'added runoff, share of the baseline');
   });
   it('barely notices a longer spin-up (< 5 % of the season\'s runoff)', () => {
     const longer = run({}, { method: 'spin-up', years: 2 });

@@ -6,10 +6,14 @@ export interface ScenarioEngineInput {
   scenario: Scenario;
   parameters: ParameterOverrides;
   period?: { from: string; to: string };
+  physics?: { stabilityCorrection: boolean };
 }
 
-/** Maps stored scenario changes onto the engine's scenario, parameters and period. */
-export function engineInputOf(changes: ScenarioChanges, parameters: ParameterOverrides = changes.parameters): ScenarioEngineInput {
+/** Maps stored scenario changes onto the engine's scenario, parameters, period and physics options. */
+export function engineInputOf(
+  changes: ScenarioChanges, parameters: ParameterOverrides = changes.parameters,
+  physics: ScenarioEngineInput['physics'] = { stabilityCorrection: changes.stabilityCorrection ?? false },
+): ScenarioEngineInput {
   return {
     scenario: {
       temperatureDeltaC: changes.temperatureDeltaC,
@@ -24,6 +28,7 @@ export function engineInputOf(changes: ScenarioChanges, parameters: ParameterOve
       debrisExtentChange: changes.debrisExtentChange,
     },
     parameters,
+    physics,
     ...(changes.period ? { period: changes.period } : {}),
   };
 }

@@ -11,6 +11,18 @@ import type { SimulationResult } from '../melt/result';
  * Bands contribute in proportion to their degree-days (and area), so bands that barely melt
  * do not dominate.
  */
+/**
+ * Published ranges whole seasons are judged against, [low, high]:
+ *  - degree-day factors reviewed by Hock 2003 (J. Hydrol. 282:104), mm w.e. d⁻¹ K⁻¹ [memory];
+ *  - runoff added by black carbon and dust on polluted High Mountain Asian glaciers, a share of
+ *    the baseline's (e.g. Kaspari et al. 2014; Li et al. 2017; Zhang et al. 2018) [memory].
+ */
+export const PUBLISHED_RANGES = {
+  snowDegreeDayFactor: [2.5, 11.6],
+  iceDegreeDayFactor: [6.6, 20],
+  darkeningAddedRunoff: [0.05, 0.4],
+} as const satisfies Record<string, readonly [number, number]>;
+
 export interface ImpliedDegreeDayFactors {
   snow: number | null;
   ice: number | null;

@@ -15,6 +15,12 @@ describe('run plan', () => {
     expect(plan.members[1].input.scenario.blackCarbonSnowNgG).toBe(0);
   });
 
+  it('runs every member with the physics options the baseline chose unless the variant sets its own', () => {
+    const corrected = scenarioChangesSchema.parse({ ...baseline, stabilityCorrection: true });
+    const plan = planRun({ changes: variant, baselineChanges: corrected, attribution: true, ensembleSize: 2, ensembleSeed: 1 }, BANDS);
+    expect(plan.members.every((m) => m.input.physics?.stabilityCorrection === true)).toBe(true);
+  });
+
   it('adds the 2^N − 2 mixed combinations for attribution', () => {
     const plan = planRun({ changes: variant, baselineChanges: baseline, attribution: true, ensembleSize: 0, ensembleSeed: 1 }, BANDS);
     expect(plan.drivers).toEqual(['blackCarbon', 'dust', 'warming']);

@@ -55,8 +55,8 @@ export function attributionDrivers(changes: ScenarioChanges, baselineChanges: Sc
  */
 export function planRun(request: RunRequest, bandElevationsM: readonly number[]): RunPlan {
   const { changes, baselineChanges, attribution, ensembleSize, ensembleSeed } = request;
-  const { period, parameters } = simulationSettings(changes, baselineChanges);
-  const variant = engineInputOf({ ...changes, period }, parameters);
+  const { period, parameters, physics } = simulationSettings(changes, baselineChanges);
+  const variant = engineInputOf({ ...changes, period }, parameters, physics);
   const variantBands = bandElevationsM.map((m) => scenarioForBand(changes, m));
   const baselineBands = baselineChanges ? bandElevationsM.map((m) => scenarioForBand(baselineChanges, m)) : null;
   const member = (perBand: Scenario[], scenario: Scenario, parameters: ParameterOverrides) =>

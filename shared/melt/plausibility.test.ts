@@ -1,8 +1,9 @@
 import { describe, expect, it } from 'vitest';
+import { expectWithin } from '../../tests/support/within';
 import { simulate } from './simulate';
 import type { SimulationResult } from './result';
 import { inventedValley } from './fixtures/invented-valley';
-import { glacierShortwave, impliedDegreeDayFactors } from '../analysis/plausibility';
+import { glacierShortwave, impliedDegreeDayFactors, PUBLISHED_RANGES } from '../analysis/plausibility';
 
 /**
  * A whole melt season of a second invented catchment — an Alpine-style valley at 46° N with a
@@ -28,20 +29,16 @@ describe('an invented Alpine valley through a melt season', () => {
   it('takes its shortwave from the daily temperature range', () => expect(baseline.shortwaveSource).toBe('temperature-range'));
   it('implies degree-day factors inside the published ranges (Hock 2003)', () => {
     const ddf = impliedDegreeDayFactors(baseline);
-    expect(ddf.snow).toBeGreaterThan(2.5);
-    expect(ddf.snow).toBeLessThan(11.6);
-    expect(ddf.ice).toBeGreaterThan(6.6);
-    expect(ddf.ice).toBeLessThan(20);
+    expectWithin(ddf.snow, PUBLISHED_RANGES.snowDegreeDayFactor, 'snow degree-day factor');
+    expectWithin(ddf.ice, PUBLISHED_RANGES.iceDegreeDayFactor, 'ice degree-day factor');
   });
   it('receives summer shortwave on the glacier inside Alpine weather-station climatologies', () => {
     const sw = glacierShortwave(baseline, [5, 6, 7])!;
-    expect(sw).toBeGreaterThan(180);
-    expect(sw).toBeLessThan(300);
+    expectWithin(sw, [180, 300], 'June–August shortwave on the glacier');
   });
   it('adds 5–40 % runoff with 100 ng g⁻¹ more black carbon in snow and 500 ng g⁻¹ more on ice', () => {
     const added = (total(run({ blackCarbonSnowNgG: 100, blackCarbonIceNgG: 500 })) - total(baseline)) / total(baseline);
-    expect(added).toBeGreaterThan(0.05);
-    expect(added).toBeLessThan(0.4);
+    expectWithin(added, PUBLISHED_RANGES.darkeningAddedRunoff, 'added runoff, share of the baseline');
   });
   it('barely notices a longer spin-up (< 5 %)', () => {
     expect(Math.abs(total(run({}, 2)) - total(baseline)) / total(baseline)).toBeLessThan(0.05);

@@ -86,6 +86,11 @@ export const scenarioChangesSchema = z.object({
   debrisThicknessChangeM: number('debris thickness change', -10, 10, 'm').default(0),
   debrisExtentChange: number('debris extent change', 0, 1, '(fraction of clean glacier area)').default(0),
   parameters: parameterOverridesSchema.default({}),
+  /**
+   * Stability correction of the turbulent fluxes over snow and ice (the engine's
+   * physics.stabilityCorrection); null keeps the baseline's choice, which is off unless set.
+   */
+  stabilityCorrection: z.boolean().nullable().default(null),
 }).strict();
 export type ScenarioChanges = z.output<typeof scenarioChangesSchema>;
 export type ScenarioChangesInput = z.input<typeof scenarioChangesSchema>;
