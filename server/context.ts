@@ -11,13 +11,14 @@ import type { MailInbox } from './services/mail/mail-catcher';
 import { createMemberServices, type MemberServices } from './services/members';
 import { createRunServices, type RunServices } from './services/runs';
 import { createStationServices, type StationServices } from './services/stations';
+import { createWaterServices, type WaterServices } from './services/water';
 import type { CatchmentInputSource } from './services/runs/catchment-inputs';
 import type { Simulator } from './services/runs/simulator';
 import { ThreadBudget } from './services/thread-budget';
 
 /** Everything the routes need, built once per app by `createContext` (tests and seeds build their own). */
 export interface AppContext
-  extends AuthServices, MailServices, BillingServices, MemberServices, CatchmentServices, StationServices, LabServices, RunServices, BriefingServices {
+  extends AuthServices, MailServices, BillingServices, MemberServices, CatchmentServices, StationServices, WaterServices, LabServices, RunServices, BriefingServices {
   config: AppConfig;
   db: Knex;
   /** The worker threads the run, lab and PDF pools share (`config.workerThreads`). */
@@ -48,9 +49,10 @@ export function createContext(config: AppConfig, db: Knex, options: ContextOptio
   const mailServices = createMailServices({ config, db, inbox: options.inbox });
   const memberServices = createMemberServices({ config, db, auth: authServices.auth, mail: mailServices.mail });
   const catchmentServices = createCatchmentServices();
-  const labServices = createLabServices({ db, bands: catchmentServices.bands, threads });
+  const waterServices = createWaterServices({ bands: catchmentServices.bands });
+  const labServices = createLabServices({ db, bands: catchmentServices.bands, threads, water: waterServices });
   const runServices = createRunServices({
-    config, db, bands: catchmentServices.bands, calibrations: labServices.lab.calibrations, threads,
+    config, db, bands: catchmentServices.bands, calibrations: labServices.lab.calibrations, threads, water: waterServices.waterInputs,
     simulator: options.simulator, catchmentInputs: options.catchmentInputs,
   });
   const briefingServices = createBriefingServices({
@@ -67,6 +69,7 @@ export function createContext(config: AppConfig, db: Knex, options: ContextOptio
     ...memberServices,
     ...catchmentServices,
     ...createStationServices(catchmentServices),
+    ...waterServices,
     ...labServices,
     ...runServices,
     ...briefingServices,

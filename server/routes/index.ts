@@ -10,6 +10,7 @@ import { catchmentDatasetRoutes } from './catchment-datasets';
 import { catchmentUploadRoutes } from './catchment-uploads';
 import { catchmentRoutes } from './catchments';
 import { catchmentStationRoutes } from './catchment-stations';
+import { catchmentWaterRoutes } from './catchment-water';
 import { devInboxRoutes } from './dev-inbox';
 import { healthRoutes } from './health';
 import { invitationRoutes } from './invitations';
@@ -36,6 +37,7 @@ export function apiAreas(ctx: AppContext): ApiArea[] {
     catchmentDatasetRoutes(ctx),
     catchmentUploadRoutes(ctx),
     catchmentStationRoutes(ctx),
+    catchmentWaterRoutes(ctx),
     scenarioRoutes(ctx),
     runRoutes(ctx),
     labRoutes(ctx),

@@ -9,10 +9,11 @@ import { readDatasetValues, readStakeReadings } from '../catchments/dataset-valu
 import { buildSimulationInputs, requireReadyInputs } from '../catchments/simulation-inputs';
 import type { TenantScope } from '../tenant-scope';
 import { drivingDatasets } from '../stations/station-rows';
+import type { WaterInputSource } from '../water/water-inputs';
 
 /** Stored data the lab computes from: the climate forcing with a spin-up, and observed discharge. */
 export class LabData {
-  constructor(private readonly bands: BandService) {}
+  constructor(private readonly bands: BandService, private readonly water: WaterInputSource) {}
 
   /** First and last dates on which both temperature and precipitation are recorded, or null without them. */
   async recordRange(scope: TenantScope, catchmentId: number): Promise<Period | null> {
@@ -33,7 +34,9 @@ export class LabData {
       throw validationFailed(`The period starts on ${period.from}, before the climate record begins (${start}).`, 'from');
     }
     const input = requireReadyInputs(await buildSimulationInputs(scope, this.bands, catchmentId, period, { spinUpYears: 1 }));
-    return { catchment: input.catchment, forcing: input.forcing, parameters: set.parameters, precipitationFactor: set.precipitationFactor };
+    // The lab simulates as runs do: with the catchment's gradients, redistribution and routing, on the station precipitation.
+    const water = await this.water.inputs(scope, catchmentId);
+    return { catchment: input.catchment, forcing: input.forcing, parameters: set.parameters, precipitationFactor: set.precipitationFactor, water };
   }
 
   /** Stake readings of the newest stake dataset. */

@@ -16,6 +16,7 @@ import type { BandService } from '../catchments/band-service';
 import type { TenantScope } from '../tenant-scope';
 import type { CalibrationStore } from './calibration-store';
 import { LabData } from './lab-data';
+import type { WaterServices } from '../water';
 import { LabJobs } from './lab-jobs';
 import type { LabPool } from './lab-pool';
 
@@ -27,8 +28,8 @@ export class LabService {
   readonly data: LabData;
   readonly jobs: LabJobs;
 
-  constructor(db: Knex, bands: BandService, readonly pool: LabPool, readonly calibrations: CalibrationStore) {
-    this.data = new LabData(bands);
+  constructor(db: Knex, bands: BandService, readonly pool: LabPool, readonly calibrations: CalibrationStore, water: WaterServices) {
+    this.data = new LabData(bands, water.waterInputs);
     this.jobs = new LabJobs(db);
   }
 

@@ -9,6 +9,8 @@ import { validationFailed } from '../../errors';
 import type { BandService } from '../catchments/band-service';
 import type { StationRow } from '../stations/station-rows';
 import type { TenantScope } from '../tenant-scope';
+import { csvFile, type DownloadFile } from '../download-file';
+import { gradientsCsv } from './gradients-csv';
 import { refusingInput } from './hydrology-errors';
 import { stationClimatologies, type Climatologies } from './station-climate';
 
@@ -59,13 +61,26 @@ export class GradientService {
     };
   }
 
+  /** Refuses settings whose gradients cannot be fitted or applied (before they are saved). */
+  async check(scope: TenantScope, catchmentId: number, settings: GradientSettings): Promise<void> {
+    if (settings.use) await this.chosen(scope, catchmentId, settings);
+  }
+
+  /** The fit as a CSV download: month by month, then the stations' climatologies. */
+  async csvFile(scope: TenantScope, catchmentId: number, settings: GradientSettings): Promise<DownloadFile> {
+    return csvFile(`catchment-${catchmentId}-gradients.csv`, gradientsCsv(await this.fit(scope, catchmentId, settings, settings.use)));
+  }
+
   /** The gradients runs take, or null when the catchment does not use them. */
   async chosen(scope: TenantScope, catchmentId: number, settings: GradientSettings): Promise<WaterInputs['gradients']> {
     if (!settings.use) return null;
     const { catchment, bands, climatologies } = await this.load(scope, catchmentId);
     const fitted = await this.fitted(climatologies.stations.map((s) => s.climate), bands, catchment.station_elevation_m, settings);
     const chosen = await refusingInput(() => chooseMonthlyGradients(fitted, settings.overrides), 'gradients');
-    return { lapseRatesKPerKm: chosen.lapseRatesKPerKm, profiles: chosen.profiles, damping: settings.damping ? this.damping(climatologies, settings) : null };
+    return {
+      lapseRatesKPerKm: chosen.lapseRatesKPerKm, profiles: chosen.profiles, damping: settings.damping ? this.damping(climatologies, settings) : null,
+      origin: { lapseRate: chosen.lapseRateOrigin, profile: chosen.profileOrigin, stationCount: climatologies.stations.length },
+    };
   }
 
   private async load(scope: TenantScope, catchmentId: number) {

@@ -1,5 +1,5 @@
 import { checkProfile } from '../../../shared/hydrology/precipitation-profile';
-import { initialGlacier } from '../../../shared/hydrology/glacier-volume';
+import { initialGlacierOf } from '../../../shared/analysis/water-side-inputs';
 import { DEFAULT_WATER_SETTINGS, waterSettingsSchema, type WaterSettings, type WaterSettingsReply } from '../../../shared/schemas/water-settings';
 import type { BandRow } from '../../../shared/schemas/catchment-bands';
 import { validationFailed } from '../../errors';
@@ -65,10 +65,7 @@ export async function checkAgainstBands(settings: WaterSettings, bands: BandRow[
     throw validationFailed(`glacier.iceThicknessM: ${settings.glacier.iceThicknessM.length} thickness(es) for ${n} bands; give one per band, lowest first.`, 'glacier.iceThicknessM');
   }
   if (n === 0) return;
-  await refusingInput(() => {
-    const glacier = settings.glacier;
-    initialGlacier(bands, glacier.method === 'thickness' ? { iceThicknessM: glacier.iceThicknessM } : { glacierAreasKm2: glacier.glacierAreasKm2 ?? undefined });
-  }, 'glacier');
+  await refusingInput(() => initialGlacierOf(bands, settings.glacier), 'glacier');
   await refusingInput(() => settings.gradients.overrides.profiles.forEach((p, m) => p && checkProfile(p, bands, referenceElevationM, `profiles[${m}]`)), 'gradients.overrides');
   const peak = settings.gradients.fixed.peakElevationM;
   if (peak !== undefined) {

@@ -27,7 +27,10 @@ export class WaterInputSource {
     const closure = await this.closures.current(scope, catchmentId);
     return {
       gradients: await this.gradients.chosen(scope, catchmentId, settings.gradients),
-      closure: closure?.closure.closed ? { precipitationFactor: closure.closure.candidate.precipitationFactor, profile: closure.closure.candidate.profile } : null,
+      closure: closure?.closure.closed ? {
+        precipitationFactor: closure.closure.candidate.precipitationFactor, profile: closure.closure.candidate.profile,
+        period: closure.closure.period, savedAt: closure.savedAt, savedBy: closure.savedBy, ratio: closure.closure.precipitationRatio.value,
+      } : null,
       redistribution: engineRedistribution(settings),
       routing: settings.routing,
       glacier: settings.glacier,
