@@ -3,9 +3,15 @@ import type { BandImpurities, SimulationInput } from '../melt/schema';
 import { IMPURITY_FIELDS } from '../schemas/scenarios';
 import type { BandPart } from './band-parts';
 import { summariseSimulation, type SimulationSummary } from './simulation-summary';
+import { simulateTransient, type TransientMemberPlan, type TransientSummary } from './transient-member';
 
-/** An engine input, optionally with band groups that each have their own impurity loads. */
-export type MemberInput = SimulationInput & { parts?: BandPart[] | null };
+/** An engine input, optionally with band groups that each have their own impurity loads, and the years of a multi-decade run. */
+export type MemberInput = SimulationInput & { parts?: BandPart[] | null; transient?: TransientMemberPlan | null };
+
+/** What one run member gives back: a season's summary or a multi-decade run's years. */
+export type MemberSummary = SimulationSummary | TransientSummary;
+
+export const isTransientSummary = (s: MemberSummary): s is TransientSummary => 'kind' in s && s.kind === 'transient';
 
 /**
  * The engine's per-band loads from band groups: each band takes its group's impurity fields.
@@ -20,9 +26,17 @@ export function impuritiesOfParts(parts: readonly BandPart[], bandCount: number)
   return out;
 }
 
-/** Simulates one run member and returns what a run stores. */
+function engineInputOf(input: MemberInput): SimulationInput {
+  const { parts, transient: _transient, ...engineInput } = input;
+  return parts ? { ...engineInput, impuritiesByBand: impuritiesOfParts(parts, engineInput.catchment.bands.length) } : engineInput;
+}
+
+/** Simulates one season member and returns what a run stores. */
 export function simulateSummary(input: MemberInput, onProgress?: (fraction: number) => void): SimulationSummary {
-  const { parts, ...engineInput } = input;
-  const withLoads = parts ? { ...engineInput, impuritiesByBand: impuritiesOfParts(parts, engineInput.catchment.bands.length) } : engineInput;
-  return summariseSimulation(simulate(withLoads, { onProgress: (p) => onProgress?.(p.fraction) }));
+  return summariseSimulation(simulate(engineInputOf(input), { onProgress: (p) => onProgress?.(p.fraction) }));
+}
+
+/** Simulates one run member, a season or a multi-decade run. */
+export function simulateMember(input: MemberInput, onProgress?: (fraction: number) => void): MemberSummary {
+  return input.transient ? simulateTransient({ ...engineInputOf(input), transient: input.transient }, onProgress) : simulateSummary(input, onProgress);
 }

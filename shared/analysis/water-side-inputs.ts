@@ -1,10 +1,13 @@
 import { bandClimate } from '../hydrology/band-climate';
 import type { GlacierDampingParameters } from '../hydrology/glacier-air-temperature';
+import type { GradientOrigin } from '../hydrology/station-gradients';
 import type { PrecipitationProfile } from '../hydrology/precipitation-profile';
+import type { BalanceCandidate } from '../hydrology/water-balance';
 import { PARAMETER_SPECS } from '../melt/parameters';
 import type { SimulationInput } from '../melt/schema';
 import type { ParameterOverrides } from '../schemas/scenarios';
 import type { GlacierSettings } from '../schemas/water-settings';
+import { initialGlacier, type GlacierBand, type GlacierState } from '../hydrology/glacier-volume';
 
 /**
  * The water side of a catchment's stored inputs, as the server assembles it from the catchment's
@@ -16,12 +19,29 @@ export interface WaterInputs {
     lapseRatesKPerKm: number[];
     profiles: PrecipitationProfile[];
     damping: (GlacierDampingParameters & { referenceMonthlyTemperatureC: number[] }) | null;
+    /** How each month's lapse rate and profile came about, and from how many stations: for the run's set-up. */
+    origin: { lapseRate: GradientOrigin[]; profile: GradientOrigin[]; stationCount: number };
   } | null;
   /** The newest saved water-balance closure: the factor and profile that close the balance; null when none is saved. */
-  closure: { precipitationFactor: number; profile: PrecipitationProfile } | null;
+  closure: (BalanceCandidate & Partial<ClosureFacts>) | null;
   redistribution: NonNullable<SimulationInput['redistribution']> | null;
   routing: NonNullable<SimulationInput['routing']> | null;
   glacier: GlacierSettings;
+}
+
+/** Where a saved closure came from, for the run's set-up. */
+export interface ClosureFacts {
+  period: { from: string; to: string };
+  savedAt: string;
+  savedBy: string;
+  /** Inferred over station precipitation, catchment means. */
+  ratio: number;
+}
+
+/** What a run stores of its water side: the inputs and whether it took the water-balance precipitation. */
+export interface RunWaterSide {
+  water: WaterInputs;
+  waterBalancePrecipitation: boolean;
 }
 
 export const NO_WATER_SIDE: WaterInputs = Object.freeze({
@@ -70,10 +90,33 @@ export function engineWaterSide(catchment: SimulationInput['catchment'], water: 
   return side;
 }
 
+/**
+ * The glacier a multi-decade run starts from, by the catchment's glacier settings: a thickness per
+ * band, or the volume–area relation over the given glaciers (one glacier of the bands' total by default).
+ * @throws HydrologyInputError naming the setting that does not fit the bands
+ */
+export function initialGlacierOf(bands: readonly GlacierBand[], settings: GlacierSettings): GlacierState {
+  return initialGlacier(bands, settings.method === 'thickness'
+    ? { iceThicknessM: settings.iceThicknessM }
+    : { glacierAreasKm2: settings.glacierAreasKm2 ?? undefined, coefficientKm: settings.coefficientKm, exponent: settings.exponent });
+}
+
 /** A scenario precipitation factor (one or twelve monthly values) times a scale. */
 export function scaledFactor(factor: number | number[], scale: number): number | number[] {
   if (scale === 1) return factor;
   return Array.isArray(factor) ? factor.map((f) => f * scale) : factor * scale;
+}
+
+/**
+ * A scenario's precipitation factor relative to its baseline's, month by month: with the
+ * water-balance precipitation the closure's factor replaces the baseline's station factor, and a
+ * variant keeps only its change relative to the baseline (e.g. +10 %).
+ * @example relativeFactor(1.65, 1.5) // 1.1
+ */
+export function relativeFactor(factor: number | number[], reference: number | number[]): number | number[] {
+  const at = (v: number | number[], m: number) => (Array.isArray(v) ? v[m] : v);
+  if (!Array.isArray(factor) && !Array.isArray(reference)) return reference > 0 ? factor / reference : factor;
+  return Array.from({ length: 12 }, (_, m) => (at(reference, m) > 0 ? at(factor, m) / at(reference, m) : at(factor, m)));
 }
 
 /**
