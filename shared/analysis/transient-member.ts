@@ -1,4 +1,5 @@
 import { simulate } from '../melt/simulate';
+import { daysBetween } from '../melt/calendar';
 import { SOURCES, type SimulationResult, type Source } from '../melt/result';
 import type { ShortwaveSource, SimulationInput } from '../melt/schema';
 import type { StartReport } from '../melt/spin-up';
@@ -73,6 +74,23 @@ function yearScenario(scenario: SimulationInput['scenario'], year: TransientYear
 
 const total = (series: Float64Array) => series.reduce((s, v) => s + v, 0);
 
+const STEP_SERIES = ['temperatureC', 'tMinC', 'tMaxC', 'tMeanC', 'cloudiness', 'windMs', 'relativeHumidity', 'globalRadiationWm2'] as const;
+
+/**
+ * The forcing of one record year alone: each year is then parsed and prepared (sun, shortwave,
+ * snow-cover tables) for its own days rather than the whole record's.
+ */
+export function forcingOfPeriod(forcing: SimulationInput['forcing'], period: { from: string; to: string }): SimulationInput['forcing'] {
+  const first = daysBetween(forcing.start, period.from);
+  const days = daysBetween(period.from, period.to) + 1;
+  const perDay = forcing.timeStep === 'hourly' ? 24 : 1;
+  const cut = <T>(values: T[] | undefined, steps: number) => values?.slice(first * steps, (first + days) * steps);
+  const out: Record<string, unknown> = { ...forcing, start: period.from };
+  for (const key of STEP_SERIES) if (key in forcing) out[key] = cut((forcing as Record<string, (number | null)[] | undefined>)[key], perDay);
+  out.precipitationMm = cut(forcing.precipitationMm, (forcing.precipitationStep ?? forcing.timeStep) === 'hourly' ? 24 : 1);
+  return out as SimulationInput['forcing'];
+}
+
 /** Melt and rain from the initially glacierised area of each band (snow melt and rain taken as even over the band), m³. */
 function glacierRunoffM3(result: SimulationResult, initialFraction: readonly number[]): number {
   const t = result.bandTotals;
@@ -98,10 +116,11 @@ export function simulateTransient(input: SimulationInput & { transient: Transien
   let state: EngineState | null = null;
   let first: SimulationResult | null = null;
   const bandAreas: number[][] = [];
+  const forcings = new Map(Object.entries(transient.periods).map(([year, period]) => [Number(year), forcingOfPeriod(engine.forcing, period)]));
   const simulateYear: YearSimulator = (year, fraction) => {
     const catchment = { ...engine.catchment, bands: bands.map((b, i) => ({ ...b, glacierFraction: Math.min(1, Math.max(0, fraction[i])) })) };
     const result = simulate({
-      ...engine, catchment, scenario: yearScenario(engine.scenario, year), period: transient.periods[year.recordYear],
+      ...engine, catchment, forcing: forcings.get(year.recordYear)!, scenario: yearScenario(engine.scenario, year), period: transient.periods[year.recordYear],
       start: state ? { method: 'state', state } : engine.start,
     });
     first ??= result;
