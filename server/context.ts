@@ -52,7 +52,7 @@ export function createContext(config: AppConfig, db: Knex, options: ContextOptio
   const waterServices = createWaterServices({ bands: catchmentServices.bands });
   const labServices = createLabServices({ db, bands: catchmentServices.bands, threads, water: waterServices });
   const runServices = createRunServices({
-    config, db, bands: catchmentServices.bands, calibrations: labServices.lab.calibrations, threads, water: waterServices.waterInputs,
+    config, db, bands: catchmentServices.bands, calibrations: labServices.lab.calibrations, threads, water: waterServices,
     simulator: options.simulator, catchmentInputs: options.catchmentInputs,
   });
   const briefingServices = createBriefingServices({

@@ -86,7 +86,7 @@ export function forcingOfPeriod(forcing: SimulationInput['forcing'], period: { f
   const perDay = forcing.timeStep === 'hourly' ? 24 : 1;
   const cut = <T>(values: T[] | undefined, steps: number) => values?.slice(first * steps, (first + days) * steps);
   const out: Record<string, unknown> = { ...forcing, start: period.from };
-  for (const key of STEP_SERIES) if (key in forcing) out[key] = cut((forcing as Record<string, (number | null)[] | undefined>)[key], perDay);
+  for (const key of STEP_SERIES) if (key in forcing) out[key] = cut((forcing as unknown as Record<string, (number | null)[] | undefined>)[key], perDay);
   out.precipitationMm = cut(forcing.precipitationMm, (forcing.precipitationStep ?? forcing.timeStep) === 'hourly' ? 24 : 1);
   return out as SimulationInput['forcing'];
 }

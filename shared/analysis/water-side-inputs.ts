@@ -1,42 +1,13 @@
 import { bandClimate } from '../hydrology/band-climate';
-import type { GlacierDampingParameters } from '../hydrology/glacier-air-temperature';
-import type { GradientOrigin } from '../hydrology/station-gradients';
 import type { PrecipitationProfile } from '../hydrology/precipitation-profile';
-import type { BalanceCandidate } from '../hydrology/water-balance';
 import { PARAMETER_SPECS } from '../melt/parameters';
 import type { SimulationInput } from '../melt/schema';
 import type { ParameterOverrides } from '../schemas/scenarios';
 import type { GlacierSettings } from '../schemas/water-settings';
+import type { WaterInputs } from '../schemas/water-inputs';
 import { initialGlacier, type GlacierBand, type GlacierState } from '../hydrology/glacier-volume';
 
-/**
- * The water side of a catchment's stored inputs, as the server assembles it from the catchment's
- * settings, stations and saved water-balance closure (and hashes it with the rest of a run's inputs).
- */
-export interface WaterInputs {
-  /** The monthly gradients chosen from the stations (fitted, assumed or set by hand); null: the engine's own lapse rate and gradient. */
-  gradients: {
-    lapseRatesKPerKm: number[];
-    profiles: PrecipitationProfile[];
-    damping: (GlacierDampingParameters & { referenceMonthlyTemperatureC: number[] }) | null;
-    /** How each month's lapse rate and profile came about, and from how many stations: for the run's set-up. */
-    origin: { lapseRate: GradientOrigin[]; profile: GradientOrigin[]; stationCount: number };
-  } | null;
-  /** The newest saved water-balance closure: the factor and profile that close the balance; null when none is saved. */
-  closure: (BalanceCandidate & Partial<ClosureFacts>) | null;
-  redistribution: NonNullable<SimulationInput['redistribution']> | null;
-  routing: NonNullable<SimulationInput['routing']> | null;
-  glacier: GlacierSettings;
-}
-
-/** Where a saved closure came from, for the run's set-up. */
-export interface ClosureFacts {
-  period: { from: string; to: string };
-  savedAt: string;
-  savedBy: string;
-  /** Inferred over station precipitation, catchment means. */
-  ratio: number;
-}
+export type { WaterInputs } from '../schemas/water-inputs';
 
 /** What a run stores of its water side: the inputs and whether it took the water-balance precipitation. */
 export interface RunWaterSide {
@@ -128,4 +99,18 @@ export function withWaterSide<T extends Pick<SimulationInput, 'catchment' | 'sce
   const { precipitationScale, ...side } = engineWaterSide(input.catchment, water ?? NO_WATER_SIDE, input.parameters ?? {}, useClosure);
   const scenario: NonNullable<SimulationInput['scenario']> = rest.scenario ?? {};
   return { ...rest, ...side, scenario: { ...scenario, precipitationFactor: scaledFactor(scenario.precipitationFactor ?? 1, precipitationScale) } };
+}
+
+/**
+ * The water side of one band simulated alone (the scenario builder's preview): its twelve months
+ * of the catchment's band climate; one band exchanges no snow and is not routed.
+ */
+export function bandWaterSide(catchment: SimulationInput['catchment'], water: WaterInputs, parameters: ParameterOverrides, band: number, useClosure: boolean): Pick<EngineWaterSide, 'bandClimate' | 'precipitationScale'> {
+  const { bandClimate: all, precipitationScale } = engineWaterSide(catchment, { ...water, redistribution: null, routing: null }, parameters, useClosure);
+  if (!all) return { precipitationScale };
+  const months = (values: number[]) => values.slice(band * 12, band * 12 + 12);
+  return {
+    precipitationScale,
+    bandClimate: { temperatureOffsetK: months(all.temperatureOffsetK), glacierTemperatureOffsetK: months(all.glacierTemperatureOffsetK), precipitationMultiplier: months(all.precipitationMultiplier) },
+  };
 }

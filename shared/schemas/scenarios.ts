@@ -150,6 +150,10 @@ export const scenarioSetupSchema = z.object({
   }).nullable(),
   /** The catchment's background loads in fresh snow, which a scenario's snow loads add to. */
   background: z.object({ blackCarbonSnowNgG: z.number(), dustSnowUgG: z.number() }),
+  /** The kept water-balance closure a scenario may take its precipitation from; null when none is kept. */
+  waterBalance: z.object({
+    precipitationFactor: z.number(), ratio: z.number(), period: z.object({ from: z.string(), to: z.string() }), savedBy: z.string(), savedAt: z.string(),
+  }).nullable().default(null),
 });
 export type ScenarioSetup = z.infer<typeof scenarioSetupSchema>;
 
