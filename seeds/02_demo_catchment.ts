@@ -65,7 +65,7 @@ export async function seed(knex: Knex): Promise<void> {
       glacier_fraction: b.glacierFraction, debris_fraction: b.debrisFraction, debris_thickness_m: b.debrisThicknessM,
     })));
 
-    const seeded = trx('datasets').where('catchment_id', catchmentId).whereLike('source', SEEDED_SOURCES).select('id');
+    const seeded = trx('datasets').where('catchment_id', catchmentId).where('source', 'like', SEEDED_SOURCES).select('id');
     await trx('dataset_values').whereIn('dataset_id', seeded.clone()).delete();
     await trx('stake_readings').whereIn('dataset_id', seeded.clone()).delete();
     await trx('datasets').whereIn('id', seeded).delete();

@@ -8,7 +8,7 @@ import { GUIDE_GREY, INK, seriesColour } from './palette';
 /** 'annual' or a month 0–11. */
 export type GradientPeriod = 'annual' | number;
 
-const GRID = { left: 72, right: 24, top: 48, bottom: 56 };
+const GRID = { left: 84, right: 24, top: 48, bottom: 56 };
 
 /** The bands' mid-elevations as short ticks at the left of the plot: where the gradients are applied. */
 function bandTicks(bands: GradientsReply['bands'], x: number) {
@@ -43,7 +43,7 @@ export function lapseRateChart(g: GradientsReply, month: number): ChartSpec {
       legend: { top: 0 },
       grid: GRID,
       xAxis: { ...axis(`Mean air temperature in ${MONTH_NAMES[month]} (°C)`, 'value'), scale: true },
-      yAxis: { ...axis('Elevation (m)', 'value'), scale: true },
+      yAxis: { ...axis('Elevation (m)', 'value'), scale: true, nameGap: 56 },
       series: [
         { name: 'Stations', type: 'scatter', symbolSize: 11, itemStyle: { color: seriesColour(0) }, data: points.map((p) => ({ value: [chartNumber(p.t), p.s.elevationM], name: p.s.name })) },
         { name: `Lapse rate in force (${roundTo(lapse, 2)} °C/km, ${g.chosen.lapseRateOrigin[month]})`, type: 'line', showSymbol: false, lineStyle: { color: INK, width: 2 }, itemStyle: { color: INK }, data: line },
@@ -79,7 +79,7 @@ export function precipitationProfileChart(g: GradientsReply, period: GradientPer
       legend: { top: 0 },
       grid: GRID,
       xAxis: { ...axis(`${what} (mm)`, 'value'), min: 0 },
-      yAxis: { ...axis('Elevation (m)', 'value'), scale: true },
+      yAxis: { ...axis('Elevation (m)', 'value'), scale: true, nameGap: 56 },
       series: [
         { name: 'Stations', type: 'scatter', symbolSize: 11, itemStyle: { color: seriesColour(0) }, data: points.map((p) => ({ value: [chartNumber(p.p), p.s.elevationM], name: p.s.name })) },
         { name: `Profile (${fit.status === 'fitted' ? 'fitted' : 'assumed, not fitted'})`, type: 'line', showSymbol: false, lineStyle: { color: INK, width: 2 }, itemStyle: { color: INK }, data: curve },

@@ -41,7 +41,7 @@ export function redistributionByBand(item: ResultItem): ChartSpec {
       legend: { top: 0 },
       grid: { left: 80, right: 24, top: 40, bottom: 48 },
       xAxis: axis('Snow gained (+) or lost (−) over the period (mm w.e. over the band)', 'value'),
-      yAxis: { type: 'category', data: labels, name: 'Band', nameLocation: 'end' },
+      yAxis: { type: 'category', data: labels },
       series: [
         { name: 'Wind drift', type: 'bar', stack: 'moved', itemStyle: { color: seriesColour(0) }, data: moved.map((b) => chartNumber(b.windDrift)) },
         { name: 'Avalanching', type: 'bar', stack: 'moved', itemStyle: { color: seriesColour(1) }, data: moved.map((b) => chartNumber(b.avalanche)) },

@@ -33,9 +33,9 @@ export function precipitationByElevationChart(c: WaterBalanceClosure): ChartSpec
     option: {
       tooltip: { trigger: 'axis', axisPointer: { type: 'line', axis: 'y' } },
       legend: { top: 0 },
-      grid: { left: 72, right: 24, top: 40, bottom: 56 },
+      grid: { left: 84, right: 24, top: 40, bottom: 56 },
       xAxis: { ...axis('Precipitation over the period (mm)', 'value'), min: 0 },
-      yAxis: { ...axis('Band mid-elevation (m)', 'value'), scale: true },
+      yAxis: { ...axis('Band mid-elevation (m)', 'value'), scale: true, nameGap: 56 },
       series: [
         { name: 'Measured at the stations, extrapolated', type: 'line', data: c.bands.map((b) => [chartNumber(b.stationPrecipitationMm), b.midM]), ...lineStyle(0, true) },
         { name: 'Inferred from the water balance', type: 'line', data: c.bands.map((b) => [chartNumber(b.inferredPrecipitationMm), b.midM]), ...lineStyle(0), lineStyle: { color: seriesColour(0), width: 2.5 }, itemStyle: { color: seriesColour(0) } },

@@ -1,4 +1,5 @@
 import { HydrologyInputError, refuse } from './errors';
+import type { ElevationBand } from './stations';
 
 /**
  * The terms of a catchment water balance and the measurements it is closed against
@@ -63,12 +64,13 @@ export interface Observation {
 }
 
 /** The observations as one list, checked: each needs a number and a stated accuracy above 0. */
-export function observationList(obs: BalanceObservations, bandCount: number): Observation[] {
+export function observationList(obs: BalanceObservations, bands: readonly ElevationBand[]): Observation[] {
+  const bandCount = bands.length;
   const list: Observation[] = [{ label: 'runoff', path: 'observations.runoffMm', measured: obs.runoffMm, modelled: (m) => m.runoffMm }];
   if (obs.glacierMassBalanceMm) list.push({ label: 'glacier mass balance', path: 'observations.glacierMassBalanceMm', measured: obs.glacierMassBalanceMm, modelled: (m) => m.glacierMassBalanceMm });
   (obs.bandBalances ?? []).forEach((b, i) => {
     if (!(Number.isInteger(b.band) && b.band >= 0 && b.band < bandCount)) refuse(`observations.bandBalances[${i}].band`, `band ${b.band} does not exist (there are ${bandCount}).`);
-    list.push({ label: `glacier balance in band ${b.band + 1}`, path: `observations.bandBalances[${i}]`, measured: b, modelled: (m) => m.bandGlacierBalanceMm?.[b.band] });
+    list.push({ label: `glacier balance at ${bands[b.band].lowerM}–${bands[b.band].upperM} m`, path: `observations.bandBalances[${i}]`, measured: b, modelled: (m) => m.bandGlacierBalanceMm?.[b.band] });
   });
   const issues = list.flatMap((o) => [
     ...(Number.isFinite(o.measured.value) ? [] : [{ path: `${o.path}.value`, message: `the measured ${o.label} must be a number.` }]),

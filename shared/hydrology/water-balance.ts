@@ -156,7 +156,7 @@ function round(v: number): string {
  */
 export function invertWaterBalance(input: InversionInput): InversionResult {
   const { evaluate, station, unknowns, closureSigma = 2 } = input;
-  const observations = observationList(input.observations, input.bands.length);
+  const observations = observationList(input.observations, input.bands);
   checkUnknowns(input, observations.length);
   const bounds = unknowns.map((u) => boundsOf(u, input));
   let evaluations = 0;

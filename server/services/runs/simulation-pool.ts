@@ -6,7 +6,7 @@ import type { Simulator } from './simulator';
 /** Worker threads that run the melt engine for runs (server/workers/simulate-worker.ts); background work. */
 export class SimulationPool extends ThreadPool<MemberInput, MemberSummary> implements Simulator {
   constructor(budget: ThreadBudget) {
-    super(new URL('../../workers/simulate-worker.ts', import.meta.url), budget, 'batch');
+    super(new URL('../../workers/simulate-worker.ts', import.meta.url), budget, 'batch', true);
   }
 
   simulate(input: MemberInput, onProgress: (fraction: number) => void, signal?: AbortSignal): Promise<MemberSummary> {
