@@ -10,7 +10,7 @@ import { demoStation } from './data/demo-forcing';
 import { demoObservations } from './data/demo-observations';
 import { DEMO_CALIBRATION } from './data/demo-calibration';
 import { DEMO_CALIBRATION_SEASON } from './data/demo-calibrate';
-import { demoGlacierAreasKm2, demoStations } from './data/demo-stations';
+import { DEMO_REFERENCE_STATION, demoGlacierAreasKm2, demoStations } from './data/demo-stations';
 import { stationColumns } from '../server/services/stations/station-rows';
 import { waterSettingsSchema } from '../shared/schemas/water-settings';
 
@@ -57,6 +57,7 @@ export async function seed(knex: Knex): Promise<void> {
       await insertReferenceStation(scope, catchmentId, c.stationName, c.stationElevationM);
     }
     const referenceId: number = (await trx('stations').where({ catchment_id: catchmentId, is_reference: true }).first('id')).id;
+    await trx('stations').where('id', referenceId).update(stationColumns(DEMO_REFERENCE_STATION));
 
     await trx('elevation_bands').where({ catchment_id: catchmentId }).delete();
     await trx('elevation_bands').insert(DEMO_BANDS.map((b, position) => ({

@@ -30,6 +30,14 @@ export interface DemoStation {
 
 const GRADIENT_PER_KM = 0.5;
 
+/** The reference station's provenance (its name and elevation are the catchment's). */
+export const DEMO_REFERENCE_STATION: StationFields = {
+  name: DEMO_CATCHMENT.stationName, elevationM: DEMO_CATCHMENT.stationElevationM, network: 'Field team of the demo consultancy (invented)',
+  instrument: 'Aspirated thermistor at 2 m; heated tipping-bucket gauge', latitudeDeg: 33.93, longitudeDeg: 79.29,
+  accuracy: [{ variable: 'temperature', statement: '±0.3 °C (invented)' }, { variable: 'precipitation', statement: '±10 %, snow undercatch not corrected (invented)' }],
+  licence: 'Own measurements for this study (invented)',
+};
+
 const STATIONS: (Omit<DemoStation, 'dailyTemperature' | 'dailyPrecipitation'> & { seed: number })[] = [
   {
     fields: {
