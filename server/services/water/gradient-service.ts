@@ -15,6 +15,7 @@ import { refusingInput } from './hydrology-errors';
 import { stationClimatologies, type Climatologies } from './station-climate';
 
 const hasPrecipitation = (c: StationClimate) => c.monthlyPrecipitationMm?.some((v) => v !== null) ?? false;
+const hasTemperature = (c: StationClimate) => c.monthlyTemperatureC?.some((v) => v !== null) ?? false;
 const annual = (values: readonly (number | null)[] | undefined) => (values && values.every((v) => v !== null) ? (values as number[]).reduce((a, v) => a + v, 0) : null);
 
 /**
@@ -34,7 +35,7 @@ export class GradientService {
     const damping = settings.damping ? this.damping(climatologies, settings) : null;
     const climate = await refusingInput(() => bandClimate({ bands, referenceElevationM: zRef, lapseRatesKPerKm: chosen.lapseRatesKPerKm, profiles: chosen.profiles, ...(damping ? { glacierDamping: damping } : {}) }), 'gradients');
     const notes = [...climatologies.notes];
-    if (climates.filter((c) => c.monthlyTemperatureC?.some((v) => v !== null)).length < 2) notes.push('Only one station has air temperature: the lapse rates are assumed, not fitted. Add a station at another elevation to fit them.');
+    if (climates.filter(hasTemperature).length < 2) notes.push('Only one station has air temperature: the lapse rates are assumed, not fitted. Add a station at another elevation to fit them.');
     if (climates.filter(hasPrecipitation).length < 2) notes.push('Fewer than two stations have precipitation: the precipitation gradient is assumed, not fitted.');
     return {
       referenceElevationM: zRef,
@@ -79,7 +80,7 @@ export class GradientService {
     const chosen = await refusingInput(() => chooseMonthlyGradients(fitted, settings.overrides), 'gradients');
     return {
       lapseRatesKPerKm: chosen.lapseRatesKPerKm, profiles: chosen.profiles, damping: settings.damping ? this.damping(climatologies, settings) : null,
-      origin: { lapseRate: chosen.lapseRateOrigin, profile: chosen.profileOrigin, stationCount: climatologies.stations.length },
+      origin: { lapseRate: chosen.lapseRateOrigin, profile: chosen.profileOrigin, stationCount: climatologies.stations.filter((s) => hasTemperature(s.climate) || hasPrecipitation(s.climate)).length },
     };
   }
 
