@@ -95,14 +95,15 @@ export async function seed(knex: Knex): Promise<void> {
       const range = { first: series.times[0], last: series.times[series.times.length - 1], count: series.values.length };
       await insertDatasetValues(trx, await addDataset(variable, step, accuracy, fileName, range, station), series.times, series.values);
     };
-    for (const [i, s] of others.entries()) {
-      const station = { id: stationIds[i], source: s.source };
-      await add('temperature', 'daily', s.dailyTemperature, s.accuracy.temperature, s.files.temperature, station);
-      await add('precipitation', 'daily', s.dailyPrecipitation, s.accuracy.precipitation, s.files.precipitation, station);
-    }
     await add('temperature', 'hourly', station.hourlyTemperature, '±0.3 °C (invented)', 'kolvi-camp-temperature-hourly.csv');
     await add('precipitation', 'daily', station.dailyPrecipitation, '±10 %, undercatch of snow not corrected (invented)', 'kolvi-camp-precipitation-daily.csv');
     await add('discharge', 'daily', observations.dailyDischarge, '±15 % at high flows (invented)', 'sarvel-gauge-discharge-daily.csv');
+    // The other stations' series after the reference station's, so its series are listed first.
+    for (const [i, s] of others.entries()) {
+      const recordedAt = { id: stationIds[i], source: s.source };
+      await add('temperature', 'daily', s.dailyTemperature, s.accuracy.temperature, s.files.temperature, recordedAt);
+      await add('precipitation', 'daily', s.dailyPrecipitation, s.accuracy.precipitation, s.files.precipitation, recordedAt);
+    }
     const stakes = observations.stakes;
     const stakeRange = { first: stakes[0].from, last: stakes[stakes.length - 1].to, count: stakes.length };
     await insertStakeReadings(trx, await addDataset('pointBalance', 'daily', '±0.2 m w.e. (invented)', 'sarvel-stakes.csv', stakeRange), stakes);
