@@ -10,6 +10,9 @@ export DB_NAME=tarnish_test
 export DB_USER=tarnish
 export DB_PASSWORD=tarnish-test-only
 export NODE_ENV=test
+# Geodata files of the test database, emptied with it.
+export GEODATA_DIR=.local/geodata-test
+rm -rf "$GEODATA_DIR"
 
 ensure_node_modules
 ensure_mariadb_installed

@@ -1,5 +1,7 @@
 import type { Knex } from 'knex';
 import { variableSpec, type Variable } from '../shared/schemas/dataset-variables';
+import { BandService } from '../server/services/catchments/band-service';
+import { insertBandTable } from '../server/services/catchments/band-tables';
 import { insertBaseline } from '../server/services/catchments/baseline-scenario';
 import { insertReferenceStation, syncReferenceStation } from '../server/services/stations/reference-station';
 import { insertDatasetValues, insertStakeReadings } from '../server/services/catchments/dataset-values';
@@ -59,12 +61,9 @@ export async function seed(knex: Knex): Promise<void> {
     const referenceId: number = (await trx('stations').where({ catchment_id: catchmentId, is_reference: true }).first('id')).id;
     await trx('stations').where('id', referenceId).update(stationColumns(DEMO_REFERENCE_STATION));
 
-    await trx('elevation_bands').where({ catchment_id: catchmentId }).delete();
-    await trx('elevation_bands').insert(DEMO_BANDS.map((b, position) => ({
-      organisation_id: organisationId, catchment_id: catchmentId, position,
-      lower_m: b.lowerM, upper_m: b.upperM, area_km2: b.areaKm2, slope_deg: b.slopeDeg, aspect_deg: b.aspectDeg,
-      glacier_fraction: b.glacierFraction, debris_fraction: b.debrisFraction, debris_thickness_m: b.debrisThicknessM,
-    })));
+    // A re-run keeps the table in use when it is the demo table (runs point to it), else saves the demo table as a new version.
+    const inUse = await new BandService().list(scope, catchmentId);
+    if (JSON.stringify(inUse) !== JSON.stringify(DEMO_BANDS)) await insertBandTable(scope, catchmentId, DEMO_BANDS, { userId: user?.id ?? null });
 
     const seeded = trx('datasets').where('catchment_id', catchmentId).where('source', 'like', SEEDED_SOURCES).select('id');
     await trx('dataset_values').whereIn('dataset_id', seeded.clone()).delete();

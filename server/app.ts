@@ -5,6 +5,7 @@ import { existsSync } from 'node:fs';
 import path from 'node:path';
 import type { AppContext } from './context';
 import { errorHandler } from './middleware/error-handler';
+import { requestLog } from './middleware/request-log';
 import { apiRouter } from './routes';
 
 export interface AppOptions {
@@ -17,6 +18,7 @@ export function createApp(ctx: AppContext, options: AppOptions = {}): Express {
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
+  app.use(requestLog(ctx.logger));
   app.use(
     helmet({
       contentSecurityPolicy: {
@@ -31,7 +33,7 @@ export function createApp(ctx: AppContext, options: AppOptions = {}): Express {
           connectSrc: ["'self'"],
           workerSrc: ["'self'", 'blob:'],
           objectSrc: ["'none'"],
-          baseUri: ["'self'"],
+          baseUri: ["'none'"],
           formAction: ["'self'"],
           frameAncestors: ["'none'"],
         },

@@ -1,4 +1,6 @@
+import path from 'node:path';
 import { z } from 'zod';
+import type { LogSettings } from './logger';
 import { defaultThreadCount } from './services/thread-budget';
 
 /**
@@ -18,10 +20,17 @@ const envSchema = z.object({
   DB_POOL_MAX: z.coerce.number().int().min(1).max(100).default(10),
   JWT_SECRET: z.string().min(32).default('local-only-secret-change-me-in-production-0123456789'),
   SESSION_HOURS: z.coerce.number().positive().max(24 * 30).default(12),
-  COOKIE_SECURE: z.enum(['true', 'false']).default('false').transform((v) => v === 'true'),
+  /** Secure session cookie with the __Host- prefix; on by default in production, where it cannot be turned off. */
+  COOKIE_SECURE: z.enum(['true', 'false']).optional(),
   SIGNIN_MAX_FAILURES_PER_ACCOUNT: z.coerce.number().int().positive().default(5),
   SIGNIN_MAX_FAILURES_PER_IP: z.coerce.number().int().positive().default(30),
   SIGNIN_WINDOW_MINUTES: z.coerce.number().positive().default(15),
+  /** After SIGNIN_MAX_FAILURES_PER_ACCOUNT failures, each attempt waits a doubling delay from this, up to the maximum. */
+  SIGNIN_BACKOFF_BASE_MS: z.coerce.number().int().positive().default(1000),
+  SIGNIN_BACKOFF_MAX_SECONDS: z.coerce.number().positive().default(30),
+  /** Sign-up requests per client address and per e-mail address in an hour; more answer 429. */
+  SIGNUPS_PER_IP_PER_HOUR: z.coerce.number().int().positive().default(10),
+  SIGNUPS_PER_ADDRESS_PER_HOUR: z.coerce.number().int().positive().default(3),
   // The payment service, reached only through its SDK; locally the fake in stripe-fake/.
   STRIPE_API_HOST: z.string().min(1).default('127.0.0.1'),
   STRIPE_API_PORT: z.coerce.number().int().min(1).max(65535).default(12111),
@@ -45,6 +54,15 @@ const envSchema = z.object({
   WORKER_THREADS: z.coerce.number().int().min(0).max(64).default(0),
   /** Runs simulated at the same time; their simulations share the worker threads. */
   RUN_CONCURRENCY: z.coerce.number().int().min(1).max(16).default(2),
+  /** Folder for uploaded geodata files and the maps drawn from them (one subfolder per organisation). */
+  GEODATA_DIR: z.string().min(1).default('.local/geodata'),
+  /** Uploads (file reads and stores) one organisation may have in progress at once; more answer 429. */
+  UPLOADS_PER_ORGANISATION: z.coerce.number().int().min(1).max(50).default(2),
+  /** How long a shutdown waits for requests being answered before it cuts them. */
+  SHUTDOWN_GRACE_SECONDS: z.coerce.number().positive().max(120).default(5),
+  /** The structured log (JSON lines): its level, and a file to append to instead of standard output. */
+  LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'silent']).optional(),
+  LOG_FILE: z.string().min(1).optional(),
 });
 
 export type Env = z.infer<typeof envSchema>;
@@ -59,7 +77,8 @@ export interface AppConfig {
     jwtSecret: string;
     sessionHours: number;
     cookieSecure: boolean;
-    signInLimits: { perAccount: number; perIp: number; windowMs: number };
+    signInLimits: { perAccount: number; perIp: number; windowMs: number; backoffBaseMs: number; backoffMaxMs: number };
+    signUpLimits: { perIpPerHour: number; perAddressPerHour: number };
   };
   billing: {
     host: string;
@@ -81,6 +100,10 @@ export interface AppConfig {
   /** Worker threads all pools share (see server/services/thread-budget.ts). */
   workerThreads: number;
   runs: { concurrency: number };
+  geodata: { dir: string };
+  uploads: { perOrganisation: number };
+  shutdownGraceMs: number;
+  log: LogSettings;
 }
 
 /** Parses an environment map into the typed config; throws one readable message listing every bad variable. */
@@ -97,6 +120,15 @@ export function parseConfig(env: Record<string, string | undefined>): AppConfig 
   if (e.NODE_ENV === 'production' && (e.STRIPE_SECRET_KEY.includes('local') || e.STRIPE_WEBHOOK_SECRET.includes('local'))) {
     throw new Error('Invalid server configuration:\n  STRIPE_SECRET_KEY, STRIPE_WEBHOOK_SECRET: must be set in production');
   }
+  const cookieSecure = e.COOKIE_SECURE === undefined ? e.NODE_ENV === 'production' : e.COOKIE_SECURE === 'true';
+  if (e.NODE_ENV === 'production') {
+    // A Secure, __Host- cookie only travels over HTTPS: production must be reached through TLS.
+    const problems = [
+      ...(cookieSecure ? [] : ['  COOKIE_SECURE: must not be false in production (the session cookie must be Secure)']),
+      ...(e.PUBLIC_URL?.startsWith('https://') ? [] : ['  PUBLIC_URL: must be the https:// address users reach in production (TLS in front of the app)']),
+    ];
+    if (problems.length > 0) throw new Error(`Invalid server configuration:\n${problems.join('\n')}`);
+  }
   return {
     env: e.NODE_ENV,
     host: e.HOST,
@@ -106,12 +138,15 @@ export function parseConfig(env: Record<string, string | undefined>): AppConfig 
     auth: {
       jwtSecret: e.JWT_SECRET,
       sessionHours: e.SESSION_HOURS,
-      cookieSecure: e.COOKIE_SECURE,
+      cookieSecure,
       signInLimits: {
         perAccount: e.SIGNIN_MAX_FAILURES_PER_ACCOUNT,
         perIp: e.SIGNIN_MAX_FAILURES_PER_IP,
         windowMs: e.SIGNIN_WINDOW_MINUTES * 60_000,
+        backoffBaseMs: e.SIGNIN_BACKOFF_BASE_MS,
+        backoffMaxMs: e.SIGNIN_BACKOFF_MAX_SECONDS * 1000,
       },
+      signUpLimits: { perIpPerHour: e.SIGNUPS_PER_IP_PER_HOUR, perAddressPerHour: e.SIGNUPS_PER_ADDRESS_PER_HOUR },
     },
     billing: {
       host: e.STRIPE_API_HOST,
@@ -131,6 +166,11 @@ export function parseConfig(env: Record<string, string | undefined>): AppConfig 
     },
     workerThreads: e.WORKER_THREADS || defaultThreadCount(),
     runs: { concurrency: e.RUN_CONCURRENCY },
+    geodata: { dir: path.resolve(e.GEODATA_DIR) },
+    uploads: { perOrganisation: e.UPLOADS_PER_ORGANISATION },
+    shutdownGraceMs: e.SHUTDOWN_GRACE_SECONDS * 1000,
+    // Tests log only errors unless asked (the API suite captures every request in a file: tests/setup/api-log.ts).
+    log: { level: e.LOG_LEVEL ?? (e.NODE_ENV === 'test' ? 'error' : 'info'), file: e.LOG_FILE, sync: e.NODE_ENV === 'test' },
   };
 }
 

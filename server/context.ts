@@ -1,10 +1,12 @@
 import type { Knex } from 'knex';
 import type { AppConfig } from './config';
+import { createLogger, type Logger } from './logger';
 import { createAuthServices, type AuthServices } from './services/auth';
 import { createBillingServices, type BillingServices } from './services/billing';
 import { createBriefingServices, type BriefingServices } from './services/briefings';
 import type { BriefingResultsSource } from './services/briefings/comparison';
 import { createCatchmentServices, type CatchmentServices } from './services/catchments';
+import { createGeodataServices, type GeodataServices } from './services/geodata';
 import { createLabServices, type LabServices } from './services/lab';
 import { createMailServices, type MailServices } from './services/mail';
 import type { MailInbox } from './services/mail/mail-catcher';
@@ -18,15 +20,21 @@ import { ThreadBudget } from './services/thread-budget';
 
 /** Everything the routes need, built once per app by `createContext` (tests and seeds build their own). */
 export interface AppContext
-  extends AuthServices, MailServices, BillingServices, MemberServices, CatchmentServices, StationServices, WaterServices, LabServices, RunServices, BriefingServices {
+  extends AuthServices, MailServices, BillingServices, MemberServices, CatchmentServices, GeodataServices, StationServices, WaterServices, LabServices, RunServices, BriefingServices {
   config: AppConfig;
   db: Knex;
+  /** The structured log; requests, errors and background failures, never values (server/logger.ts). */
+  logger: Logger;
   /** The worker threads the run, lab and PDF pools share (`config.workerThreads`). */
   threads: ThreadBudget;
   /** Marks work an earlier process left unfinished as failed and starts a thread per pool (server start). */
   start(): Promise<void>;
-  /** Waits for runs and lab jobs under way, then stops the worker threads and the mail transport. The database stays open. */
-  close(): Promise<void>;
+  /**
+   * Waits for runs and lab jobs under way (at most `graceMs`, after which those left end failed with
+   * the restart message; without it, until they end), then stops the worker threads and the mail
+   * transport. The database stays open.
+   */
+  close(graceMs?: number): Promise<void>;
 }
 
 export interface ContextOptions {
@@ -40,15 +48,19 @@ export interface ContextOptions {
   briefingResults?: BriefingResultsSource;
   /** The local mail catcher, when one runs beside the app (development and tests). */
   inbox?: MailInbox;
+  /** The structured log; made from `config.log` unless given (the server shares it with the database pool). */
+  logger?: Logger;
 }
 
 /** The composition root: every service built here, from the config, the database and the options. */
 export function createContext(config: AppConfig, db: Knex, options: ContextOptions = {}): AppContext {
   const threads = new ThreadBudget(config.workerThreads);
+  const logger = options.logger ?? createLogger(config.log);
   const authServices = createAuthServices({ config, db, bcryptCost: options.bcryptCost });
   const mailServices = createMailServices({ config, db, inbox: options.inbox });
-  const memberServices = createMemberServices({ config, db, auth: authServices.auth, mail: mailServices.mail });
-  const catchmentServices = createCatchmentServices();
+  const memberServices = createMemberServices({ config, db, logger, auth: authServices.auth, mail: mailServices.mail });
+  const catchmentServices = createCatchmentServices({ threads, uploadsPerOrganisation: config.uploads.perOrganisation });
+  const geodataServices = createGeodataServices({ config, bands: catchmentServices.bands, threads });
   const waterServices = createWaterServices({ bands: catchmentServices.bands });
   const labServices = createLabServices({ db, bands: catchmentServices.bands, threads, water: waterServices });
   const runServices = createRunServices({
@@ -58,16 +70,18 @@ export function createContext(config: AppConfig, db: Knex, options: ContextOptio
   const briefingServices = createBriefingServices({
     results: runServices.results, invitations: memberServices.invitations, threads, briefingResults: options.briefingResults,
   });
-  const pools = [runServices.simulationPool, labServices.lab.pool, briefingServices.pdfPool];
+  const pools = [runServices.simulationPool, labServices.lab.pool, briefingServices.pdfPool, catchmentServices.uploads.pool];
   return {
     config,
     db,
+    logger,
     threads,
     ...authServices,
     ...mailServices,
-    ...createBillingServices({ config, db }),
+    ...createBillingServices({ config, db, logger }),
     ...memberServices,
     ...catchmentServices,
+    ...geodataServices,
     ...createStationServices(catchmentServices),
     ...waterServices,
     ...labServices,
@@ -79,10 +93,16 @@ export function createContext(config: AppConfig, db: Knex, options: ContextOptio
       await labServices.lab.jobs.recover();
       for (const pool of pools) pool.warm();
     },
-    async close() {
-      await runServices.runExecutor.idle();
-      await labServices.lab.jobs.idle();
-      await Promise.all(pools.map((pool) => pool.close()));
+    async close(graceMs?: number) {
+      if (graceMs === undefined) {
+        await runServices.runExecutor.idle();
+        await labServices.lab.jobs.idle();
+      } else {
+        // One deadline for both: they wait side by side.
+        await Promise.all([runServices.runExecutor.stop(graceMs), labServices.lab.jobs.stop(graceMs)]);
+      }
+      // The geodata pool is not warmed: its threads start with the first upload.
+      await Promise.all([...pools, geodataServices.geodata.pool].map((pool) => pool.close()));
       mailServices.mail.close();
     },
   };

@@ -6,6 +6,8 @@ export class AppError extends Error {
     message: string,
     readonly field?: string,
     readonly details?: unknown,
+    /** Seconds after which the same request may be sent again (`Retry-After`). */
+    readonly retryAfterSeconds?: number,
   ) {
     super(message);
     this.name = 'AppError';
@@ -22,3 +24,5 @@ export const notFound = (what = 'Resource') => new AppError(404, 'not_found', `$
 export const conflict = (message: string, field?: string) => new AppError(409, 'conflict', message, field);
 export const paymentRequired = (message: string) => new AppError(402, 'subscription_required', message);
 export const upstreamUnavailable = (message: string) => new AppError(503, 'upstream_unavailable', message);
+export const tooManyRequests = (code: string, message: string, retryAfterSeconds: number) =>
+  new AppError(429, code, message, undefined, undefined, retryAfterSeconds);

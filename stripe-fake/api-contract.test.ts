@@ -100,10 +100,10 @@ describe('errors in the service shape', () => {
   });
 
   it('answers an unknown API path with 404 in the error shape', async () => {
-    const response = await fetch(`${harness.fake.url}/v1/refunds`, { headers: { Authorization: 'Bearer sk_test_x' } });
+    const response = await fetch(`${harness.fake.url}/v1/payouts`, { headers: { Authorization: 'Bearer sk_test_x' } });
     expect(response.status).toBe(404);
     expect(await response.json()).toEqual({
-      error: { type: 'invalid_request_error', message: 'Unrecognized request URL (GET: /v1/refunds).' },
+      error: { type: 'invalid_request_error', message: 'Unrecognized request URL (GET: /v1/payouts).' },
     });
   });
 });

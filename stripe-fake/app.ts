@@ -15,6 +15,7 @@ import { customerRoutes } from './routes/customers';
 import { eventRoutes } from './routes/events';
 import { hostedRoutes } from './routes/hosted';
 import { invoiceRoutes } from './routes/invoices';
+import { refundRoutes } from './routes/refunds';
 import { subscriptionRoutes } from './routes/subscriptions';
 import { createState, type FakeStripeState } from './store';
 import { createWebhookSender } from './webhooks/sender';
@@ -86,7 +87,7 @@ export function createFakeStripeApp(options: FakeStripeOptions = {}): FakeStripe
   });
   api.use(idempotency(context.state.idempotency));
   api.use(customerRoutes(context), catalogRoutes(context), checkoutSessionRoutes(context));
-  api.use(subscriptionRoutes(context), invoiceRoutes(context), eventRoutes(context));
+  api.use(subscriptionRoutes(context), invoiceRoutes(context), refundRoutes(context), eventRoutes(context));
   api.use(unknownRoute);
   app.use('/v1', api);
   app.use(errorHandler);

@@ -11,7 +11,7 @@ function randomText(length: number): string {
 }
 
 export type IdPrefix =
-  | 'cus' | 'prod' | 'price' | 'cs_test' | 'sub' | 'si' | 'in' | 'il' | 'evt' | 'req' | 'pm' | 'whdel';
+  | 'cus' | 'prod' | 'price' | 'cs_test' | 'sub' | 'si' | 'in' | 'il' | 'evt' | 'req' | 'pm' | 'whdel' | 'inpay' | 'pi' | 're';
 
 export function newId(prefix: IdPrefix): string {
   return `${prefix}_${randomText(prefix === 'cs_test' ? 58 : 24)}`;

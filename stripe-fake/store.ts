@@ -1,6 +1,6 @@
 import { noSuch } from './errors';
 import type {
-  CheckoutSession, Customer, Invoice, InvoiceLine, Price, Product, SessionOrder, StripeEvent, Subscription,
+  CheckoutSession, Customer, Invoice, InvoiceLine, InvoicePayment, Price, Product, Refund, SessionOrder, StripeEvent, Subscription,
 } from './types';
 
 /** Objects of one kind, kept in creation order. */
@@ -63,6 +63,9 @@ export interface FakeStripeState {
   /** Customers whose next charge fails; `*` fails the next charge of anyone. */
   failNextCharge: Set<string>;
   idempotency: Map<string, StoredResponse>;
+  /** One payment per paid invoice that took money. */
+  invoicePayments: Collection<InvoicePayment>;
+  refunds: Collection<Refund>;
 }
 
 export function createState(): FakeStripeState {
@@ -78,6 +81,8 @@ export function createState(): FakeStripeState {
     savedCards: new Map(),
     pendingProrations: new Map(),
     failNextCharge: new Set(),
+    invoicePayments: new Collection('invoice_payment'),
+    refunds: new Collection('refund'),
     idempotency: new Map(),
   };
 }

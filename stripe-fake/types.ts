@@ -211,3 +211,30 @@ export interface StripeEvent {
   request: { id: string | null; idempotency_key: string | null };
   type: EventType;
 }
+
+/** How an invoice was paid (`invoicePayments.list({ invoice })`): the payment intent a refund names. */
+export interface InvoicePayment {
+  id: string;
+  object: 'invoice_payment';
+  amount_paid: number;
+  amount_requested: number;
+  created: number;
+  currency: string;
+  invoice: string;
+  is_default: true;
+  livemode: false;
+  payment: { type: 'payment_intent'; payment_intent: string };
+  status: 'paid';
+}
+
+export interface Refund {
+  id: string;
+  object: 'refund';
+  amount: number;
+  created: number;
+  currency: string;
+  metadata: Metadata;
+  payment_intent: string;
+  reason: 'duplicate' | 'fraudulent' | 'requested_by_customer' | null;
+  status: 'succeeded';
+}

@@ -14,11 +14,10 @@
  * is never reused.
  */
 import bcrypt from 'bcryptjs';
-import { spawn } from 'node:child_process';
-import { createInterface } from 'node:readline';
 import { availableParallelism, loadavg } from 'node:os';
 import { loadConfig } from '../../server/config';
 import { createDb } from '../../server/db';
+import { insertBandTable } from '../../server/services/catchments/band-tables';
 import { insertBaseline } from '../../server/services/catchments/baseline-scenario';
 import { insertReferenceStation } from '../../server/services/stations/reference-station';
 import { insertDatasetValues } from '../../server/services/catchments/dataset-values';
@@ -26,6 +25,7 @@ import { TenantScope } from '../../server/services/tenant-scope';
 import { DEMO_BANDS, DEMO_CATCHMENT } from '../../seeds/data/demo-catchment';
 import { demoStation } from '../../seeds/data/demo-forcing';
 import { demoGlacierAreasKm2 } from '../../seeds/data/demo-stations';
+import { startApiProcess } from './api-process';
 import type { Run } from '../../shared/schemas/runs';
 
 const SEASON = { from: '2024-04-01', to: '2024-09-30' };
@@ -52,10 +52,7 @@ async function setUp(): Promise<number> {
   });
   await insertBaseline(new TenantScope(db, organisationId), catchmentId, null);
   const stationId = await insertReferenceStation(new TenantScope(db, organisationId), catchmentId, c.stationName, c.stationElevationM);
-  await db('elevation_bands').insert(DEMO_BANDS.map((b, position) => ({
-    organisation_id: organisationId, catchment_id: catchmentId, position, lower_m: b.lowerM, upper_m: b.upperM, area_km2: b.areaKm2,
-    slope_deg: b.slopeDeg, aspect_deg: b.aspectDeg, glacier_fraction: b.glacierFraction, debris_fraction: b.debrisFraction, debris_thickness_m: b.debrisThicknessM,
-  })));
+  await insertBandTable(new TenantScope(db, organisationId), catchmentId, DEMO_BANDS);
   const station = demoStation();
   const add = async (variable: string, kind: string, unit: string, step: string, series: { times: string[]; values: number[] }) => {
     const [datasetId] = await db('datasets').insert({
@@ -68,18 +65,6 @@ async function setUp(): Promise<number> {
   await add('temperature', 'climate', '°C', 'hourly', station.hourlyTemperature);
   await add('precipitation', 'climate', 'mm', 'daily', station.dailyPrecipitation);
   return catchmentId;
-}
-
-/** Starts scripts/bench/runs-server.ts and reads the lines it prints. */
-async function startApiProcess() {
-  const child = spawn(process.execPath, ['--import', 'tsx', ...(process.env.BENCH_PROFILE_DIR ? ['--cpu-prof', `--cpu-prof-dir=${process.env.BENCH_PROFILE_DIR}`] : []), 'scripts/bench/runs-server.ts'], { stdio: ['ignore', 'pipe', 'inherit'], env: process.env });
-  const lines = createInterface({ input: child.stdout });
-  const next = () => new Promise<Record<string, number>>((resolve, reject) => {
-    lines.once('line', (line) => resolve(JSON.parse(line)));
-    child.once('exit', (code) => reject(new Error(`the API process exited (${code})`)));
-  });
-  const { port, threads } = await next();
-  return { port, threads, stop: async () => { const report = next(); child.kill('SIGTERM'); return report; } };
 }
 
 async function main(): Promise<void> {

@@ -9,7 +9,7 @@ const ALLOWED_TYPES = new Set(['text/csv', 'text/plain', 'application/csv', 'app
 /**
  * One CSV file in the multipart field `file`, held in memory (so no temporary files are left
  * behind) up to MAX_UPLOAD_BYTES. Refusals: too large → 413, not .csv/.txt or a non-text type → 415,
- * no file → 400. The content itself is checked for binary data when it is read.
+ * a malformed multipart body or no file → 400. The content itself is checked for binary data when it is read.
  */
 export function csvUpload(): RequestHandler {
   const upload = multer({
@@ -29,7 +29,10 @@ export function csvUpload(): RequestHandler {
         if (err.code === 'LIMIT_FILE_SIZE') return next(new AppError(413, 'too_large', `The file is larger than the ${MAX_UPLOAD_LABEL} limit; nothing was stored.`, 'file'));
         return next(badRequest(`The upload could not be read (${err.message}).`, 'file'));
       }
-      if (err) return next(err);
+      if (err instanceof AppError) return next(err);
+      // Anything else is the multipart body itself (a truncated part, no closing boundary, a bad
+      // or oversized part header, the wrong boundary): the request is malformed, not our failure.
+      if (err) return next(badRequest('The upload could not be read: the request is not a complete multipart form. Choose the file again and retry.', 'file'));
       if (!req.file) return next(badRequest('Choose a CSV file to upload.', 'file'));
       next();
     });

@@ -1,13 +1,15 @@
 import type { CookieOptions, Response } from 'express';
-import { signInSchema, signUpSchema } from '../../shared/schemas/auth';
+import { passwordChangeSchema, signInSchema, SIGN_UP_REPLY, signUpSchema } from '../../shared/schemas/auth';
+import { signUpConfirmSchema } from '../../shared/schemas/members';
 import type { AppContext } from '../context';
-import { SESSION_COOKIE } from '../middleware/require-auth';
-import { signInLimits } from '../middleware/sign-in-limits';
+import { authOf, sessionCookieName } from '../middleware/require-auth';
+import { WRONG_PASSWORD_STATUS } from '../services/auth/auth-service';
+import { signInLimits, signUpLimits } from '../middleware/sign-in-limits';
 import type { UserRow } from '../services/auth/auth-service';
 import { signSessionToken } from '../services/auth/session-tokens';
 import { memberArea, publicArea, type ApiArea } from './route-table';
 
-/** /api/auth/* and /api/me: sign-up and sign-in (public), sign-out and the current user. */
+/** /api/auth/* and /api/me: sign-up and sign-in (public), sign-out, password change and the current user. */
 export function authRoutes(ctx: AppContext): ApiArea[] {
   const { auth, config } = ctx;
 
@@ -19,24 +21,29 @@ export function authRoutes(ctx: AppContext): ApiArea[] {
     maxAge: config.auth.sessionHours * 3600_000,
   });
 
+  const cookie = sessionCookieName(config.auth.cookieSecure);
   const startSession = async (res: Response, user: UserRow) => {
     const token = signSessionToken(
       { userId: user.id, organisationId: user.organisation_id, tokenVersion: user.token_version },
       config.auth.jwtSecret,
       config.auth.sessionHours,
     );
-    res.cookie(SESSION_COOKIE, token, cookieOptions());
+    res.cookie(cookie, token, cookieOptions());
     res.json(await auth.me(user));
   };
 
   const signing = publicArea('/auth', (route) => {
-    route.post('/sign-up', { body: signUpSchema }, async ({ body }, res) => {
-      const user = await auth.signUp(body);
-      res.status(201);
-      await startSession(res, user);
+    // One answer whether the address is new or taken; its owner learns which by mail.
+    route.post('/sign-up', { before: signUpLimits(config.auth.signUpLimits), body: signUpSchema }, async ({ body }, res) => {
+      await ctx.signUps.request(body);
+      res.status(202).json({ message: SIGN_UP_REPLY });
     });
 
-    route.post('/sign-in', { before: signInLimits(config.auth.signInLimits), body: signInSchema }, async ({ body }, res) => {
+    route.post('/sign-up/confirm', { body: signUpConfirmSchema }, async ({ body }, res) => {
+      await startSession(res, await ctx.signUps.confirm(body.token));
+    });
+
+    route.post('/sign-in', { before: signInLimits(config.auth.signInLimits, ctx.signInBackoff), body: signInSchema }, async ({ body }, res) => {
       await startSession(res, await auth.signIn(body));
     });
   });
@@ -45,8 +52,13 @@ export function authRoutes(ctx: AppContext): ApiArea[] {
     route.post('/sign-out', 'signedIn', {}, async ({ auth: { user } }, res) => {
       await auth.signOut(user.id);
       const { maxAge: _unused, ...clear } = cookieOptions();
-      res.clearCookie(SESSION_COOKIE, clear);
+      res.clearCookie(cookie, clear);
       res.status(204).end();
+    });
+
+    // Every other session of the user ends; this one goes on with a new cookie.
+    route.post('/password', 'signedIn', { before: [ctx.signInBackoff.guard((req) => `account:${authOf(req).user.email}`, WRONG_PASSWORD_STATUS)], body: passwordChangeSchema }, async ({ auth: { user }, body }, res) => {
+      await startSession(res, await auth.changePassword(user, body));
     });
   });
 

@@ -20,15 +20,19 @@ export function catchmentBandRoutes(ctx: AppContext): ApiArea {
       res.json({ bands: await ctx.bands.list(scope, params.catchmentId) });
     });
 
-    route.put('/bands', 'editCatchments', { params, body: bandTableRequestSchema, refuse }, async ({ auth: { scope }, params, body }, res) => {
-      res.json({ bands: await ctx.bands.replace(scope, params.catchmentId, body.bands) });
+    route.put('/bands', 'editCatchments', { params, body: bandTableRequestSchema, refuse }, async ({ auth: { scope, user }, params, body }, res) => {
+      res.json({ bands: await ctx.bands.replace(scope, params.catchmentId, body.bands, { source: 'entered' }, user.id) });
+    });
+
+    route.get('/bands/versions', 'readCatchments', { params }, async ({ auth: { scope }, params }, res) => {
+      res.json({ versions: await ctx.bands.versions(scope, params.catchmentId) });
     });
 
     route.get('/bands.csv', 'readCatchments', { params }, async ({ auth: { scope }, params }, res) => {
       sendDownload(res, await ctx.bands.csvFile(scope, params.catchmentId));
     });
 
-    route.post('/bands/file', 'editCatchments', { params, before: [requireCatchment(ctx), csvUpload()] }, ({ req }, res) => {
+    route.post('/bands/file', 'editCatchments', { params, before: [requireCatchment(ctx), ctx.uploadSlots.hold(), csvUpload()] }, ({ req }, res) => {
       res.json(ctx.bands.readFile(req.file!));
     });
   });

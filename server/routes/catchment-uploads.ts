@@ -13,7 +13,7 @@ export function catchmentUploadRoutes(ctx: AppContext): ApiArea {
   const { uploads } = ctx;
   return memberArea('/catchments/:catchmentId/uploads', (route) => {
     // The catchment is checked before the file is read, so foreign ids never get as far as parsing.
-    route.post('/', 'editCatchments', { params: catchmentParams, before: [requireCatchment(ctx), csvUpload()], body: datasetUploadFieldsSchema },
+    route.post('/', 'editCatchments', { params: catchmentParams, before: [requireCatchment(ctx), ctx.uploadSlots.hold(), csvUpload()], body: datasetUploadFieldsSchema },
       async ({ auth: { scope, user }, params, body, req }, res) => {
         res.status(201).json(await uploads.preview(scope, params.catchmentId, req.file!, body, user));
       });

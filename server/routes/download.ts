@@ -9,6 +9,6 @@ import type { DownloadFile } from '../services/download-file';
 export function sendDownload(res: Response, file: DownloadFile): void {
   res.setHeader('Content-Type', file.contentType);
   res.setHeader('Content-Disposition', `attachment; filename="${file.fileName.replace(/["\\\r\n]/g, '_')}"`);
-  res.setHeader('Cache-Control', 'private, no-store');
+  res.setHeader('Cache-Control', 'no-store');
   res.send(file.contentType.startsWith('text/csv') && typeof file.body === 'string' ? withByteOrderMark(file.body) : file.body);
 }

@@ -1,12 +1,15 @@
 import express, { Router } from 'express';
 import type { AppContext } from '../context';
 import { apiNotFound } from '../middleware/error-handler';
+import { idempotencyKeys } from '../middleware/idempotency-keys';
 import { requireAuth } from '../middleware/require-auth';
+import { sameOriginWrites } from '../middleware/same-origin-writes';
 import { authRoutes } from './auth';
 import { billingRoutes, billingWebhookRoutes } from './billing';
 import { briefingRoutes } from './briefings';
 import { catchmentBandRoutes } from './catchment-bands';
 import { catchmentDatasetRoutes } from './catchment-datasets';
+import { catchmentGeodataRoutes } from './catchment-geodata';
 import { catchmentUploadRoutes } from './catchment-uploads';
 import { catchmentRoutes } from './catchments';
 import { catchmentStationRoutes } from './catchment-stations';
@@ -36,6 +39,7 @@ export function apiAreas(ctx: AppContext): ApiArea[] {
     catchmentBandRoutes(ctx),
     catchmentDatasetRoutes(ctx),
     catchmentUploadRoutes(ctx),
+    catchmentGeodataRoutes(ctx),
     catchmentStationRoutes(ctx),
     catchmentWaterRoutes(ctx),
     scenarioRoutes(ctx),
@@ -46,13 +50,19 @@ export function apiAreas(ctx: AppContext): ApiArea[] {
 }
 
 /**
- * The /api router: raw-body areas, the JSON parser, public areas, then the one sign-in check
- * (the session is verified and the user loaded once per request), then every member area,
+ * The /api router: nothing cached, writes from other sites refused, raw-body areas, the JSON parser, public areas, then the one sign-in check
+ * (the session is verified and the user loaded once per request), idempotency keys on writes, then every member area,
  * each mounted once at its own prefix. Unknown paths answer 404 (401 when signed out).
  */
 export function apiRouter(ctx: AppContext): Router {
   const areas = apiAreas(ctx);
   const router = Router();
+  // Answers hold tenant data or session state: never kept by a browser or a shared cache.
+  router.use((_req, res, next) => {
+    res.setHeader('Cache-Control', 'no-store');
+    next();
+  });
+  router.use(sameOriginWrites(ctx.config.publicUrl));
   const mount = (list: ApiArea[]) => {
     for (const area of list) router.use(area.prefix, areaRouter(area));
   };
@@ -60,6 +70,7 @@ export function apiRouter(ctx: AppContext): Router {
   router.use(express.json({ limit: '1mb' }));
   mount(areas.filter((a) => a.isPublic && !a.rawBody));
   router.use(requireAuth(ctx));
+  router.use(idempotencyKeys(ctx.db, ctx.logger));
   mount(areas.filter((a) => !a.isPublic));
   router.use(apiNotFound);
   return router;

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { acceptInvitationSchema, invitationPreviewQuerySchema, invitationRequestSchema } from '../../shared/schemas/members';
+import { acceptInvitationSchema, invitationPreviewRequestSchema, invitationRequestSchema } from '../../shared/schemas/members';
 import type { AppContext } from '../context';
 import { messageOnly } from '../middleware/validate';
 import { idOf, memberArea, publicArea, type ApiArea } from './route-table';
@@ -10,8 +10,9 @@ export function invitationRoutes(ctx: AppContext): ApiArea[] {
 
   // Public: the token itself is the credential.
   const links = publicArea('/invitations', (route) => {
-    route.get('/preview', { query: invitationPreviewQuerySchema, refuse: messageOnly }, async ({ query }, res) => {
-      res.json(await invitations.preview(query.token));
+    // The token travels in the body, never in a URL that logs, proxies and browser history keep.
+    route.post('/preview', { body: invitationPreviewRequestSchema, refuse: messageOnly }, async ({ body }, res) => {
+      res.json(await invitations.preview(body.token));
     });
 
     route.post('/accept', { body: acceptInvitationSchema }, async ({ body }, res) => {
@@ -21,8 +22,10 @@ export function invitationRoutes(ctx: AppContext): ApiArea[] {
   });
 
   const inviting = memberArea('/invitations', (route) => {
+    // The same answer whether the address was invited or belongs to another organisation (whose owner is told by mail).
     route.post('/', 'manageMembers', { body: invitationRequestSchema }, async ({ auth: { user, scope }, body }, res) => {
-      res.status(201).json({ member: await invitations.invite(scope, user, body) });
+      await invitations.invite(scope, user, body);
+      res.status(202).json({ message: `If ${body.email} can join your team, an invitation is on its way.` });
     });
 
     route.post('/:id/resend', 'manageMembers', { params: z.object({ id: idOf('Invitation') }) }, async ({ auth: { user, scope }, params }, res) => {

@@ -3,6 +3,7 @@ import {
   bandQuerySchema, calibrateRequestSchema, saveCalibrationSchema, skillRequestSchema, stakeSkillRequestSchema, sweepRequestSchema,
 } from '../../shared/schemas/lab';
 import { saveClosureSchema, waterBalanceRequestSchema } from '../../shared/schemas/water-balance';
+import { remoteSensingSkillRequestSchema } from '../../shared/schemas/lab-remote-sensing';
 import type { AppContext } from '../context';
 import { sendDownload } from './download';
 import { requireActiveSubscription } from '../middleware/require-active-subscription';
@@ -31,6 +32,14 @@ export function labRoutes(ctx: AppContext): ApiArea {
 
     route.post('/catchments/:catchmentId/stake-skill', 'useLab', { params, body: stakeSkillRequestSchema }, async ({ auth: { scope }, params, body }, res) => {
       res.json(await lab.stakeSkill(scope, params.catchmentId, body));
+    });
+
+    route.post('/catchments/:catchmentId/snow-cover-skill', 'useLab', { params, body: remoteSensingSkillRequestSchema }, async ({ auth: { scope }, params, body }, res) => {
+      res.json(await lab.remoteSensing.snowCoverSkill(scope, params.catchmentId, body));
+    });
+
+    route.post('/catchments/:catchmentId/geodetic-skill', 'useLab', { params, body: remoteSensingSkillRequestSchema }, async ({ auth: { scope }, params, body }, res) => {
+      res.json(await lab.remoteSensing.geodeticSkill(scope, params.catchmentId, body));
     });
 
     route.get('/catchments/:catchmentId/calibration', 'useLab', { params }, async ({ auth: { scope }, params }, res) => {

@@ -2,6 +2,7 @@ import { Router, type Request, type RequestHandler, type Response } from 'expres
 import { z } from 'zod';
 import type { Access } from '../../shared/access/capabilities';
 import { authOf, type AuthContext } from '../middleware/require-auth';
+import { markRoute } from '../middleware/request-log';
 import { requireCapability } from '../middleware/require-capability';
 import { paramsNotFound, parseWith, type Refusal } from '../middleware/validate';
 
@@ -122,7 +123,7 @@ export function publicArea(prefix: string, build: (route: Record<Method, PublicA
 /** The area's router: merged params, so nested prefixes (`/catchments/:catchmentId/runs`) reach the handlers. */
 export function areaRouter(area: ApiArea): Router {
   const router = Router({ mergeParams: true });
-  for (const route of area.routes) router[route.method](route.path, ...route.handlers);
+  for (const route of area.routes) router[route.method](route.path, markRoute(`${route.method} ${fullPath(area, route)}`), ...route.handlers);
   return router;
 }
 

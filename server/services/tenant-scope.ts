@@ -7,6 +7,12 @@ import { notFound } from '../errors';
  * Tables it serves must have an `organisation_id` column.
  */
 export class TenantScope {
+  /**
+   * Set for a request that carries an idempotency key (server/middleware/idempotency-keys.ts):
+   * the key's row is marked committed inside the transaction of the request's first write.
+   */
+  claim?: { id: number; committed: boolean };
+
   constructor(
     readonly db: Knex | Knex.Transaction,
     readonly organisationId: number,
@@ -19,6 +25,7 @@ export class TenantScope {
 
   /** Inserts rows stamped with this organisation; returns the first insert id. */
   async insert(table: string, row: Record<string, unknown>): Promise<number> {
+    if (this.claim && !this.claim.committed && !this.db.isTransaction) return this.transaction((s) => s.insert(table, row));
     const [id] = await this.db(table).insert({ ...row, organisation_id: this.organisationId });
     return Number(id);
   }
@@ -31,9 +38,16 @@ export class TenantScope {
     return row as T;
   }
 
-  /** The same scope inside a transaction. */
+  /** The same scope inside a transaction (which also marks the request's idempotency key, if any, as committed). */
   async transaction<R>(work: (scope: TenantScope) => Promise<R>): Promise<R> {
     const db = this.db as Knex;
-    return db.transaction((trx) => work(new TenantScope(trx, this.organisationId)));
+    const claim = this.claim && !this.claim.committed ? this.claim : undefined;
+    const result = await db.transaction(async (trx) => {
+      const done = await work(new TenantScope(trx, this.organisationId));
+      if (claim) await trx('idempotency_keys').where({ id: claim.id }).update({ state: 'committed' });
+      return done;
+    });
+    if (claim) claim.committed = true;
+    return result;
   }
 }

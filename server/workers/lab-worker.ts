@@ -9,6 +9,7 @@ import { compareStakes, type StakeObservation } from '../../shared/lab/stake-bal
 import { calibrateToStakes, readingsWithin } from '../../shared/lab/stake-calibration';
 import type { BandSite, LabSite, Period } from '../../shared/lab/site';
 import { closeWaterBalance, type ClosureTask } from '../../shared/lab/water-balance-closure';
+import { runRemoteSensing, type RemoteSensingTask } from './lab-remote-sensing';
 
 /** The lab's computations, each run in a worker thread so the API keeps answering. */
 export type LabTask =
@@ -26,7 +27,8 @@ export type LabTask =
   | {
     kind: 'calibrateStakes'; site: LabSite; observed: StakeObservation[]; keys: CalibrationKey[]; start: CalibrationSet;
     period: Period; validationPeriod?: Period; maxEvaluations: number; seed: number;
-  };
+  }
+  | RemoteSensingTask;
 
 /** The search reports the first 70 % of a calibration's progress, the behavioural-range sampling after it the rest. */
 function searchProgress(report: (fraction: number) => void) {
@@ -69,6 +71,11 @@ function run(task: LabTask, report: (fraction: number) => void): unknown {
     case 'waterBalance':
       // An inversion takes a few dozen engine runs; progress by runs so far, never quite done until it is.
       return closeWaterBalance(task.site, task.task, (count) => report(Math.min(0.95, count / task.maxEvaluations)));
+    case 'snowCoverSkill':
+    case 'geodeticSkill':
+    case 'calibrateSnowCover':
+    case 'calibrateGeodetic':
+      return runRemoteSensing(task, report);
     case 'calibrateStakes': {
       const outcome = calibrateToStakes(task.site, task.observed, {
         keys: task.keys, period: task.period, start: task.start, maxEvaluations: task.maxEvaluations, seed: task.seed, ...searchProgress(report),

@@ -1,4 +1,4 @@
-import type { BandRow } from '../schemas/catchment-bands';
+import { bandLabel, type BandRow } from '../schemas/catchment-bands';
 import type { Series } from '../schemas/datasets';
 import type { StakeReading } from '../schemas/stakes';
 import { roundTo } from '../text/numbers';
@@ -10,7 +10,7 @@ export function hypsometryChart(bands: readonly BandRow[]): ChartSpec {
   const parts = bands.map((b) => {
     const glacier = b.areaKm2 * b.glacierFraction;
     const debris = glacier * b.debrisFraction;
-    return { label: `${b.lowerM}–${b.upperM} m`, free: roundTo(b.areaKm2 - glacier, 3), clean: roundTo(glacier - debris, 3), debris: roundTo(debris, 3) };
+    return { label: bandLabel(b), free: roundTo(b.areaKm2 - glacier, 3), clean: roundTo(glacier - debris, 3), debris: roundTo(debris, 3) };
   });
   const stack = (name: string, key: 'free' | 'clean' | 'debris', colour: string) =>
     ({ name, type: 'bar', stack: 'area', data: parts.map((p) => p[key]), itemStyle: { color: colour } });

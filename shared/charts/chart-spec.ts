@@ -29,5 +29,8 @@ export const TOOLTIP = { trigger: 'axis' };
 export const LEGEND = { top: 0, type: 'scroll' };
 export const ZOOM = [{ type: 'inside' }, { type: 'slider', height: 16, bottom: 8 }];
 
-/** What a chart keeps of long model output: six significant digits (null stays a gap). */
-export const chartNumber = (value: number | null): number | null => (value === null ? null : roundSignificant(value, 6));
+/**
+ * What a chart keeps of long model output: six significant digits; null, and a day or month one of
+ * the runs compared does not have (runs of different periods), stay a gap.
+ */
+export const chartNumber = (value: number | null | undefined): number | null => (value === null || value === undefined ? null : roundSignificant(value, 6));

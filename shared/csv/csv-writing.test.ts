@@ -16,6 +16,16 @@ describe('CSV cells that look like formulas', () => {
     expect(csvDocument(['x'], [['=1']])).toBe("x\r\n'=1\r\n");
   });
 
+  it('escapes formula triggers hidden behind NUL, other control characters, blanks or full-width forms', () => {
+    expect(csvCell('\u0000=HYPERLINK("http://x.example")')).toBe(`"'=HYPERLINK(""http://x.example"")"`);
+    expect(csvCell('\u0000\u0001+1')).toBe("'+1");
+    expect(csvCell('  =1+1')).toBe("'  =1+1");
+    expect(csvCell('\u00A0@SUM(A1)')).toBe("'\u00A0@SUM(A1)");
+    expect(csvCell('\uFF1D1+1')).toBe("'\uFF1D1+1");
+    expect(csvCell('Spring\u0000 melt')).toBe('Spring melt');
+    expect(csvCell('Black carbon 400 ng/g')).toBe('Black carbon 400 ng/g');
+  });
+
   it('starts every download with one byte-order mark', () => {
     expect(withByteOrderMark('temperature (°C)\r\n')).toBe('\uFEFFtemperature (°C)\r\n');
     expect(withByteOrderMark(withByteOrderMark('x'))).toBe('\uFEFFx');

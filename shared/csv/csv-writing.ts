@@ -1,12 +1,20 @@
+/** Control characters other than tab and line ends: a spreadsheet may drop them (NUL first) and then read a formula. */
+// eslint-disable-next-line no-control-regex -- finding control characters is the point
+const CONTROL = /[\u0000-\u0008\u000B\u000C\u000E-\u001F\u007F]/g;
+/** A formula trigger (=, +, -, @ and their full-width forms) after any blanks, or a leading tab or carriage return. */
+const FORMULA_START = /^(?:[\s\u00A0\u3000]*[=+\-@\uFF1D\uFF0B\uFF0D\uFF20]|[\t\r])/;
+
 /**
- * CSV output that spreadsheets cannot mistake for formulas: a cell starting with =, +, -, @,
- * tab or carriage return gets a leading single quote (the common OWASP advice on CSV injection).
- * Numbers are written as numbers, so negative temperatures stay numeric.
+ * CSV output that spreadsheets cannot mistake for formulas: control characters (NUL among them)
+ * are dropped, and a cell that would then start with a formula trigger, even after blanks, gets a
+ * leading single quote (the common OWASP advice on CSV injection). Numbers are written as
+ * numbers, so negative temperatures stay numeric.
  */
 export function csvCell(value: string | number | null): string {
   if (value === null) return '';
   if (typeof value === 'number') return Number.isFinite(value) ? String(value) : '';
-  const safe = /^[=+\-@\t\r]/.test(value) ? `'${value}` : value;
+  const text = value.replace(CONTROL, '');
+  const safe = FORMULA_START.test(text) ? `'${text}` : text;
   return /[",\r\n]/.test(safe) ? `"${safe.replace(/"/g, '""')}"` : safe;
 }
 

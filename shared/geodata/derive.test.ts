@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { bandTableSchema } from '../schemas/catchment-bands';
 import { bandSchema } from '../melt/schema';
 import { crsFromEpsg } from './crs';
 import { deriveCatchment } from './derive';
@@ -46,7 +47,10 @@ describe('bands from a DEM and outlines', () => {
       const off = Math.abs(((aspect - centre + 540) % 360) - 180);
       expect(off).toBeLessThan(45.01);
       expect(split.bands[i].skyViewFactor).toBeUndefined();
+      expect(split.bands[i].aspectClass).toBe(unit.aspectClass);
     });
+    // the rows are a valid band table: units of one band share its range, each with its own aspect class
+    expect(bandTableSchema.safeParse(split.bands).success).toBe(true);
     const area = (d: typeof split) => d.bands.reduce((s, b) => s + b.areaKm2, 0);
     expect(area(split)).toBeCloseTo(area(derived), 2);
   });

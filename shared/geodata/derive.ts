@@ -131,7 +131,9 @@ export function deriveCatchment(input: DeriveInput, options: DeriveOptions): Der
   const units: UnitDetail[] = [];
   keep.forEach((raw, row) => {
     const b = split ? Math.floor(raw / 4) : raw;
-    bands.push(bandRow(sums, raw, edges[b], edges[b + 1], fallbackThickness, shading ? { svf: shading.skyViewFactor[row], horizon: shading.horizonDeg[row] } : null));
+    const unitRow = bandRow(sums, raw, edges[b], edges[b + 1], fallbackThickness, shading ? { svf: shading.skyViewFactor[row], horizon: shading.horizonDeg[row] } : null);
+    // A response unit says which aspect class of its band it is (the band table stores units as rows sharing a range).
+    bands.push(split ? { ...unitRow, aspectClass: ASPECT_CLASSES[raw % 4] } : unitRow);
     units.push(unitDetail(sums, raw, b, split ? ASPECT_CLASSES[raw % 4] : null));
   });
   warnSmallUnits(units, notices);

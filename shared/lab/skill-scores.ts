@@ -32,3 +32,12 @@ export function skillScores(observed: readonly number[], simulated: readonly num
     meanSimulated,
   };
 }
+
+/** The skill scores, or null when they cannot be computed (fewer than two values, a constant or zero-mean observed series). */
+export function skillScoresOrNull(observed: readonly number[], simulated: readonly number[]): SkillScores | null {
+  try {
+    return observed.length >= 2 ? skillScores(observed, simulated) : null;
+  } catch {
+    return null;
+  }
+}

@@ -1,5 +1,4 @@
 import { z } from 'zod';
-import { COMMON_PASSWORDS } from './common-passwords';
 
 export const ROLES = ['admin', 'consultant', 'scientist', 'client'] as const;
 export const roleSchema = z.enum(ROLES);
@@ -19,10 +18,8 @@ export const passwordSchema = z
   .min(PASSWORD_MIN_CHARS, { error: `Use at least ${PASSWORD_MIN_CHARS} characters.` })
   .refine((p) => utf8Bytes(p) <= PASSWORD_MAX_BYTES, {
     error: `Use at most ${PASSWORD_MAX_BYTES} bytes (about ${PASSWORD_MAX_BYTES} plain letters; accented letters and symbols count double or more).`,
-  })
-  .refine((p) => !COMMON_PASSWORDS.has(p.toLowerCase()), {
-    error: 'This password is among the most common ones; choose another.',
   });
+// Passwords from breach corpuses are refused by the server when one is set (server/services/auth/common-passwords.ts).
 
 export const emailSchema = z
   .string({ error: 'Enter an e-mail address.' })
@@ -44,6 +41,16 @@ export const signUpSchema = z.object({
   password: passwordSchema,
 });
 export type SignUpRequest = z.infer<typeof signUpSchema>;
+
+/** The answer to every sign-up request, whether the address is new or already has an account. */
+export const SIGN_UP_REPLY = 'Check your inbox: a mail is on its way to this address. Open its link to finish (if the address already has an account, the mail says so).';
+
+/** POST /api/auth/password: the current password proves it is the user, not someone at an unlocked screen. */
+export const passwordChangeSchema = z.object({
+  currentPassword: z.string({ error: 'Enter your current password.' }).min(1, { error: 'Enter your current password.' }).max(1024),
+  newPassword: passwordSchema,
+});
+export type PasswordChange = z.infer<typeof passwordChangeSchema>;
 
 export const organisationSchema = z.object({
   id: z.number().int(),

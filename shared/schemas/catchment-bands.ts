@@ -15,23 +15,43 @@ export const BAND_COLUMNS = [
 export type BandField = (typeof BAND_COLUMNS)[number]['field'];
 export const BAND_FIELDS: readonly BandField[] = BAND_COLUMNS.map((c) => c.field);
 
-/** One band as stored: the engine's band (same names and units) and its row number. */
-export type BandRow = z.output<typeof bandSchema>;
+/** Aspect classes of response units: north 315–45°, east 45–135°, south 135–225°, west 225–315°. */
+export const ASPECT_CLASS_VALUES = ['N', 'E', 'S', 'W'] as const;
+export type AspectClassValue = (typeof ASPECT_CLASS_VALUES)[number];
+export const ASPECT_CLASS_LABELS: Record<AspectClassValue, string> = { N: 'north-facing', E: 'east-facing', S: 'south-facing', W: 'west-facing' };
+
+/**
+ * One band as stored: the engine's band (same names and units), optionally one aspect class of
+ * its elevation range (a response unit: rows sharing a range split it by aspect).
+ */
+export const bandRowSchema = bandSchema.safeExtend({ aspectClass: z.enum(ASPECT_CLASS_VALUES).optional() });
+export type BandRow = z.output<typeof bandRowSchema>;
+
+/** "4000–4200 m", with the aspect class of a response unit: "4000–4200 m, north-facing". */
+export function bandLabel(band: Pick<BandRow, 'lowerM' | 'upperM' | 'aspectClass'>): string {
+  return `${band.lowerM}–${band.upperM} m${band.aspectClass ? `, ${ASPECT_CLASS_LABELS[band.aspectClass]}` : ''}`;
+}
 
 /**
  * The whole band table: each row is the engine's band, and across rows the bands must run
  * from low to high without gaps or overlaps (each band's lower edge is the previous upper edge).
+ * Response units of one band follow each other with the same range and different aspect classes.
  * Issues carry the path [row index, field] so messages can say "row 3, upperM".
  */
 export const bandTableSchema = z
-  .array(bandSchema)
+  .array(bandRowSchema)
   .min(1, 'needs at least one band')
   .max(500, 'may have at most 500 bands')
   .superRefine((bands, ctx) => {
     for (let i = 1; i < bands.length; i++) {
       const previous = bands[i - 1];
       const band = bands[i];
-      if (band.lowerM < previous.upperM) {
+      if (band.lowerM === previous.lowerM && band.upperM === previous.upperM && band.aspectClass && previous.aspectClass) {
+        const unitsBefore = bands.slice(0, i).filter((b) => b.lowerM === band.lowerM && b.upperM === band.upperM);
+        if (unitsBefore.some((b) => b.aspectClass === band.aspectClass)) {
+          ctx.addIssue({ code: 'custom', path: [i, 'aspectClass'], message: `repeats the aspect class ${band.aspectClass} of another unit of the same band` });
+        }
+      } else if (band.lowerM < previous.upperM) {
         ctx.addIssue({ code: 'custom', path: [i, 'lowerM'], message: `overlaps the band below (its upper edge is ${previous.upperM} m); sort bands from low to high without overlaps` });
       } else if (band.lowerM > previous.upperM) {
         ctx.addIssue({ code: 'custom', path: [i, 'lowerM'], message: `leaves a gap above the band below (its upper edge is ${previous.upperM} m); bands must be contiguous` });
@@ -45,7 +65,7 @@ export type BandTableRequest = z.input<typeof bandTableRequestSchema>;
 export const bandProblemSchema = z.object({ row: z.number().int(), column: z.string(), message: z.string() });
 export type BandProblem = z.infer<typeof bandProblemSchema>;
 
-export const bandTableReplySchema = z.object({ bands: z.array(bandSchema) });
+export const bandTableReplySchema = z.object({ bands: z.array(bandRowSchema) });
 
 /** Bands read from an uploaded file: the rows that could be read and what is wrong, row by row. */
 export const bandFileReplySchema = z.object({
@@ -75,3 +95,16 @@ export function bandTableRefusal(issues: readonly { path: readonly PropertyKey[]
   const where = first.row > 0 ? `Row ${first.row}, ${first.column}: ` : 'Band table: ';
   return { message: `${where}${first.message}`, field: first.row > 0 ? `bands.${first.row - 1}.${first.column}` : 'bands', problems };
 }
+
+/** A saved version of a catchment's band table; the newest is in use, older ones stay for the runs made with them. */
+export const bandTableVersionSchema = z.object({
+  id: z.number().int(),
+  version: z.number().int(),
+  source: z.enum(['entered', 'derived']),
+  derivationId: z.number().int().nullable(),
+  bandCount: z.number().int(),
+  runCount: z.number().int(),
+  createdAt: z.string(),
+});
+export type BandTableVersion = z.infer<typeof bandTableVersionSchema>;
+export const bandTableVersionsReplySchema = z.object({ versions: z.array(bandTableVersionSchema) });

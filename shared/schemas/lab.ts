@@ -42,8 +42,8 @@ export const saveCalibrationSchema = z.object({ period: labPeriodSchema, set: ca
 export type SaveCalibrationRequest = z.output<typeof saveCalibrationSchema>;
 
 export const calibrateRequestSchema = z.object({
-  /** What the search fits: daily discharge (KGE) or stake balances (KGE over the readings). */
-  target: z.enum(['discharge', 'stakes']).default('discharge'),
+  /** What the search fits: daily discharge (KGE), stake balances (KGE over the readings), snow-cover maps (KGE over bands and dates) or the geodetic balance profile (σ-weighted squared error). */
+  target: z.enum(['discharge', 'stakes', 'snowCover', 'geodetic']).default('discharge'),
   keys: z.array(z.enum(CALIBRATION_KEYS)).min(1, 'choose at least one parameter').max(4, 'choose at most four parameters')
     .refine((k) => new Set(k).size === k.length, { message: 'each parameter may be chosen once' }),
   period: labPeriodSchema,
@@ -77,7 +77,7 @@ export type SweepJobRequest = z.output<typeof sweepRequestSchema>;
 
 // Replies
 
-const skillScoresSchema = z.object({
+export const skillScoresSchema = z.object({
   count: z.number(), nse: z.number(), kge: z.number(), r: z.number(), alpha: z.number(), beta: z.number(),
   biasPercent: z.number(), meanObserved: z.number(), meanSimulated: z.number(),
 });
@@ -85,7 +85,7 @@ export type SkillScoresReply = z.infer<typeof skillScoresSchema>;
 const pairedSeriesSchema = z.object({ dates: z.array(z.string()), observed: z.array(z.number()), simulated: z.array(z.number()) });
 export const dischargeEvaluationSchema = z.object({ daily: skillScoresSchema, monthly: skillScoresSchema.nullable(), series: pairedSeriesSchema, monthlySeries: pairedSeriesSchema });
 export type DischargeEvaluationReply = z.infer<typeof dischargeEvaluationSchema>;
-const setReplySchema = z.object({ parameters: z.record(z.string(), z.number()), precipitationFactor: z.number() });
+export const setReplySchema = z.object({ parameters: z.record(z.string(), z.number()), precipitationFactor: z.number() });
 
 export const skillReplySchema = z.object({ set: setReplySchema, evaluation: dischargeEvaluationSchema });
 
@@ -147,7 +147,8 @@ export type SweepResultReply = z.infer<typeof sweepResultSchema>;
 const periodReply = z.object({ from: z.string(), to: z.string() });
 /** A parameter's behavioural range around the calibrated value; open when the data do not bound it within the sampled region. */
 const parameterRangeSchema = z.object({ key: z.string(), best: z.number(), low: z.number(), high: z.number(), open: z.boolean() });
-const searchFacts = {
+/** What every automatic calibration reports about its search, whatever it was scored against. */
+export const searchFacts = {
   keys: z.array(z.string()),
   set: setReplySchema,
   evaluations: z.number(),

@@ -31,6 +31,9 @@ export const mailTokenSchema = z
   .string({ error: 'The link is missing its token.' })
   .regex(/^[A-Za-z0-9_-]{43}$/, { error: 'This link is not valid.' });
 
+/** POST /api/auth/sign-up/confirm: the token of the mailed link that finishes a sign-up. */
+export const signUpConfirmSchema = z.object({ token: mailTokenSchema });
+
 export const invitationPreviewSchema = z.object({
   email: z.string(),
   name: z.string(),
@@ -65,5 +68,5 @@ export const inboxMessageSchema = z.object({
 export type InboxMessage = z.infer<typeof inboxMessageSchema>;
 export const inboxReplySchema = z.object({ messages: z.array(inboxMessageSchema) });
 
-/** GET /api/invitations/preview?token=… */
-export const invitationPreviewQuerySchema = z.object({ token: mailTokenSchema });
+/** POST /api/invitations/preview { token } */
+export const invitationPreviewRequestSchema = z.object({ token: mailTokenSchema });

@@ -40,16 +40,19 @@ export async function apiRequest<S extends z.ZodType | undefined = undefined>(
   url: string,
   options: RequestOptions<S> = {},
 ): Promise<Reply<S>> {
-  const headers: Record<string, string> = { Accept: 'application/json' };
+  // The server refuses writes without it (or JSON): another site's form cannot send it.
+  const headers: Record<string, string> = { Accept: 'application/json', 'X-Requested-With': 'tarnish' };
   let body: BodyInit | undefined;
   if (options.form) body = options.form;
   else if (options.body !== undefined) {
     headers['Content-Type'] = 'application/json';
     body = JSON.stringify(options.body);
   }
+  // A create carries a key of its own, so sending it again after a lost answer cannot store it twice.
+  if (method === 'POST') headers['Idempotency-Key'] = crypto.randomUUID();
   let response: Response;
   try {
-    response = await fetch(url, { method, headers, body, credentials: 'same-origin', signal: options.signal });
+    response = await sendOnceMore(() => fetch(url, { method, headers, body, credentials: 'same-origin', signal: options.signal }), options.signal);
   } catch (cause) {
     if ((cause as Error).name === 'AbortError') throw cause;
     const err = new ApiError(0, 'network', 'The server could not be reached. Check your connection and try again.');
@@ -70,6 +73,29 @@ export async function apiRequest<S extends z.ZodType | undefined = undefined>(
     throw err;
   }
   return parsed.data as Reply<S>;
+}
+
+/** The longest the client waits, once, before sending a request again that the server asked to retry. */
+const MAX_RETRY_WAIT_MS = 5000;
+
+/**
+ * Sends a request, and once more when the connection failed or the server answered 503 with
+ * Retry-After (the database was briefly away): safe, because writes carry an idempotency key.
+ */
+async function sendOnceMore(send: () => Promise<Response>, signal?: AbortSignal): Promise<Response> {
+  let waitMs: number;
+  try {
+    const first = await send();
+    const retryAfter = Number(first.headers.get('Retry-After'));
+    if (first.status !== 503 || !Number.isFinite(retryAfter) || retryAfter <= 0) return first;
+    waitMs = Math.min(retryAfter * 1000, MAX_RETRY_WAIT_MS);
+  } catch (cause) {
+    if ((cause as Error).name === 'AbortError') throw cause;
+    waitMs = 1000;
+  }
+  await new Promise((resolve) => setTimeout(resolve, waitMs));
+  if (signal?.aborted) throw new DOMException('Aborted', 'AbortError');
+  return send();
 }
 
 async function toApiError(response: Response): Promise<ApiError> {

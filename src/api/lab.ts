@@ -4,6 +4,7 @@ import {
   type CalibrateRequest, type CalibrationSetInput, type LabPeriod, type SweepRequest,
 } from '@shared/schemas/lab';
 import { closureHistorySchema, savedClosureSchema, type WaterBalanceRequestInput } from '@shared/schemas/water-balance';
+import { geodeticSkillReplySchema, snowCoverSkillReplySchema } from '@shared/schemas/lab-remote-sensing';
 import { api } from './http';
 
 const base = (id: number) => `/api/lab/catchments/${id}`;
@@ -17,6 +18,8 @@ export const labApi = {
     api.get(`${base(id)}/reference-models?${bandQuery(band, period)}`, referenceModelsSchema, { signal }),
   skill: (id: number, period: LabPeriod, set?: CalibrationSetInput) => api.post(`${base(id)}/skill`, { period, set }, { schema: skillReplySchema }),
   stakeSkill: (id: number, set?: CalibrationSetInput) => api.post(`${base(id)}/stake-skill`, { set }, { schema: stakeSkillReplySchema, quiet: true }),
+  snowCoverSkill: (id: number, set?: CalibrationSetInput) => api.post(`${base(id)}/snow-cover-skill`, { set }, { schema: snowCoverSkillReplySchema, quiet: true }),
+  geodeticSkill: (id: number, set?: CalibrationSetInput) => api.post(`${base(id)}/geodetic-skill`, { set }, { schema: geodeticSkillReplySchema, quiet: true }),
   calibration: (id: number) => api.get(`${base(id)}/calibration`, calibrationHistorySchema),
   saveCalibration: (id: number, period: LabPeriod, set: CalibrationSetInput, note: string) =>
     api.put(`${base(id)}/calibration`, { period, set, note }, { schema: savedCalibrationSchema }),

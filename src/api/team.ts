@@ -10,6 +10,6 @@ export const teamApi = {
   list: () => api.get('/api/members', membersReplySchema),
   changeRole: (id: number, role: Role) => api.patch(`/api/members/${id}`, { role }, { schema: memberReply }),
   remove: (id: number) => api.delete(`/api/members/${id}`),
-  invite: (body: InvitationRequest) => api.post('/api/invitations', body, { schema: memberReply, quiet: true }),
+  invite: (body: InvitationRequest) => api.post('/api/invitations', body, { schema: messageReplySchema, quiet: true }),
   resend: (id: number) => api.post(`/api/invitations/${id}/resend`, undefined, { schema: messageReplySchema }),
 };

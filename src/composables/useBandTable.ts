@@ -1,15 +1,16 @@
 import { computed, ref, type ComputedRef, type Ref } from 'vue';
-import { BAND_FIELDS, bandIssuesToProblems, bandTableSchema, type BandField, type BandProblem, type BandRow } from '@shared/schemas/catchment-bands';
+import { BAND_FIELDS, bandIssuesToProblems, bandTableSchema, type AspectClassValue, type BandField, type BandProblem, type BandRow } from '@shared/schemas/catchment-bands';
 
-/** A band row as typed in the editor: text per field, so half-typed numbers are kept as written. */
-export type BandDraft = Record<BandField, string>;
+/** A band row as typed in the editor: text per field, so half-typed numbers are kept as written; a response unit keeps its aspect class. */
+export type BandDraft = Record<BandField, string> & { aspectClass?: AspectClassValue };
+type BandInput = Partial<Record<BandField, number | null>> & { aspectClass?: AspectClassValue };
 
 export interface BandTable {
   rows: Ref<BandDraft[]>;
   problems: Ref<BandProblem[]>;
   /** Problem message per "row:field" (1-based rows), for cell highlighting. */
   cellErrors: ComputedRef<Record<string, string>>;
-  load(bands: readonly Partial<Record<BandField, number | null>>[]): void;
+  load(bands: readonly BandInput[]): void;
   addRow(): void;
   removeRow(index: number): void;
   /** Pastes a block copied from a spreadsheet (tab, semicolon or comma separated) starting at a cell; returns false for a single value. */
@@ -26,8 +27,11 @@ export function useBandTable(): BandTable {
   const problems = ref<BandProblem[]>([]);
   const cellErrors = computed(() => Object.fromEntries(problems.value.map((p) => [`${p.row}:${p.column}`, p.message])));
 
-  function load(bands: readonly Partial<Record<BandField, number | null>>[]): void {
-    rows.value = bands.map((b) => Object.fromEntries(BAND_FIELDS.map((f) => [f, b[f] === null || b[f] === undefined ? '' : String(b[f])])) as BandDraft);
+  function load(bands: readonly BandInput[]): void {
+    rows.value = bands.map((b) => ({
+      ...(Object.fromEntries(BAND_FIELDS.map((f) => [f, b[f] === null || b[f] === undefined ? '' : String(b[f])])) as Record<BandField, string>),
+      ...(b.aspectClass ? { aspectClass: b.aspectClass } : {}),
+    }));
     problems.value = [];
   }
 
@@ -60,12 +64,15 @@ export function useBandTable(): BandTable {
 
   function validate(): BandRow[] | null {
     const found: BandProblem[] = [];
-    const bands = rows.value.map((row, i) => Object.fromEntries(BAND_FIELDS.map((field) => {
-      const text = row[field].trim();
-      const value = text === '' ? Number.NaN : Number(text);
-      if (Number.isNaN(value)) found.push({ row: i + 1, column: field, message: text === '' ? 'is empty' : `"${text}" is not a number` });
-      return [field, value];
-    })));
+    const bands = rows.value.map((row, i) => ({
+      ...Object.fromEntries(BAND_FIELDS.map((field) => {
+        const text = row[field].trim();
+        const value = text === '' ? Number.NaN : Number(text);
+        if (Number.isNaN(value)) found.push({ row: i + 1, column: field, message: text === '' ? 'is empty' : `"${text}" is not a number` });
+        return [field, value];
+      })),
+      ...(row.aspectClass ? { aspectClass: row.aspectClass } : {}),
+    }));
     if (found.length === 0) {
       const parsed = bandTableSchema.safeParse(bands);
       if (parsed.success) {

@@ -85,6 +85,12 @@ export const routes: RouteRecordRaw[] = [
         meta: { access: 'manageMembers', nav: { label: 'Team', icon: 'group', caption: 'Members and invitations' }, title: 'Team' },
       },
       {
+        path: 'account',
+        name: 'account',
+        component: () => import('src/pages/AccountPage.vue'),
+        meta: { access: 'signedIn', title: 'Your account' },
+      },
+      {
         path: 'billing',
         name: 'billing',
         component: () => import('src/pages/BillingPage.vue'),
@@ -101,6 +107,7 @@ export const routes: RouteRecordRaw[] = [
       { path: 'forgot-password', name: 'forgot-password', component: () => import('src/pages/ForgotPasswordPage.vue'), meta: { guestOnly: true, title: 'Forgot password' } },
       // Opened from mailed links; the token in the query is the credential, so no session is needed.
       { path: 'reset-password', name: 'reset-password', component: () => import('src/pages/ResetPasswordPage.vue'), meta: { title: 'New password' } },
+      { path: 'confirm-sign-up', name: 'confirm-sign-up', component: () => import('src/pages/ConfirmSignUpPage.vue'), meta: { title: 'Finishing your account' } },
       { path: 'invitation', name: 'invitation', component: () => import('src/pages/AcceptInvitationPage.vue'), meta: { title: 'Join your team' } },
     ],
   },

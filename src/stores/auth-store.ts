@@ -1,6 +1,6 @@
 import { defineStore } from 'pinia';
 import { computed, ref } from 'vue';
-import type { MeResponse, Role, SignInRequest, SignUpRequest } from '@shared/schemas/auth';
+import type { MeResponse, Role, SignInRequest } from '@shared/schemas/auth';
 import { authApi } from 'src/api/auth';
 import { ApiError } from 'src/api/http';
 
@@ -29,8 +29,9 @@ export const useAuthStore = defineStore('auth', () => {
     loaded.value = true;
   }
 
-  async function signUp(body: SignUpRequest): Promise<void> {
-    session.value = await authApi.signUp(body);
+  /** Finishes a sign-up from its mailed link: the new admin is signed in. */
+  async function confirmSignUp(token: string): Promise<void> {
+    session.value = await authApi.confirmSignUp(token);
     loaded.value = true;
   }
 
@@ -47,5 +48,5 @@ export const useAuthStore = defineStore('auth', () => {
     session.value = null;
   }
 
-  return { session, loaded, user, organisation, role, load, signIn, signUp, signOut, clear };
+  return { session, loaded, user, organisation, role, load, signIn, confirmSignUp, signOut, clear };
 });

@@ -4,7 +4,7 @@ import type { FakeContext } from '../context';
 import { present } from '../expand';
 import { listParams, toList } from '../listing';
 import { expandParam, formInteger, metadataParam, parseParams } from '../params';
-import { createSession, currentSession } from '../services/checkout';
+import { createSession, currentSession, openSession } from '../services/checkout';
 import type { CheckoutSession } from '../types';
 
 const createParams = z.strictObject({
@@ -71,6 +71,14 @@ export function checkoutSessionRoutes(ctx: FakeContext): Router {
   router.get('/checkout/sessions/:id', (req, res) => {
     const { expand } = parseParams(retrieveParams, req.query);
     const session = currentSession(ctx, req.params.id);
+    res.json(present(ctx.state, withLineItems(session, expand), withoutLineItems(expand)));
+  });
+
+  // An open session can be closed so it can no longer be paid (the service's `checkout.sessions.expire`).
+  router.post('/checkout/sessions/:id/expire', (req, res) => {
+    const { expand } = parseParams(retrieveParams, req.body);
+    const session = openSession(ctx, req.params.id);
+    Object.assign(session, { status: 'expired', url: null } satisfies Partial<CheckoutSession>);
     res.json(present(ctx.state, withLineItems(session, expand), withoutLineItems(expand)));
   });
 

@@ -138,6 +138,7 @@ export function collectInvoice(ctx: FakeContext, invoice: Invoice, alreadyCharge
     invoice.amount_paid = invoice.amount_due;
     invoice.amount_remaining = 0;
     invoice.status_transitions.paid_at = ctx.clock.now();
+    if (invoice.amount_paid > 0) recordPayment(ctx, invoice);
     if (subscription.status === 'past_due') subscription.status = 'active';
     emitEvent(ctx, 'invoice.paid', invoice);
   }
@@ -146,4 +147,21 @@ export function collectInvoice(ctx: FakeContext, invoice: Invoice, alreadyCharge
     emitEvent(ctx, 'customer.subscription.updated', subscription, changed);
   }
   return invoice;
+}
+
+/** The payment a paid invoice took, as `invoicePayments.list({ invoice })` shows it (what a refund names). */
+function recordPayment(ctx: FakeContext, invoice: Invoice): void {
+  ctx.state.invoicePayments.add({
+    id: newId('inpay'),
+    object: 'invoice_payment',
+    amount_paid: invoice.amount_paid,
+    amount_requested: invoice.amount_paid,
+    created: ctx.clock.now(),
+    currency: invoice.currency,
+    invoice: invoice.id,
+    is_default: true,
+    livemode: false,
+    payment: { type: 'payment_intent', payment_intent: newId('pi') },
+    status: 'paid',
+  });
 }

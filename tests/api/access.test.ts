@@ -61,6 +61,8 @@ describe('route × role, from the route table and the capability table', () => {
       }
       // The payment service is not running here: 503 upstream_unavailable is an answer, a 500 never is.
       expect(res.status, label).not.toBe(500);
+      // Signed-in answers are never cached, whatever they are.
+      expect(res.headers['cache-control'], label).toBe('no-store');
     }
   });
 });

@@ -46,8 +46,8 @@ describe('a good hourly temperature file', () => {
     expect(confirmed.body.dataset).toMatchObject({ valueCount: 72, completeness: 1, source: 'Test camp logger', accuracy: '±0.2 °C', timeZone: 'Asia/Kolkata' });
     expect(confirmed.body.dataset.uploadedBy).toContain('consultant');
     expect(await storedCounts(id)).toEqual({ datasets: 1, values: 72 });
-    // The pending upload is used up.
-    expect((await agent.post(`/api/catchments/${id}/uploads/${preview.body.token}/confirm`)).status).toBe(404);
+    // The pending upload is used up: confirming it again says it was stored.
+    expect((await agent.post(`/api/catchments/${id}/uploads/${preview.body.token}/confirm`)).status).toBe(409);
   });
 
   it('reads kelvin when the unit is chosen and says so', async () => {

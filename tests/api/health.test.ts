@@ -1,5 +1,7 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { catchmentFields } from '../support/catchments';
+import { createOrganisation, signedInAgent } from '../support/factories';
 import { tcpSwitch } from '../support/tcp-switch';
 import { createTestApp, type TestApp } from '../support/test-app';
 
@@ -49,11 +51,36 @@ describe('GET /api/health', () => {
     }
   });
 
+  it('answers signed-in requests with 503 and Retry-After while the database is gone, and serves them again by itself', async () => {
+    const link = await tcpSwitch(t.config.db.host, t.config.db.port);
+    const flaky = createTestApp({ DB_PORT: String(link.port) });
+    try {
+      const org = await createOrganisation(t.db);
+      const agent = await signedInAgent(flaky.app, org.users.consultant.email);
+      expect((await agent.get('/api/catchments')).status).toBe(200);
+      link.cut();
+      for (const attempt of [agent.get('/api/catchments'), agent.post('/api/catchments').send(catchmentFields())]) {
+        const res = await attempt;
+        expect(res.status).toBe(503);
+        expect(res.headers['retry-after']).toBe('5');
+        expect(res.body.error.code).toBe('database_unavailable');
+      }
+      link.restore();
+      const back = await agent.get('/api/catchments');
+      expect(back.status).toBe(200);
+    } finally {
+      await flaky.close();
+      await link.close();
+    }
+  });
+
   it('sends a Content-Security-Policy without inline scripts', async () => {
     const res = await request(t.app).get('/api/health');
     const csp = res.headers['content-security-policy'];
     expect(csp).toMatch(/script-src 'self'/);
     expect(csp).not.toMatch(/script-src[^;]*unsafe-inline/);
+    expect(csp).toMatch(/base-uri 'none'/);
+    expect(csp).toMatch(/form-action 'self'/);
     expect(res.headers['x-powered-by']).toBeUndefined();
   });
 });

@@ -1,7 +1,7 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { hashMailToken } from '../../server/services/mail/mail-tokens';
-import { createOrganisation, signedInAgent, unique, type TestOrg } from '../support/factories';
+import { createOrganisation, signedInAgent, unique, userIdOf, type TestOrg } from '../support/factories';
 import { startTeamHarness, type TeamHarness } from '../support/team-harness';
 
 let h: TeamHarness;
@@ -20,9 +20,9 @@ async function inviteAndReadMail(role = 'consultant') {
   const email = `${unique('inv')}@test.example`;
   const admin = await signedInAgent(h.t.app, org.users.admin.email);
   const res = await admin.post('/api/invitations').send({ email, name: 'Mira Staen', role });
-  expect(res.status).toBe(201);
+  expect(res.status).toBe(202);
   const mail = await h.catcher.waitFor((m) => m.to.includes(email));
-  return { email, id: res.body.member.id as number, mail, token: tokenIn(mail.text) };
+  return { email, id: await userIdOf(h.t.db, email), mail, token: tokenIn(mail.text) };
 }
 
 const tokenIn = (text: string) => /\/invitation\?token=([A-Za-z0-9_-]{43})/.exec(text)![1]!;
@@ -44,9 +44,13 @@ describe('invitation mail', () => {
 describe('accepting', () => {
   it('sets the password, makes the member active, and works only once', async () => {
     const { email, token } = await inviteAndReadMail();
-    const preview = await request(h.t.app).get('/api/invitations/preview').query({ token });
+    const preview = await request(h.t.app).post('/api/invitations/preview').send({ token });
     expect(preview.status).toBe(200);
     expect(preview.body).toMatchObject({ email, role: 'consultant' });
+    // The token never travels in a URL (where proxies, logs and the browser history keep it).
+    const inUrl = await request(h.t.app).get(`/api/invitations/preview?token=${token}`);
+    expect(inUrl.status).not.toBe(200);
+    expect(JSON.stringify(inUrl.body)).not.toContain(email);
 
     const first = await accept(token);
     expect(first.status).toBe(200);
@@ -57,7 +61,7 @@ describe('accepting', () => {
     const second = await accept(token, 'another long password here');
     expect(second.status).toBe(400);
     expect(second.body.error.code).toBe('invalid_token');
-    expect((await request(h.t.app).get('/api/invitations/preview').query({ token })).status).toBe(400);
+    expect((await request(h.t.app).post('/api/invitations/preview').send({ token })).status).toBe(400);
     await signedInAgent(h.t.app, email, NEW_PASSWORD);
   });
 
@@ -123,7 +127,7 @@ describe('mail limits', () => {
     const admin = await signedInAgent(h.t.app, org.users.admin.email);
     const email = `${unique('twice')}@test.example`;
     const replies = await Promise.all(Array.from({ length: 5 }, () => admin.post('/api/invitations').send({ email, name: 'Once', role: 'client' })));
-    expect(replies.map((r) => r.status).sort()).toEqual([201, 409, 409, 409, 409]);
+    expect(replies.map((r) => r.status).sort()).toEqual([202, 409, 409, 409, 409]);
     expect(await h.t.db('users').where({ email })).toHaveLength(1);
   });
 });

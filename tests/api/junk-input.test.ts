@@ -41,11 +41,10 @@ const readPaths = () => [
   `${c()}/preview-input?from=zzz&to=2022-13-45`,
   `/api/lab/catchments/${catchmentId}/surface-response?band=abc&from=x&to=y`,
   `/api/lab/catchments/${catchmentId}/reference-models?band=-3`,
-  '/api/invitations/preview?token[]=a',
 ];
 
 const writeCalls = () => [
-  ['post', '/api/catchments'], ['put', `${c()}`], ['put', `${c()}/bands`], ['post', `${c()}/scenarios`],
+  ['post', '/api/invitations/preview'], ['post', '/api/catchments'], ['put', `${c()}`], ['put', `${c()}/bands`], ['post', `${c()}/scenarios`],
   ['post', `${c()}/runs`], ['post', '/api/briefings'], ['post', `/api/lab/catchments/${catchmentId}/skill`],
   ['post', `/api/lab/catchments/${catchmentId}/sweeps`], ['put', `/api/lab/catchments/${catchmentId}/calibration`],
   ['post', '/api/invitations'], ['put', '/api/billing/seats'], ['post', '/api/billing/checkout'],

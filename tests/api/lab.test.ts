@@ -203,7 +203,7 @@ describe('jobs: sweeps and automatic calibration', () => {
     expect(result.ranges.map((r) => r.key)).toEqual(['precipitationFactor', 'temperatureRangeRadiationCoefficient']);
     for (const r of result.ranges) expect(r.low <= r.best && r.best <= r.high).toBe(true);
     expect(result.atBounds.every((key) => result.keys.includes(key))).toBe(true);
-  });
+  }, 120_000);
   it('calibrates against stake balances, validated on the next balance year', async () => {
     const scientist = await signedInAgent(app, org.users.scientist.email);
     const res = await scientist.post(`/api/lab/catchments/${catchmentId}/calibrations`).send({
@@ -217,7 +217,7 @@ describe('jobs: sweeps and automatic calibration', () => {
     expect(result.result.readings).toHaveLength(8);
     expect(result.result.scores!.kge).toBeGreaterThanOrEqual(result.start.scores!.kge);
     expect(result.validation!.after.readings.every((r) => r.from === '2022-10-01')).toBe(true);
-  });
+  }, 120_000);
   it('can be cancelled', async () => {
     const scientist = await signedInAgent(app, org.users.scientist.email);
     const res = await scientist.post(`/api/lab/catchments/${catchmentId}/calibrations`).send({ keys: ['lapseRateCPerKm', 'iceAlbedo', 'temperatureRangeRadiationCoefficient'], period: season, maxEvaluations: 400 });

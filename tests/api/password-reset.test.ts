@@ -86,7 +86,7 @@ describe('development inbox', () => {
 
   it('is off (404) in production, even with a catcher beside the app', async () => {
     const production = createTestApp(
-      { NODE_ENV: 'production', JWT_SECRET: 'x'.repeat(40), STRIPE_SECRET_KEY: 'sk_live_example', STRIPE_WEBHOOK_SECRET: 'whsec_example' },
+      { NODE_ENV: 'production', JWT_SECRET: 'x'.repeat(40), STRIPE_SECRET_KEY: 'sk_live_example', STRIPE_WEBHOOK_SECRET: 'whsec_example', PUBLIC_URL: 'https://tarnish.example' },
       { inbox: h.catcher },
     );
     try {

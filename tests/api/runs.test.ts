@@ -213,6 +213,8 @@ describe('run lifecycle', () => {
     const a = await consultant.post(`/api/catchments/${first}/runs`).send({ scenarioId: await createScenario(consultant, 'Twin', changes, first) });
     const b = await consultant.post(`/api/catchments/${second}/runs`).send({ scenarioId: await createScenario(consultant, 'Twin', changes, second) });
     expect([a.status, b.status]).toEqual([202, 202]);
+    expect(b.body.reused).toBe(false);
+    expect(b.body.run.id).not.toBe(a.body.run.id);
     expect((await waitForRun(consultant, second, b.body.run.id)).catchmentId).toBe(second);
     await waitForRun(consultant, first, a.body.run.id);
   });

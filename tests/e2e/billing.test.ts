@@ -1,29 +1,17 @@
 import type { Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { launchBrowser, signInThroughForm, type BrowserWindow } from '../support/browser';
-import { createOrganisation, TEST_PASSWORD, unique, type TestOrg } from '../support/factories';
-import { startTeamHarness, type TeamHarness } from '../support/team-harness';
+import { describe, expect, it } from 'vitest';
+import { signInThroughForm } from '../support/browser';
+import { TEST_PASSWORD, unique } from '../support/factories';
+import { withTeamBrowser } from '../support/team-browser';
 
-let h: TeamHarness;
-let browser: BrowserWindow;
-let org: TestOrg;
-
-beforeAll(async () => {
-  h = await startTeamHarness({ CLIENT_DIR: 'dist' });
-  browser = await launchBrowser();
-  org = await createOrganisation(h.t.db);
-});
-afterAll(async () => {
-  await browser?.close();
-  await h?.close();
-});
+const f = withTeamBrowser();
 
 const shot = (page: Page, name: string) => page.screenshot({ path: `test-results/billing-${name}.png`, fullPage: true });
 
 describe('seats and team in the browser', () => {
   it('buys seats through the checkout page, adds 3 more, invites a consultant and the mail arrives', async () => {
-    const page = await browser.newPage();
-    await signInThroughForm(page, h.baseUrl, org.users.admin.email, TEST_PASSWORD);
+    const page = await f.browser.newPage();
+    await signInThroughForm(page, f.h.baseUrl, f.org.users.admin.email, TEST_PASSWORD);
 
     // No plan yet: the page says what is blocked and offers one.
     await page.click('[data-test=nav-billing]');
@@ -35,7 +23,7 @@ describe('seats and team in the browser', () => {
 
     // The payment fake's own card page.
     await page.waitForSelector('#card_number');
-    expect(page.url()).toContain(`${h.fake.url}/hosted/checkout/`);
+    expect(page.url()).toContain(`${f.h.fake.url}/hosted/checkout/`);
     await page.fill('#card_number', '4242 4242 4242 4242');
     await page.fill('#expiry', '12 / 34');
     await page.fill('#cvc', '123');
@@ -78,9 +66,9 @@ describe('seats and team in the browser', () => {
     await shot(page, 'team');
 
     // The mail reached the catcher; the development inbox shows it with its link.
-    const mail = await h.catcher.waitFor((m) => m.to.includes(consultant));
-    expect(mail.text).toContain(`${h.baseUrl}/invitation?token=`);
-    await page.goto(`${h.baseUrl}/dev/inbox`);
+    const mail = await f.h.catcher.waitFor((m) => m.to.includes(consultant));
+    expect(mail.text).toContain(`${f.h.baseUrl}/invitation?token=`);
+    await page.goto(`${f.h.baseUrl}/dev/inbox`);
     // The newest mail is shown opened, with its link.
     const inboxLink = page.locator('[data-test=inbox-message]').first().locator('a[href*="/invitation?token="]');
     await inboxLink.waitFor();
@@ -90,36 +78,36 @@ describe('seats and team in the browser', () => {
     await shot(page, 'dev-inbox');
 
     // The invited consultant follows the link, chooses a password and can sign in.
-    const invited = await browser.newPage();
+    const invited = await f.browser.newPage();
     await invited.goto(link);
     await invited.waitForSelector('[data-test=invitation-preview]');
     await shot(invited, 'accept-invitation');
     await invited.fill('[data-test=accept-password]', 'glacier tongue retreat 2026');
     await invited.click('[data-test=accept-submit]');
     await invited.waitForSelector('[data-test=invitation-done]');
-    await signInThroughForm(invited, h.baseUrl, consultant, 'glacier tongue retreat 2026');
+    await signInThroughForm(invited, f.h.baseUrl, consultant, 'glacier tongue retreat 2026');
     await invited.close();
     await page.close();
   });
 
   it('resets a forgotten password from the sign-in page through the mailed link', async () => {
-    const page = await browser.newPage();
-    const email = org.users.scientist.email;
-    await page.goto(`${h.baseUrl}/sign-in`);
+    const page = await f.browser.newPage();
+    const email = f.org.users.scientist.email;
+    await page.goto(`${f.h.baseUrl}/sign-in`);
     await page.waitForSelector('[data-test=forgot-password]');
     await shot(page, 'sign-in');
     await page.click('[data-test=forgot-password]');
     await page.fill('[data-test=reset-email]', email);
     await page.click('[data-test=reset-send]');
     await page.waitForSelector('[data-test=reset-sent]');
-    const mail = await h.catcher.waitFor((m) => m.to.includes(email) && m.subject.includes('password'));
+    const mail = await f.h.catcher.waitFor((m) => m.to.includes(email) && m.subject.includes('password'));
     const link = /http:\/\/\S+\/reset-password\?token=\S+/.exec(mail.text)![0];
     await page.goto(link);
     await page.fill('[data-test=reset-password]', 'moraine dust on the firn line');
     await page.click('[data-test=reset-submit]');
     await page.waitForSelector('[data-test=reset-done]');
     await shot(page, 'reset-done');
-    await signInThroughForm(page, h.baseUrl, email, 'moraine dust on the firn line');
+    await signInThroughForm(page, f.h.baseUrl, email, 'moraine dust on the firn line');
     await page.close();
   });
 });

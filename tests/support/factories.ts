@@ -3,6 +3,7 @@ import type { Express } from 'express';
 import type { Knex } from 'knex';
 import request from 'supertest';
 import { ROLES, type Role } from '../../shared/schemas/auth';
+import { CLIENT_HEADER } from '../../server/middleware/same-origin-writes';
 
 let counter = 0;
 /** A unique suffix so test data never collides between files or runs. */
@@ -39,10 +40,17 @@ export async function createOrganisation(db: Knex, name = unique('Org ')): Promi
   return { organisationId, users };
 }
 
-/** A supertest agent holding the session cookie of this user. */
+/** A supertest agent holding the session cookie of this user and sending our client's header, as the web client does. */
 export async function signedInAgent(app: Express, email: string, password = TEST_PASSWORD) {
-  const agent = request.agent(app);
+  const agent = request.agent(app).set(CLIENT_HEADER, 'tarnish');
   const res = await agent.post('/api/auth/sign-in').send({ email, password });
   if (res.status !== 200) throw new Error(`sign-in as ${email} failed: ${res.status} ${JSON.stringify(res.body)}`);
   return agent;
+}
+
+/** The id of the account with this address (invitations answer without naming the member). */
+export async function userIdOf(db: Knex, email: string): Promise<number> {
+  const row = await db('users').where({ email }).first('id');
+  if (!row) throw new Error(`no account for ${email}`);
+  return row.id as number;
 }

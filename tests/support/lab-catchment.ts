@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
 import { variableSpec, type Variable } from '../../shared/schemas/dataset-variables';
+import { insertBandTable } from '../../server/services/catchments/band-tables';
 import { insertBaseline } from '../../server/services/catchments/baseline-scenario';
 import { insertReferenceStation } from '../../server/services/stations/reference-station';
 import { insertDatasetValues, insertStakeReadings } from '../../server/services/catchments/dataset-values';
@@ -24,11 +25,7 @@ export async function createDemoCatchment(db: Knex, organisationId: number, opti
   });
   await insertBaseline(new TenantScope(db, organisationId), catchmentId, null);
   const stationId = await insertReferenceStation(new TenantScope(db, organisationId), catchmentId, c.stationName, c.stationElevationM);
-  await db('elevation_bands').insert(DEMO_BANDS.map((b, position) => ({
-    organisation_id: organisationId, catchment_id: catchmentId, position,
-    lower_m: b.lowerM, upper_m: b.upperM, area_km2: b.areaKm2, slope_deg: b.slopeDeg, aspect_deg: b.aspectDeg,
-    glacier_fraction: b.glacierFraction, debris_fraction: b.debrisFraction, debris_thickness_m: b.debrisThicknessM,
-  })));
+  await insertBandTable(new TenantScope(db, organisationId), catchmentId, DEMO_BANDS);
   const station = demoStation();
   const dataset = async (variable: Variable, step: 'hourly' | 'daily', first: string, last: string, count: number, station = stationId): Promise<number> => {
     const spec = variableSpec(variable);

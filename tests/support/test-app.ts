@@ -4,6 +4,7 @@ import { createApp } from '../../server/app';
 import { parseConfig, type AppConfig } from '../../server/config';
 import { createContext, type AppContext, type ContextOptions } from '../../server/context';
 import { createDb } from '../../server/db';
+import { createLogger } from '../../server/logger';
 
 export interface TestApp {
   app: Express;
@@ -22,8 +23,9 @@ export function createTestApp(overrides: Record<string, string> = {}, contextOpt
   if (!config.db.database.endsWith('_test')) {
     throw new Error(`Tests must run on a *_test database (got "${config.db.database}"); use npm test.`);
   }
-  const db = createDb(config.db);
-  const ctx = createContext(config, db, { bcryptCost: 4, ...contextOptions });
+  const logger = createLogger(config.log);
+  const db = createDb(config.db, logger);
+  const ctx = createContext(config, db, { bcryptCost: 4, logger, ...contextOptions });
   const app = createApp(ctx, { clientDir: overrides.CLIENT_DIR });
   const close = async () => {
     // Runs and lab jobs write to the database until they end; then the threads and the database can go.

@@ -1,7 +1,8 @@
 import bcrypt from 'bcryptjs';
 import type { Knex } from 'knex';
-import type { MeResponse, Role, SignInRequest, SignUpRequest } from '../../../shared/schemas/auth';
-import { AppError, conflict, unauthorized } from '../../errors';
+import type { MeResponse, PasswordChange, Role, SignInRequest } from '../../../shared/schemas/auth';
+import { AppError, unauthorized, validationFailed } from '../../errors';
+import { isCommonPassword } from './common-passwords';
 
 export interface UserRow {
   id: number;
@@ -16,8 +17,11 @@ export interface UserRow {
 }
 
 const INVALID_CREDENTIALS = 'E-mail or password is not right.';
+/** A wrong current password: not 401, which would end the session in the client; counted by the sign-in back-off. */
+export const WRONG_PASSWORD_STATUS = 403;
+const COMMON_PASSWORD = 'This password appears in published lists of breached passwords; choose another (a few unrelated words make a good one).';
 
-/** Sign-up, sign-in, sign-out and the signed-in user's profile. */
+/** Sign-in, sign-out, password changes and the signed-in user's profile (sign-up: members/sign-up-service.ts). */
 export class AuthService {
   // Compared against when the e-mail is unknown, so both answers take the same time.
   private readonly dummyHash: string;
@@ -29,27 +33,13 @@ export class AuthService {
     this.dummyHash = bcrypt.hashSync('not-a-real-password-used-for-timing', bcryptCost);
   }
 
-  hashPassword(password: string): Promise<string> {
+  /**
+   * The hash of a password being set (sign-up, invitation, reset, change), refused with a 422 on
+   * `field` when it is among the breach corpus's common passwords (ASVS 6.2.4).
+   */
+  hashNewPassword(password: string, field = 'password'): Promise<string> {
+    if (isCommonPassword(password)) throw validationFailed(COMMON_PASSWORD, field);
     return bcrypt.hash(password, this.bcryptCost);
-  }
-
-  /** Creates an organisation and its first admin in one transaction. */
-  async signUp(input: SignUpRequest): Promise<UserRow> {
-    const hash = await this.hashPassword(input.password);
-    return this.db.transaction(async (trx) => {
-      const taken = await trx('users').where({ email: input.email }).first('id');
-      if (taken) throw conflict('An account with this e-mail already exists.', 'email');
-      const [organisationId] = await trx('organisations').insert({ name: input.organisationName });
-      const [userId] = await trx('users').insert({
-        organisation_id: organisationId,
-        email: input.email,
-        name: input.name,
-        password_hash: hash,
-        role: 'admin',
-        status: 'active',
-      });
-      return (await trx<UserRow>('users').where({ id: userId }).first())!;
-    });
   }
 
   /** The user for these credentials; the same error for an unknown e-mail and a wrong password. */
@@ -61,6 +51,21 @@ export class AuthService {
     }
     await this.db('users').where({ id: user.id }).update({ last_sign_in_at: this.db.fn.now() });
     return user;
+  }
+
+  /**
+   * Sets a new password when the current one is given, and ends every session of the user
+   * (the caller starts a new one for the request that asked). Returns the updated user.
+   */
+  async changePassword(user: UserRow, input: PasswordChange): Promise<UserRow> {
+    const stored = await this.db<UserRow>('users').where({ id: user.id }).first('password_hash');
+    if (!stored?.password_hash || !(await bcrypt.compare(input.currentPassword, stored.password_hash))) {
+      throw new AppError(WRONG_PASSWORD_STATUS, 'wrong_password', 'This is not your current password.', 'currentPassword');
+    }
+    if (input.newPassword === input.currentPassword) throw validationFailed('Choose a password other than your current one.', 'newPassword');
+    const hash = await this.hashNewPassword(input.newPassword, 'newPassword');
+    await this.db('users').where({ id: user.id }).update({ password_hash: hash, token_version: this.db.raw('token_version + 1'), updated_at: new Date() });
+    return (await this.db<UserRow>('users').where({ id: user.id }).first())!;
   }
 
   /** Invalidates every token issued so far to this user. */

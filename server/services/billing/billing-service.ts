@@ -15,6 +15,7 @@ import {
 import type { TenantScope } from '../tenant-scope';
 import { callPayments } from './payments-client';
 import { isActive, lockOrganisation, NO_SUBSCRIPTION, seatsInUse, seatUsage, subscriptionOf, type SubscriptionRow } from './seats';
+import { openCheckoutOnce } from './pending-checkout';
 import { applySubscription } from './subscription-sync';
 
 /** Seat plans bought, resized and cancelled through the payment service; our table follows its answers and webhooks. */
@@ -45,19 +46,25 @@ export class BillingService {
     if (!isActive(await subscriptionOf(this.db, scope.organisationId))) throw paymentRequired(NO_SUBSCRIPTION);
   }
 
-  /** A checkout session on the payment service's page; the subscription arrives by webhook once paid. */
+  /**
+   * A checkout session on the payment service's page; the subscription arrives by webhook once
+   * paid. Under the organisation's lock, with at most one checkout open (see pending-checkout.ts):
+   * asking twice hands back the same page.
+   */
   async startCheckout(scope: TenantScope, admin: UserRow, request: CheckoutRequest): Promise<string> {
-    const row = await subscriptionOf(this.db, scope.organisationId);
-    if (row && row.status !== 'canceled') {
-      throw conflict('Your organisation already has a seat plan; change its seat count instead of buying another.');
-    }
-    const inUse = await seatsInUse(this.db, scope.organisationId);
-    if (request.seats < inUse) {
-      throw conflict(`${inUse} members take a seat; buy at least ${inUse} seats.`, 'seats');
-    }
-    const session = await this.openCheckout(scope.organisationId, { customer: row?.customer_ref, email: admin.email }, request);
-    if (!session.url) throw conflict('The payment service did not return a checkout page.');
-    return session.url;
+    return this.db.transaction(async (trx) => {
+      await lockOrganisation(trx, scope.organisationId);
+      const row = await subscriptionOf(trx, scope.organisationId);
+      if (row && row.status !== 'canceled') {
+        throw conflict('Your organisation already has a seat plan; change its seat count instead of buying another.');
+      }
+      const inUse = await seatsInUse(trx, scope.organisationId);
+      if (request.seats < inUse) {
+        throw conflict(`${inUse} members take a seat; buy at least ${inUse} seats.`, 'seats');
+      }
+      const payer = { customer: row?.customer_ref, email: admin.email };
+      return openCheckoutOnce(trx, this.payments, scope.organisationId, request, (key) => this.openCheckout(scope.organisationId, payer, request, key));
+    });
   }
 
   /** A checkout session for this organisation; the subscription it creates carries the organisation's id. */
@@ -65,6 +72,7 @@ export class BillingService {
     organisationId: number,
     payer: { customer?: string; email: string },
     request: CheckoutRequest,
+    idempotencyKey?: string,
   ): Promise<Stripe.Checkout.Session> {
     const price = await this.priceFor(request.interval);
     const base = this.config.publicUrl;
@@ -79,7 +87,7 @@ export class BillingService {
         subscription_data: { metadata: { organisation_id: organisation } },
         success_url: `${base}/billing?checkout=done`,
         cancel_url: `${base}/billing?checkout=cancelled`,
-      }),
+      }, idempotencyKey ? { idempotencyKey } : undefined),
     );
   }
 

@@ -1,8 +1,10 @@
 import type { Knex } from 'knex';
 import type Stripe from 'stripe';
+import { isUniqueViolation } from '../../db-errors';
 import { badRequest } from '../../errors';
-import { toAppError } from './payments-client';
-import { lockOrganisation } from './seats';
+import type { Logger } from '../../logger';
+import { callPayments, toAppError } from './payments-client';
+import { lockOrganisation, subscriptionOf, type SubscriptionRow } from './seats';
 import { applySubscription, organisationIdOf, refOf } from './subscription-sync';
 
 type RefField = string | { id: string } | null | undefined;
@@ -19,8 +21,6 @@ export function subscriptionRefOf(event: Stripe.Event): string | null {
   return null;
 }
 
-const isDuplicateKey = (error: unknown) => (error as { code?: string }).code === 'ER_DUP_ENTRY';
-
 /**
  * Applies signed webhook events. Each event id is stored once (primary key) in the same
  * transaction that applies it, so duplicates and replays change nothing. Events are not
@@ -32,6 +32,7 @@ export class WebhookService {
     private readonly db: Knex,
     private readonly payments: Stripe,
     private readonly secret: string,
+    private readonly logger: Logger,
   ) {}
 
   verify(rawBody: Buffer, signature: string | undefined): Stripe.Event {
@@ -50,6 +51,7 @@ export class WebhookService {
     // Read once to learn the organisation; read again under its lock for the state to keep.
     const first = ref ? await this.retrieve(ref) : null;
     const organisationId = first ? await this.knownOrganisation(organisationIdOf(first)) : null;
+    let second: Stripe.Subscription | null = null;
     try {
       await this.db.transaction(async (trx) => {
         // Lock first: inserting the event (its foreign key) would otherwise take a shared lock on the
@@ -58,13 +60,41 @@ export class WebhookService {
         await trx('payment_events').insert({ id: event.id, type: event.type, organisation_id: organisationId });
         if (!ref || !organisationId) return;
         const current = await this.retrieve(ref);
-        if (current) await applySubscription(trx, organisationId, current);
+        if (!current) return;
+        if (isSecondSubscription(await subscriptionOf(trx, organisationId), current)) {
+          second = current;
+          return;
+        }
+        await applySubscription(trx, organisationId, current);
+        if (current.status === 'active') await trx('pending_checkouts').where({ organisation_id: organisationId }).delete();
       });
-      return true;
     } catch (error) {
-      if (isDuplicateKey(error)) return false;
+      if (isUniqueViolation(error)) return false;
       throw error;
     }
+    if (second) await this.cancelAndRefund(organisationId!, second);
+    return true;
+  }
+
+  /**
+   * A second paid subscription for an organisation that already has an active one (two
+   * checkouts paid despite everything): it is ended at the service at once and what it charged
+   * is refunded, and the log says so. Our table keeps the first.
+   */
+  private async cancelAndRefund(organisationId: number, subscription: Stripe.Subscription): Promise<void> {
+    await callPayments(() => this.payments.subscriptions.cancel(subscription.id));
+    const invoices = await callPayments(() => this.payments.invoices.list({ subscription: subscription.id, status: 'paid', limit: 100 }));
+    let refunded = 0;
+    for (const invoice of invoices.data) {
+      const paid = await callPayments(() => this.payments.invoicePayments.list({ invoice: invoice.id! }));
+      for (const payment of paid.data) {
+        const intent = refOf(payment.payment.payment_intent);
+        if (!intent) continue;
+        const refund = await callPayments(() => this.payments.refunds.create({ payment_intent: intent, reason: 'duplicate' }));
+        refunded += refund.amount;
+      }
+    }
+    this.logger.warn({ organisationId, subscription: subscription.id, refunded }, 'second subscription cancelled and refunded');
   }
 
   private async knownOrganisation(id: number | null): Promise<number | null> {
@@ -81,4 +111,9 @@ export class WebhookService {
       throw toAppError(error);
     }
   }
+}
+
+/** The subscription arriving is active and another one of the organisation is active in our table. */
+function isSecondSubscription(row: SubscriptionRow | undefined, arriving: Stripe.Subscription): boolean {
+  return row?.status === 'active' && row.subscription_ref !== arriving.id && (arriving.status === 'active' || arriving.status === 'trialing');
 }

@@ -1,3 +1,4 @@
+import { CURRENT_TABLE_SQL } from '../catchments/band-tables';
 import {
   briefingSnapshotSchema, runSelectionSchema, type AuditItem, type BriefingListItem, type BriefingSnapshot, type Draft, type DraftSection,
   type CreateBriefing, type Reading, type SaveDraft,
@@ -99,7 +100,7 @@ export class BriefingService {
   async assemble(scope: TenantScope, user: UserRow, id: number, version: number): Promise<BriefingSnapshot> {
     const b = await scope.findOr404<BriefingRow>('briefings', id, 'Briefing');
     const catchment = await scope.findOr404<CatchmentRow>('catchments', b.catchment_id, 'Catchment');
-    const bands: { area_km2: number }[] = await scope.from('elevation_bands').where({ catchment_id: b.catchment_id }).select('area_km2');
+    const bands: { area_km2: number }[] = await scope.from('elevation_bands').whereRaw(CURRENT_TABLE_SQL, [b.catchment_id]).select('area_km2');
     const organisation = await scope.db('organisations').where({ id: scope.organisationId }).first('name');
     const sections: DraftSection[] = await draftSectionsOf(scope, id);
     return assembleSnapshot({

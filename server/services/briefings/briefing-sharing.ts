@@ -1,6 +1,6 @@
 import { rolesWith } from '../../../shared/access/capabilities';
 import type { CommentItem } from '../../../shared/schemas/briefings';
-import { conflict, notFound, validationFailed } from '../../errors';
+import { notFound, validationFailed } from '../../errors';
 import type { UserRow } from '../auth/auth-service';
 import type { InvitationService } from '../members/invitation-service';
 import type { TenantScope } from '../tenant-scope';
@@ -16,7 +16,8 @@ export class BriefingSharing {
 
   /**
    * Shares with each address: an existing client of this organisation, or a new client account
-   * created by invitation. Team members and other organisations' addresses are refused by field.
+   * created by invitation. Team members are refused by field; another organisation's address is
+   * left out without saying so (its owner is told by mail), as when it is invited to the team.
    */
   async share(scope: TenantScope, actor: UserRow, briefingId: number, emails: string[]): Promise<void> {
     await scope.findOr404('briefings', briefingId, 'Briefing');
@@ -24,11 +25,11 @@ export class BriefingSharing {
       const field = `emails.${i}`;
       const existing = await scope.db('users').where({ email }).first('id', 'organisation_id', 'role');
       let userId: number;
-      if (!existing) {
-        userId = (await this.invitations.invite(scope, actor, { email, name: nameFromEmail(email), role: 'client' })).id;
+      if (!existing || existing.organisation_id !== scope.organisationId) {
+        const invited = await this.invitations.invite(scope, actor, { email, name: nameFromEmail(email), role: 'client' });
+        if (!invited) continue;
+        userId = invited.id;
         await recordEvent(scope, briefingId, actor, 'invited', null, email);
-      } else if (existing.organisation_id !== scope.organisationId) {
-        throw conflict(`${email} belongs to another organisation's account and cannot read your briefings.`, field);
       } else if (existing.role !== 'client') {
         throw validationFailed(`${email} is a ${existing.role} in your team, not a client; team members open briefings from the list.`, field);
       } else userId = existing.id;

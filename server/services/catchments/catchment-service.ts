@@ -1,7 +1,7 @@
 import type { Knex } from 'knex';
 import type { Catchment, CatchmentFields, catchmentListQuerySchema } from '../../../shared/schemas/catchments';
 import type { z } from 'zod';
-import { conflict } from '../../errors';
+import { conflict, notFound } from '../../errors';
 import type { TenantScope } from '../tenant-scope';
 import { insertBaseline } from './baseline-scenario';
 import { insertReferenceStation, syncReferenceStation } from '../stations/reference-station';
@@ -68,9 +68,11 @@ export function toCatchment(row: CatchmentRow): Catchment {
 export class CatchmentService {
   /** The row with its band and dataset counts, or 404. */
   async get(scope: TenantScope, id: number): Promise<Catchment> {
-    await scope.findOr404('catchments', id, 'Catchment');
-    const row = await withCounts(scope.from<CatchmentRow>('catchments'), scope.db).where('catchments.id', id).first();
-    return toCatchment(row as CatchmentRow);
+    const row = Number.isSafeInteger(id) && id > 0
+      ? ((await withCounts(scope.from<CatchmentRow>('catchments'), scope.db).where('catchments.id', id).first()) as CatchmentRow | undefined)
+      : undefined;
+    if (!row) throw notFound('Catchment');
+    return toCatchment(row);
   }
 
   async list(scope: TenantScope, query: z.output<typeof catchmentListQuerySchema>) {
@@ -84,13 +86,16 @@ export class CatchmentService {
         q.where('catchments.name', 'like', like).orWhere('catchments.station_name', 'like', like).orWhere('catchments.description', 'like', like);
       });
     }
-    const [{ total }] = await base.clone().count({ total: '*' });
-    const rows = await withCounts(base, scope.db)
+    // The total comes with the page (a window count before LIMIT): one query instead of two.
+    const rows = (await withCounts(base.clone(), scope.db)
+      .select(scope.db.raw('count(*) over () as total_count'))
       .orderBy(`catchments.${SORT_COLUMNS[query.sort]}`, query.descending ? 'desc' : 'asc')
       .orderBy('catchments.id')
       .limit(query.perPage)
-      .offset((query.page - 1) * query.perPage);
-    return { catchments: (rows as CatchmentRow[]).map(toCatchment), total: Number(total), page: query.page, perPage: query.perPage };
+      .offset((query.page - 1) * query.perPage)) as (CatchmentRow & { total_count: number })[];
+    // A page past the end has no row to carry the total.
+    const total = rows[0] ? rows[0].total_count : query.page > 1 ? Number((await base.clone().count({ n: '*' }))[0]!.n) : 0;
+    return { catchments: rows.map(toCatchment), total: Number(total), page: query.page, perPage: query.perPage };
   }
 
   /** A new catchment with its baseline scenario and its reference station, in one transaction. */
@@ -148,7 +153,8 @@ export class CatchmentService {
 function withCounts(query: Knex.QueryBuilder, db: Knex | Knex.Transaction): Knex.QueryBuilder {
   return query.select(
     'catchments.*',
-    db('elevation_bands').count('*').whereRaw('elevation_bands.catchment_id = catchments.id').as('band_count'),
+    // The newest band table version's own count (kept with it): one index lookup per catchment.
+    db('band_tables').select('band_tables.band_count').whereRaw('band_tables.catchment_id = catchments.id').orderBy('band_tables.version', 'desc').limit(1).as('band_count'),
     db('datasets').count('*').whereRaw('datasets.catchment_id = catchments.id').as('dataset_count'),
   );
 }

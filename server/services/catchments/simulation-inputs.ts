@@ -102,7 +102,7 @@ async function spinUpFrom(scope: TenantScope, catchmentId: number, periodFrom: s
 
 async function assemble(scope: TenantScope, bands: BandService, catchment: CatchmentRow, p: z.output<typeof simulationPeriodSchema>, from: string): Promise<AssembledInputs> {
   const catchmentId = catchment.id;
-  const bandRows = await bands.list(scope, catchmentId);
+  const bandRows = await bands.list(scope, catchmentId, { terrain: true });
   const rows: DatasetRow[] = await drivingDatasets(scope, catchmentId).orderBy('datasets.id', 'desc');
   const newest = (variable: Variable, step?: TimeStep) => rows.find((r) => r.variable === variable && (!step || r.time_step === step));
 

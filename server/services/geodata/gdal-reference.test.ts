@@ -148,3 +148,12 @@ describe('outlines, warping and zonal statistics against GDAL', () => {
   });
 });
 
+
+describe('GeoTIFFs written here, read by GDAL', () => {
+  it.each(['float32', 'int16'] as const)('GDAL reads a %s GeoTIFF cell for cell (gdallocationinfo), nodata included', (type) => {
+    const values = Float32Array.from([-120, 0, 3, 6500, NaN, 8848]);
+    const file = scratch.write(`cells-${type}.tif`, { width: 3, height: 2, x0: 500_000, y0: 3_800_000, dx: 30, dy: 30, values, crs: UTM44N }, { type });
+    const read = [0, 1, 2, 3, 4, 5].map((k) => Number(gdal('gdallocationinfo', ['-valonly', file, String(k % 3), String(Math.floor(k / 3))]).trim()));
+    expect(read).toEqual([-120, 0, 3, 6500, -9999, 8848]);
+  });
+});

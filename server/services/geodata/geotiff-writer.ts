@@ -36,5 +36,7 @@ export function encodeGeoTiff(raster: Raster, options: EncodeOptions = {}): Uint
     ...(geographic ? { GeographicTypeGeoKey: raster.crs.epsg } : { ProjectedCSTypeGeoKey: raster.crs.epsg }),
     GDAL_NODATA: String(nodata),
   };
-  return new Uint8Array(writeArrayBuffer(values, metadata));
+  // geotiff's writer has no branch for Int16Array: signed 16-bit cells go as their unsigned bit patterns (SampleFormat says signed).
+  const written = values instanceof Int16Array ? new Uint16Array(values.buffer) : values;
+  return new Uint8Array(writeArrayBuffer(written, metadata));
 }

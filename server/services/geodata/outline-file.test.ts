@@ -3,7 +3,7 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { GeodataError } from '../../../shared/geodata/errors';
 import { outlineArea } from '../../../shared/geodata/outline';
 import { readOutlineFile } from './outline-file';
-import { gdal, scratchFolder } from './test-support/gdal';
+import { scratchFolder, zippedShapefile } from './test-support/gdal';
 import { storeZip } from './test-support/store-zip';
 
 const scratch = scratchFolder();
@@ -22,17 +22,6 @@ const square = {
   }],
 };
 
-/** Writes `json` as a shapefile with ogr2ogr (GDAL) and zips the parts that `keep` selects. */
-function zippedShapefile(name: string, json: object, keep: (file: string) => boolean = () => true): string {
-  const folder = scratch.path(`${name}-parts`);
-  const source = scratch.path(`${name}.geojson`);
-  writeFileSync(source, JSON.stringify(json));
-  gdal('ogr2ogr', ['-q', '-f', 'ESRI Shapefile', folder, source, '-nln', name]);
-  const files = readdirSync(folder).filter(keep).map((f) => ({ name: `${name}/${f}`, data: readFileSync(`${folder}/${f}`) }));
-  const zip = scratch.path(`${name}.zip`);
-  writeFileSync(zip, storeZip(files));
-  return zip;
-}
 
 async function refusal(path: string, originalName: string): Promise<GeodataError> {
   try {
@@ -46,7 +35,7 @@ async function refusal(path: string, originalName: string): Promise<GeodataError
 
 describe('outline files', () => {
   it('reads a zipped shapefile written by ogr2ogr, with its hole and its .prj system', async () => {
-    const outline = await readOutlineFile(zippedShapefile('basin', square), 'basin.zip', 'catchmentOutline');
+    const outline = await readOutlineFile(zippedShapefile(scratch, 'basin', square), 'basin.zip', 'catchmentOutline');
     expect(outline.crs.kind).toBe('projected');
     expect(outline.crs.linearUnit).toBe('metre');
     expect(outline.polygons).toHaveLength(1);
@@ -62,21 +51,21 @@ describe('outline files', () => {
   });
 
   it('a shapefile without its .prj has no coordinate system', async () => {
-    const error = await refusal(zippedShapefile('noprj', square, (f) => !f.endsWith('.prj')), 'noprj.zip');
+    const error = await refusal(zippedShapefile(scratch, 'noprj', square, (f) => !f.endsWith('.prj')), 'noprj.zip');
     expect(error.code).toBe('no_crs');
     expect(error.message).toMatch(/no \.prj/);
   });
 
   it('an empty shapefile says it holds no shapes', async () => {
     const empty = { ...square, features: [] };
-    const zip = zippedShapefile('empty', { ...empty, features: [] });
+    const zip = zippedShapefile(scratch, 'empty', { ...empty, features: [] });
     const error = await refusal(zip, 'empty.zip');
     expect(error.code).toBe('empty_outline');
   });
 
   it('a shapefile of points is not an outline', async () => {
     const points = { ...square, features: [{ type: 'Feature', properties: { name: 'a' }, geometry: { type: 'Point', coordinates: [560000, 3750000] } }] };
-    const error = await refusal(zippedShapefile('points', points), 'points.zip');
+    const error = await refusal(zippedShapefile(scratch, 'points', points), 'points.zip');
     expect(error.code).toBe('bad_geometry');
     expect(error.message).toMatch(/points, not polygons/);
   });
@@ -96,7 +85,7 @@ describe('outline files', () => {
   });
 
   it('a cut-short .shp inside the zip is refused with its sizes', async () => {
-    const zip = zippedShapefile('cut', square);
+    const zip = zippedShapefile(scratch, 'cut', square);
     const shp = readdirSync(scratch.path('cut-parts')).find((f) => f.endsWith('.shp')) as string;
     const parts = readdirSync(scratch.path('cut-parts')).map((f) => {
       const data = readFileSync(scratch.path(`cut-parts/${f}`));

@@ -2,6 +2,7 @@ import type { Knex } from 'knex';
 import type { LabJob } from '../../../shared/schemas/lab';
 import { conflict } from '../../errors';
 import type { UserRow } from '../auth/auth-service';
+import { settledWithin } from '../settled-within';
 import type { TenantScope } from '../tenant-scope';
 
 interface JobRow {
@@ -24,6 +25,8 @@ export type JobWork = (signal: AbortSignal, report: (fraction: number, message?:
 
 const PROGRESS_WRITE_MS = 300;
 const RESTART_MESSAGE = 'The server restarted before this job finished; start it again.';
+/** The abort reason of jobs cut by a shutdown (a member's cancel gives another). */
+const SHUTDOWN = new Error(RESTART_MESSAGE);
 
 function toJob(row: JobRow): LabJob {
   return {
@@ -94,9 +97,16 @@ export class LabJobs {
     return this.get(scope, id);
   }
 
-  /** Resolves when no job is running (tests and shutdown). */
+  /** Resolves when no job is running (tests). */
   async idle(): Promise<void> {
     while (this.running.size > 0) await Promise.allSettled([...this.running]);
+  }
+
+  /** Shutdown within a deadline: waits up to `graceMs` for the jobs running, then ends the rest as failed with the restart message. */
+  async stop(graceMs: number): Promise<void> {
+    if (await settledWithin(this.idle(), graceMs)) return;
+    for (const controller of this.active.values()) controller.abort(SHUTDOWN);
+    await this.idle();
   }
 
   private async idleJob(id: number): Promise<void> {
@@ -118,8 +128,9 @@ export class LabJobs {
       await this.db('lab_jobs').where('id', id).update({ status: 'done', progress: 1, message: '', result: JSON.stringify(result), finished_at: this.db.fn.now() });
     } catch (error) {
       await pending.catch(() => undefined);
-      const cancelled = signal.aborted;
-      const message = cancelled ? 'Cancelled by a member of the organisation.' : (error instanceof Error ? error.message : String(error)).slice(0, 2000);
+      const cancelled = signal.aborted && signal.reason !== SHUTDOWN;
+      const message = cancelled ? 'Cancelled by a member of the organisation.'
+        : signal.aborted ? RESTART_MESSAGE : (error instanceof Error ? error.message : String(error)).slice(0, 2000);
       await this.db('lab_jobs').where('id', id).update({ status: cancelled ? 'cancelled' : 'failed', error_message: message, finished_at: this.db.fn.now() });
     }
   }

@@ -18,6 +18,7 @@ import type { CalibrationStore } from './calibration-store';
 import { LabData } from './lab-data';
 import type { WaterServices } from '../water';
 import { LabJobs } from './lab-jobs';
+import { RemoteSensingLab } from './remote-sensing-lab';
 import type { LabPool } from './lab-pool';
 
 /** Worker tasks per thread in a sweep: a few, so every thread stays busy to the end. */
@@ -27,10 +28,13 @@ const TASKS_PER_THREAD = 4;
 export class LabService {
   readonly data: LabData;
   readonly jobs: LabJobs;
+  /** Snow-cover maps and the geodetic balance as calibration targets. */
+  readonly remoteSensing: RemoteSensingLab;
 
   constructor(db: Knex, bands: BandService, readonly pool: LabPool, readonly calibrations: CalibrationStore, water: WaterServices) {
     this.data = new LabData(bands, water.waterInputs);
     this.jobs = new LabJobs(db);
+    this.remoteSensing = new RemoteSensingLab(this.data, pool, (scope, catchmentId) => this.calibratedParameters(scope, catchmentId));
   }
 
   /**
@@ -135,9 +139,11 @@ export class LabService {
     const span = { from: periods.reduce((a, p) => (p.from < a ? p.from : a), request.period.from), to: periods.reduce((a, p) => (p.to > a ? p.to : a), request.period.to) };
     const site = await this.data.site(scope, catchmentId, span, start);
     const common = { site, keys: request.keys, start, period: request.period, validationPeriod: request.validationPeriod, maxEvaluations: request.maxEvaluations, seed: request.seed };
-    const task: LabTask = request.target === 'stakes'
-      ? { kind: 'calibrateStakes', ...common, observed: await this.data.observedStakes(scope, catchmentId) }
-      : { kind: 'calibrate', ...common, observed: await this.data.observedDischarge(scope, catchmentId, span) };
+    const task: LabTask = request.target === 'snowCover' || request.target === 'geodetic'
+      ? await this.remoteSensing.calibrationTask(scope, catchmentId, request, start)
+      : request.target === 'stakes'
+        ? { kind: 'calibrateStakes', ...common, observed: await this.data.observedStakes(scope, catchmentId) }
+        : { kind: 'calibrate', ...common, observed: await this.data.observedDischarge(scope, catchmentId, span) };
     const onProgress = (report: (fraction: number, message: string) => void) => (fraction: number) =>
       report(fraction, `${Math.round(fraction * request.maxEvaluations)} of at most ${request.maxEvaluations} model runs`);
     return this.jobs.start(scope, user, catchmentId, 'calibration', request, (signal, report) => this.pool.run(

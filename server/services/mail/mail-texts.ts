@@ -34,3 +34,46 @@ export function passwordResetMail(input: { link: string; validMinutes: number })
     ].join('\n'),
   };
 }
+
+/** To a new address that asked for an account: the link that finishes it. */
+export function signUpMail(input: { organisationName: string; link: string; validDays: number }): { subject: string; text: string } {
+  return {
+    subject: 'Finish creating your Tarnish account',
+    text: [
+      `Someone (we hope you) asked to create a Tarnish account for ${input.organisationName} with this address.`,
+      '',
+      'Open this link to confirm the address and sign in:',
+      input.link,
+      '',
+      `The link works once and for ${input.validDays} days. If you did not ask for an account, ignore this mail and nothing happens.`,
+    ].join('\n'),
+  };
+}
+
+/** To an address that already has an account, when someone asks for another one with it: the answer goes to its owner only. */
+export function accountExistsMail(input: { signInLink: string; resetLink: string }): { subject: string; text: string } {
+  return {
+    subject: 'Your address already has a Tarnish account',
+    text: [
+      'Someone asked to create a new Tarnish account with this address, which already has one, so no new account was made.',
+      '',
+      `If it was you, sign in: ${input.signInLink}`,
+      `Forgot your password? Choose a new one: ${input.resetLink}`,
+      '',
+      'If it was not you, ignore this mail; your account is unchanged.',
+    ].join('\n'),
+  };
+}
+
+/** To an address of another organisation's account that an admin tried to invite: told here, not to the inviter. */
+export function invitationRefusedMail(input: { organisationName: string }): { subject: string; text: string } {
+  return {
+    subject: 'An invitation to Tarnish could not be sent to this address',
+    text: [
+      `${input.organisationName} tried to invite this address to their Tarnish team. It already belongs to a Tarnish account,`,
+      'and an address can belong to one organisation only, so no invitation was made.',
+      '',
+      'If you want to join them, give them another address of yours. Otherwise ignore this mail.',
+    ].join('\n'),
+  };
+}

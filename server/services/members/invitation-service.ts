@@ -5,13 +5,13 @@ import type { AuthService, UserRow } from '../auth/auth-service';
 import { assertFreeSeats, lockOrganisation, takesSeat } from '../billing/seats';
 import { hashMailToken, newMailToken } from '../mail/mail-tokens';
 import type { MailService } from '../mail/mail-service';
-import { invitationMail } from '../mail/mail-texts';
+import { invitationMail, invitationRefusedMail } from '../mail/mail-texts';
 import type { TenantScope } from '../tenant-scope';
 import type { MembersService } from './members-service';
 import { invalidLink, tooManyMails } from './mail-link-errors';
 
 export const INVITATION_VALID_DAYS = 7;
-const EMAIL_TAKEN = 'This address already has a Tarnish account.';
+const ALREADY_MEMBER = 'This address is already a member of your team.';
 
 /** Invitations by mail: an `invited` member holding a seat, and a single-use token to join with. */
 export class InvitationService {
@@ -23,9 +23,19 @@ export class InvitationService {
     private readonly publicUrl: () => string,
   ) {}
 
-  /** Counting seats and adding the member happen under the organisation's lock, so seats can never be exceeded. */
-  async invite(scope: TenantScope, inviter: UserRow, request: InvitationRequest): Promise<Member> {
+  /**
+   * Counting seats and adding the member happen under the organisation's lock, so seats can never
+   * be exceeded. An address of another organisation's account is not invited and not named to the
+   * inviter: its owner is told by mail, and the inviter gets the same answer as for a new address
+   * (null instead of the member).
+   */
+  async invite(scope: TenantScope, inviter: UserRow, request: InvitationRequest): Promise<Member | null> {
     if (!(await this.mail.withinLimit(request.email))) throw tooManyMails();
+    const foreign = await this.db('users').where({ email: request.email }).whereNot({ organisation_id: scope.organisationId }).first('id');
+    if (foreign) {
+      await this.tellOwnerOfRefusal(scope, request.email);
+      return null;
+    }
     const { id, token } = await scope.transaction(async (s) => {
       const trx = s.db as Knex.Transaction;
       await lockOrganisation(trx, s.organisationId);
@@ -36,13 +46,9 @@ export class InvitationService {
         await s.from('users').where({ id: existing.id }).update({ name: request.name, role: request.role, status: 'invited', password_hash: null, updated_at: new Date() });
         return { id: existing.id as number, token: await this.issueToken(trx, s.organisationId, existing.id, inviter.id) };
       }
-      if (existing) throw conflict(EMAIL_TAKEN, 'email');
-      const userId = await s
-        .insert('users', { email: request.email, name: request.name, role: request.role, status: 'invited' })
-        .catch((error: unknown) => {
-          // Two admins inviting the same address at once: the unique key decides.
-          throw (error as { code?: string }).code === 'ER_DUP_ENTRY' ? conflict(EMAIL_TAKEN, 'email') : error;
-        });
+      if (existing) throw conflict(ALREADY_MEMBER, 'email');
+      // Two admins inviting the same address at once: the unique key decides (409, by the error handler).
+      const userId = await s.insert('users', { email: request.email, name: request.name, role: request.role, status: 'invited' });
       return { id: userId, token: await this.issueToken(trx, s.organisationId, userId, inviter.id) };
     });
     await this.sendInvitation(scope, inviter, id, token);
@@ -72,7 +78,7 @@ export class InvitationService {
 
   /** Uses the token (once), sets the password and makes the member active. */
   async accept(input: AcceptInvitation): Promise<{ email: string }> {
-    const passwordHash = await this.auth.hashPassword(input.password);
+    const passwordHash = await this.auth.hashNewPassword(input.password);
     return this.db.transaction(async (trx) => {
       const invitation = await trx('invitations')
         .where({ token_hash: hashMailToken(input.token) })
@@ -89,6 +95,12 @@ export class InvitationService {
         .update({ name: input.name, password_hash: passwordHash, status: 'active', updated_at: new Date() });
       return { email: user.email };
     });
+  }
+
+  private async tellOwnerOfRefusal(scope: TenantScope, email: string): Promise<void> {
+    const organisation = await this.db('organisations').where({ id: scope.organisationId }).first('name');
+    const mail = { to: email, kind: 'invitation_refused' as const, ...invitationRefusedMail({ organisationName: organisation.name }) };
+    void this.mail.send(mail).catch(() => undefined);
   }
 
   private async issueToken(trx: Knex.Transaction, organisationId: number, userId: number, inviterId: number): Promise<string> {

@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
 import type { ResetComplete } from '../../../shared/schemas/members';
+import type { Logger } from '../../logger';
 import type { AuthService, UserRow } from '../auth/auth-service';
 import { hashMailToken, newMailToken } from '../mail/mail-tokens';
 import type { MailService } from '../mail/mail-service';
@@ -15,6 +16,7 @@ export class PasswordResetService {
     private readonly auth: AuthService,
     private readonly mail: MailService,
     private readonly publicUrl: () => string,
+    private readonly logger: Logger,
   ) {}
 
   /**
@@ -32,13 +34,13 @@ export class PasswordResetService {
     });
     const content = passwordResetMail({ link: `${this.publicUrl()}/reset-password?token=${token}`, validMinutes: RESET_VALID_MINUTES });
     void this.mail.send({ to: email, kind: 'password_reset', ...content }).catch((error: unknown) => {
-      console.error(`[mail] password reset mail not sent: ${(error as Error).message}`);
+      this.logger.error({ err: error, mail: 'password_reset', userId: user.id }, 'mail not sent');
     });
   }
 
   /** Uses the token once, sets the password, ends every session and voids the user's other reset links. */
   async complete(input: ResetComplete): Promise<void> {
-    const passwordHash = await this.auth.hashPassword(input.password);
+    const passwordHash = await this.auth.hashNewPassword(input.password);
     await this.db.transaction(async (trx: Knex.Transaction) => {
       const reset = await trx('password_reset_tokens')
         .where({ token_hash: hashMailToken(input.token) })

@@ -2,6 +2,7 @@ import { setMaxListeners } from 'node:events';
 import type { Knex } from 'knex';
 import type { MemberPlan } from '../../../shared/analysis/run-plan';
 import type { MemberInput, MemberSummary } from '../../../shared/analysis/simulate-summary';
+import { settledWithin } from '../settled-within';
 import { TenantScope } from '../tenant-scope';
 import type { Simulator } from './simulator';
 import { storeMembers } from './run-store';
@@ -16,6 +17,8 @@ export interface RunJob {
 /** How often progress is written to the run row while simulating. */
 const PROGRESS_WRITE_MS = 300;
 const RESTART_MESSAGE = 'The server restarted before this run finished; start it again.';
+/** The abort reason of runs cut by a shutdown (a member's cancel aborts without one). */
+const SHUTDOWN = new Error(RESTART_MESSAGE);
 
 function failureMessage(error: unknown): string {
   const message = error instanceof Error ? error.message : String(error);
@@ -62,9 +65,21 @@ export class RunExecutor {
     return true;
   }
 
-  /** Resolves when nothing is queued or running (tests and shutdown). */
+  /** Resolves when nothing is queued or running (tests). */
   async idle(): Promise<void> {
     while (this.finished.size > 0 || this.queue.length > 0) await Promise.all([...this.finished]);
+  }
+
+  /**
+   * Shutdown within a deadline: waits up to `graceMs` for the runs in hand, then ends those still
+   * queued or running as failed with the restart message (what `recover` would mark them at the
+   * next start), so a long ensemble never holds the process up.
+   */
+  async stop(graceMs: number): Promise<void> {
+    if (await settledWithin(this.idle(), graceMs)) return;
+    for (const job of this.queue.splice(0)) await this.finish(job.runId, 'failed', RESTART_MESSAGE);
+    for (const controller of this.active.values()) controller.abort(SHUTDOWN);
+    await this.idle();
   }
 
   private next(): void {
@@ -103,7 +118,8 @@ export class RunExecutor {
       await storeMembers(new TenantScope(this.db, job.organisationId), runId, job.members.map((m, i) => ({ plan: m.plan, summary: summaries[i] })));
       await this.finish(runId, 'done', null);
     } catch (error) {
-      if (signal.aborted) await this.finish(runId, 'cancelled', null);
+      if (signal.aborted && signal.reason === SHUTDOWN) await this.finish(runId, 'failed', RESTART_MESSAGE);
+      else if (signal.aborted) await this.finish(runId, 'cancelled', null);
       else await this.finish(runId, 'failed', failureMessage(error));
     }
   }

@@ -146,6 +146,8 @@ export class RunService {
       // A multi-decade run has years instead of a period.
       period_from: transient ? null : period?.from ?? null, period_to: transient ? null : period?.to ?? null,
       start_options: JSON.stringify(request.start), water_side: JSON.stringify(waterSide), transient_options: request.transient ? JSON.stringify(request.transient) : null, created_by: userId,
+      // The band table version in use, which later saves leave in place for this run.
+      band_table_id: scope.db.raw('(SELECT MAX(id) FROM band_tables WHERE catchment_id = ?)', [catchmentId]),
     });
     const run = await this.get(scope, catchmentId, id);
     this.executor.enqueue({ runId: id, organisationId: scope.organisationId, members });

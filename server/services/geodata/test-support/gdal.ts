@@ -1,5 +1,6 @@
 import { execFileSync } from 'node:child_process';
-import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { storeZip } from './store-zip';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { crsFromEpsg } from '../../../../shared/geodata/crs';
@@ -66,3 +67,15 @@ export function testSurface(kind: 'plane' | 'cone' | 'paraboloid' | 'mountain', 
   return { width, height, ...ORIGIN, dx: cell, dy: cell, values, crs: UTM44N };
 }
 
+
+/** Writes `json` as a shapefile with ogr2ogr (GDAL) in the scratch folder and zips the parts that `keep` selects; returns the zip's path. */
+export function zippedShapefile(scratch: ReturnType<typeof scratchFolder>, name: string, json: object, keep: (file: string) => boolean = () => true): string {
+  const folder = scratch.path(`${name}-parts`);
+  const source = scratch.path(`${name}.geojson`);
+  writeFileSync(source, JSON.stringify(json));
+  gdal('ogr2ogr', ['-q', '-f', 'ESRI Shapefile', folder, source, '-nln', name]);
+  const files = readdirSync(folder).filter(keep).map((f) => ({ name: `${name}/${f}`, data: readFileSync(`${folder}/${f}`) }));
+  const zip = scratch.path(`${name}.zip`);
+  writeFileSync(zip, storeZip(files));
+  return zip;
+}

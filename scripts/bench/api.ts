@@ -1,0 +1,121 @@
+/**
+ * npm run bench:api — the API under load on loopback: autocannon with 100 connections against
+ * GET /api/health (no database, no session), GET /api/catchments (signed in, a tenant-scoped
+ * database read) and PUT /api/catchments/:id (signed in, a database write), each for a bounded
+ * time, several rounds, printing req/s and latency p50/p99 beside the machine's load average
+ * (other work on the machine shows in the figures).
+ *
+ * Runs against the database in the environment (DB_* variables, as the server), inside a
+ * throw-away organisation (30 catchments of 21 bands) that is removed afterwards; 20 more
+ * throw-away organisations of the same size stand for the other tenants a list must skip.
+ * The API runs in a process of its own (scripts/bench/runs-server.ts).
+ * BENCH_SECONDS (default 8) and BENCH_ROUNDS (default 3) bound the time.
+ */
+import autocannon from 'autocannon';
+import bcrypt from 'bcryptjs';
+import { availableParallelism, loadavg } from 'node:os';
+import { loadConfig } from '../../server/config';
+import { createDb } from '../../server/db';
+import { DEMO_BANDS, DEMO_CATCHMENT } from '../../seeds/data/demo-catchment';
+import { insertBandTable } from '../../server/services/catchments/band-tables';
+import { TenantScope } from '../../server/services/tenant-scope';
+import { startApiProcess } from './api-process';
+
+const SECONDS = Number(process.env.BENCH_SECONDS ?? 8);
+const ROUNDS = Number(process.env.BENCH_ROUNDS ?? 3);
+const CONNECTIONS = 100;
+const CATCHMENTS_PER_ORG = 30;
+const OTHER_ORGS = 20;
+const PASSWORD = 'benchmark-only-password';
+
+const config = loadConfig();
+const db = createDb(config.db);
+const stamp = Date.now();
+const organisationIds: number[] = [];
+
+/** An organisation with a consultant and its catchments (with bands); the first catchment's id. */
+async function addOrganisation(label: string, email?: string): Promise<number> {
+  const [organisationId] = await db('organisations').insert({ name: `API benchmark ${label} ${stamp}` });
+  organisationIds.push(organisationId);
+  if (email) {
+    await db('users').insert({ organisation_id: organisationId, email, name: 'Benchmark', role: 'consultant', status: 'active', password_hash: bcrypt.hashSync(PASSWORD, 4) });
+  }
+  const c = DEMO_CATCHMENT;
+  const ids: number[] = [];
+  for (let i = 0; i < CATCHMENTS_PER_ORG; i++) {
+    const [id] = await db('catchments').insert({
+      organisation_id: organisationId, name: `${c.name} ${i}`, description: c.description, latitude_deg: c.latitudeDeg, longitude_deg: c.longitudeDeg,
+      time_zone: c.timeZone, station_name: c.stationName, station_elevation_m: c.stationElevationM, outlet_description: c.outletDescription,
+    });
+    ids.push(id);
+  }
+  const scope = new TenantScope(db, organisationId);
+  for (const catchmentId of ids) await insertBandTable(scope, catchmentId, DEMO_BANDS);
+  return ids[0]!;
+}
+
+interface Target {
+  label: string;
+  method: 'GET' | 'PUT';
+  path: string;
+  body?: string;
+}
+
+async function measure(origin: string, cookie: string, target: Target) {
+  const load = loadavg()[0];
+  const result = await autocannon({
+    url: `${origin}${target.path}`,
+    method: target.method,
+    connections: CONNECTIONS,
+    duration: SECONDS,
+    body: target.body,
+    headers: { cookie, origin, 'content-type': 'application/json' },
+  });
+  const failed = result.non2xx + result.errors + result.timeouts;
+  return { load, reqPerSec: result.requests.average, p50: result.latency.p50, p99: result.latency.p99, failed };
+}
+
+async function main(): Promise<void> {
+  const email = `bench.api.${stamp}@bench.invalid`;
+  const catchmentId = await addOrganisation('own', email);
+  for (let i = 0; i < OTHER_ORGS; i++) await addOrganisation(`other ${i}`);
+  const api = await startApiProcess();
+  const origin = `http://127.0.0.1:${api.port}`;
+  try {
+    const signIn = await fetch(`${origin}/api/auth/sign-in`, {
+      method: 'POST', headers: { 'Content-Type': 'application/json', Origin: origin }, body: JSON.stringify({ email, password: PASSWORD }),
+    });
+    if (!signIn.ok) throw new Error(`sign-in failed: ${signIn.status} ${await signIn.text()}`);
+    const cookie = signIn.headers.get('set-cookie')!.split(';')[0]!;
+    const c = DEMO_CATCHMENT;
+    const form = {
+      name: `${c.name} 0`, description: c.description, latitudeDeg: c.latitudeDeg, longitudeDeg: c.longitudeDeg, timeZone: c.timeZone,
+      stationName: c.stationName, stationElevationM: c.stationElevationM, outletDescription: c.outletDescription,
+    };
+    const targets: Target[] = [
+      { label: 'GET /api/health', method: 'GET', path: '/api/health' },
+      { label: 'GET /api/catchments (signed in)', method: 'GET', path: '/api/catchments' },
+      { label: 'PUT /api/catchments/:id (signed in)', method: 'PUT', path: `/api/catchments/${catchmentId}`, body: JSON.stringify(form) },
+    ];
+    console.log(`bench:api — ${CONNECTIONS} connections, ${SECONDS} s per route, ${ROUNDS} rounds, ${availableParallelism()} cores`);
+    const rows: Record<string, unknown>[] = [];
+    for (let round = 1; round <= ROUNDS; round++) {
+      for (const target of targets) {
+        const m = await measure(origin, cookie, target);
+        rows.push({ round, route: target.label, ...m });
+        console.log(`  round ${round}  ${target.label.padEnd(38)} ${m.reqPerSec.toFixed(0).padStart(6)} req/s  p50 ${String(m.p50).padStart(4)} ms  p99 ${String(m.p99).padStart(4)} ms` +
+          `  load avg ${m.load.toFixed(2)}${m.failed ? `  (${m.failed} failed answers)` : ''}`);
+      }
+    }
+    console.log(JSON.stringify(rows));
+  } finally {
+    await api.stop();
+  }
+}
+
+try {
+  await main();
+} finally {
+  await db('organisations').whereIn('id', organisationIds).delete();
+  await db.destroy();
+}

@@ -1,0 +1,127 @@
+import http from 'node:http';
+import { describe, expect, it, vi } from 'vitest';
+import { listenDraining } from '../../server/http-server';
+import request from 'supertest';
+import type { UserRow } from '../../server/services/auth/auth-service';
+import { insertBaseline } from '../../server/services/catchments/baseline-scenario';
+import type { RunJob } from '../../server/services/runs/run-executor';
+import type { Simulator } from '../../server/services/runs/simulator';
+import { TenantScope } from '../../server/services/tenant-scope';
+import { TEST_PASSWORD, unique } from '../support/factories';
+import { createTestApp } from '../support/test-app';
+import { withOrganisation } from '../support/test-org';
+
+const f = withOrganisation();
+
+/** A GET over a keep-alive agent, resolving with the status, headers and whether its socket closed afterwards. */
+function get(agent: http.Agent, url: string, cookie = '') {
+  return new Promise<{ status: number; connection?: string; socketClosed: Promise<void> }>((resolve, reject) => {
+    const req = http.get(url, { agent, headers: { Cookie: cookie } }, (res) => {
+      res.resume();
+      const socketClosed = new Promise<void>((done) => req.socket!.once('close', () => done()));
+      res.on('end', () => resolve({ status: res.statusCode!, connection: res.headers.connection, socketClosed }));
+    });
+    req.on('error', reject);
+  });
+}
+
+const sessionCookie = async () =>
+  (await request(f.t.app).post('/api/auth/sign-in').send({ email: f.org.users.consultant.email, password: TEST_PASSWORD })).headers['set-cookie']![0]!.split(';')[0]!;
+
+/** Rejects if `promise` has not settled within `ms` (the test must never wait on the grace itself). */
+const within = <T>(promise: Promise<T>, ms: number) =>
+  Promise.race([promise, new Promise<never>((_, reject) => setTimeout(() => reject(new Error(`not done within ${ms} ms`)), ms))]);
+
+describe('graceful shutdown', () => {
+  it('closes idle keep-alive connections at once, answers a request in progress with Connection: close, and exits without waiting for the grace', async () => {
+    const running = await listenDraining(f.t.app, 0, '127.0.0.1', 60_000);
+    const agent = new http.Agent({ keepAlive: true });
+    const cookie = await sessionCookie();
+    try {
+      const idle = await get(agent, `${running.url}/api/health`);
+      expect(idle.connection).toBe('keep-alive');
+
+      // A request that is still being answered when the shutdown begins.
+      let release!: () => void;
+      const held = new Promise<void>((resolve) => (release = resolve));
+      const list = f.t.ctx.catchments.list.bind(f.t.ctx.catchments);
+      const slow = vi.spyOn(f.t.ctx.catchments, 'list').mockImplementation(async (...args) => {
+        await held;
+        return list(...args);
+      });
+      const inProgress = get(new http.Agent({ keepAlive: true }), `${running.url}/api/catchments`, cookie);
+      await vi.waitFor(() => expect(slow).toHaveBeenCalled());
+
+      const closing = running.close();
+      await within(idle.socketClosed, 2000);
+      release();
+      const answered = await inProgress;
+      expect(answered.connection).toBe('close');
+      await within(answered.socketClosed, 2000);
+      await within(closing, 2000);
+      slow.mockRestore();
+    } finally {
+      agent.destroy();
+    }
+  });
+
+  it('cuts a request that outlasts the grace, so the process can always exit', async () => {
+    const running = await listenDraining(f.t.app, 0, '127.0.0.1', 200);
+    const hang = vi.spyOn(f.t.ctx.catchments, 'list').mockImplementation(() => new Promise(() => undefined));
+    const cookie = await sessionCookie();
+    try {
+      const stuck = get(new http.Agent({ keepAlive: true }), `${running.url}/api/catchments`, cookie).catch((error: Error) => error);
+      await vi.waitFor(() => expect(hang).toHaveBeenCalled());
+      await within(running.close(), 3000);
+      expect(await stuck).toBeInstanceOf(Error);
+    } finally {
+      hang.mockRestore();
+    }
+  });
+});
+
+describe('runs and lab jobs at shutdown', () => {
+  /** Simulates nothing: every simulation waits until it is aborted. */
+  const hanging: Simulator = {
+    threads: 1,
+    simulate: (_input, _progress, signal) => new Promise((_resolve, reject) => signal!.addEventListener('abort', () => reject(signal!.reason))),
+  };
+
+  it('waits for them only until the grace is over, then ends those running or queued as failed with the restart message', async () => {
+    const app = createTestApp({ RUN_CONCURRENCY: '1' }, { simulator: hanging });
+    try {
+      const organisation_id = f.org.organisationId;
+      const scope = new TenantScope(app.db, organisation_id);
+      const catchment = await scope.insert('catchments', {
+        name: unique('Shutdown basin '), description: '', latitude_deg: 46, longitude_deg: 9, time_zone: 'UTC', station_name: 'Camp', station_elevation_m: 2000, outlet_description: '',
+      });
+      await insertBaseline(scope, catchment, null);
+      const scenario = (await app.db('scenarios').where({ catchment_id: catchment }).first('id')).id as number;
+      const runIds: number[] = [];
+      for (const hash of ['a', 'b']) {
+        runIds.push(await scope.insert('runs', {
+          catchment_id: catchment, scenario_id: scenario, scenario_name: 'Baseline', is_baseline: true, changes: '{}', status: 'queued',
+          engine_version: 'test', input_hash: hash.repeat(64),
+        }));
+      }
+      // The executor hands members to the simulator without looking at them.
+      const members = [{}] as unknown as RunJob['members'];
+      for (const runId of runIds) app.ctx.runExecutor.enqueue({ runId, organisationId: organisation_id, members });
+      const user = (await app.db('users').where({ id: f.org.users.scientist.id }).first()) as UserRow;
+      const job = await app.ctx.lab.jobs.start(scope, user, catchment, 'sweep', {}, (signal) =>
+        new Promise((_resolve, reject) => signal.addEventListener('abort', () => reject(signal.reason))));
+      await vi.waitFor(async () => expect((await app.db('runs').where({ id: runIds[0] }).first()).status).toBe('running'));
+
+      const started = Date.now();
+      await within(app.ctx.close(300), 3000);
+      expect(Date.now() - started).toBeGreaterThanOrEqual(290);
+
+      const runs = await app.db('runs').whereIn('id', runIds).orderBy('id').select('status', 'error_message');
+      expect(runs).toEqual([0, 1].map(() => ({ status: 'failed', error_message: expect.stringMatching(/server restarted/) })));
+      expect(await app.db('lab_jobs').where({ id: job.id }).first('status', 'error_message'))
+        .toEqual({ status: 'failed', error_message: expect.stringMatching(/server restarted/) });
+    } finally {
+      await app.db.destroy();
+    }
+  });
+});
