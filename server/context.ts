@@ -12,13 +12,15 @@ import { createMailServices, type MailServices } from './services/mail';
 import type { MailInbox } from './services/mail/mail-catcher';
 import { createMemberServices, type MemberServices } from './services/members';
 import { createRunServices, type RunServices } from './services/runs';
+import { createStationServices, type StationServices } from './services/stations';
+import { createWaterServices, type WaterServices } from './services/water';
 import type { CatchmentInputSource } from './services/runs/catchment-inputs';
 import type { Simulator } from './services/runs/simulator';
 import { ThreadBudget } from './services/thread-budget';
 
 /** Everything the routes need, built once per app by `createContext` (tests and seeds build their own). */
 export interface AppContext
-  extends AuthServices, MailServices, BillingServices, MemberServices, CatchmentServices, GeodataServices, LabServices, RunServices, BriefingServices {
+  extends AuthServices, MailServices, BillingServices, MemberServices, CatchmentServices, GeodataServices, StationServices, WaterServices, LabServices, RunServices, BriefingServices {
   config: AppConfig;
   db: Knex;
   /** The structured log; requests, errors and background failures, never values (server/logger.ts). */
@@ -59,9 +61,10 @@ export function createContext(config: AppConfig, db: Knex, options: ContextOptio
   const memberServices = createMemberServices({ config, db, logger, auth: authServices.auth, mail: mailServices.mail });
   const catchmentServices = createCatchmentServices({ threads, uploadsPerOrganisation: config.uploads.perOrganisation });
   const geodataServices = createGeodataServices({ config, bands: catchmentServices.bands, threads });
-  const labServices = createLabServices({ db, bands: catchmentServices.bands, threads });
+  const waterServices = createWaterServices({ bands: catchmentServices.bands });
+  const labServices = createLabServices({ db, bands: catchmentServices.bands, threads, water: waterServices });
   const runServices = createRunServices({
-    config, db, bands: catchmentServices.bands, calibrations: labServices.lab.calibrations, threads,
+    config, db, bands: catchmentServices.bands, calibrations: labServices.lab.calibrations, threads, water: waterServices,
     simulator: options.simulator, catchmentInputs: options.catchmentInputs,
   });
   const briefingServices = createBriefingServices({
@@ -79,6 +82,8 @@ export function createContext(config: AppConfig, db: Knex, options: ContextOptio
     ...memberServices,
     ...catchmentServices,
     ...geodataServices,
+    ...createStationServices(catchmentServices),
+    ...waterServices,
     ...labServices,
     ...runServices,
     ...briefingServices,

@@ -1,4 +1,4 @@
-import { simulateSummary } from '../../shared/analysis/simulate-summary';
+import { simulateMember } from '../../shared/analysis/simulate-summary';
 import type { Simulator } from '../../server/services/runs/simulator';
 
 /**
@@ -7,5 +7,5 @@ import type { Simulator } from '../../server/services/runs/simulator';
  */
 export const inProcessSimulator: Simulator = {
   threads: 1,
-  simulate: (input, onProgress) => Promise.resolve().then(() => simulateSummary(input, onProgress)),
+  simulate: (input, onProgress) => Promise.resolve().then(() => simulateMember(input, onProgress)),
 };

@@ -3,6 +3,7 @@ import type { AppConfig } from '../../config';
 import type { BandService } from '../catchments/band-service';
 import type { CalibrationStore } from '../lab/calibration-store';
 import type { ThreadBudget } from '../thread-budget';
+import type { WaterServices } from '../water';
 import type { CatchmentInputSource } from './catchment-inputs';
 import { ResultsService } from './results-service';
 import { RunExecutor } from './run-executor';
@@ -27,6 +28,8 @@ export interface RunServicesDeps {
   bands: BandService;
   calibrations: CalibrationStore;
   threads: ThreadBudget;
+  /** The catchment's water side (gradients, closure, redistribution, routing, glacier). */
+  water: WaterServices;
   /** Simulates run members; the worker pool unless given. */
   simulator?: Simulator;
   /** Where engine inputs come from; the catchment's stored data unless given. */
@@ -37,7 +40,7 @@ export interface RunServicesDeps {
 export function createRunServices(deps: RunServicesDeps): RunServices {
   const simulationPool = new SimulationPool(deps.threads);
   const runExecutor = new RunExecutor(deps.db, deps.simulator ?? simulationPool, deps.config.runs.concurrency);
-  const scenarios = new ScenarioService(deps.calibrations);
-  const runs = new RunService(scenarios, deps.catchmentInputs ?? storedCatchmentInputs(deps.bands), runExecutor);
+  const scenarios = new ScenarioService(deps.calibrations, deps.water.closures);
+  const runs = new RunService(scenarios, deps.catchmentInputs ?? storedCatchmentInputs(deps.bands), deps.water.waterInputs, runExecutor);
   return { scenarios, runs, results: new ResultsService(runs, deps.calibrations), runExecutor, simulationPool };
 }

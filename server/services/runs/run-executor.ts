@@ -1,8 +1,7 @@
 import { setMaxListeners } from 'node:events';
 import type { Knex } from 'knex';
 import type { MemberPlan } from '../../../shared/analysis/run-plan';
-import type { MemberInput } from '../../../shared/analysis/simulate-summary';
-import type { SimulationSummary } from '../../../shared/analysis/simulation-summary';
+import type { MemberInput, MemberSummary } from '../../../shared/analysis/simulate-summary';
 import { settledWithin } from '../settled-within';
 import { TenantScope } from '../tenant-scope';
 import type { Simulator } from './simulator';
@@ -129,8 +128,8 @@ export class RunExecutor {
    * Hands the job's simulations to the pool a few at a time rather than all at once: copying
    * each input to a thread happens on the API's event loop, and 100 copies in one go would stall it.
    */
-  private async simulateAll(job: RunJob, onProgress: (i: number, fraction: number) => void, signal: AbortSignal): Promise<SimulationSummary[]> {
-    const summaries = new Array<SimulationSummary>(job.members.length);
+  private async simulateAll(job: RunJob, onProgress: (i: number, fraction: number) => void, signal: AbortSignal): Promise<MemberSummary[]> {
+    const summaries = new Array<MemberSummary>(job.members.length);
     let next = 0;
     const lane = async () => {
       while (next < job.members.length && !signal.aborted) {

@@ -1,5 +1,4 @@
-import type { MemberInput } from '../../../shared/analysis/simulate-summary';
-import type { SimulationSummary } from '../../../shared/analysis/simulation-summary';
+import type { MemberInput, MemberSummary } from '../../../shared/analysis/simulate-summary';
 
 /**
  * What the run executor needs to simulate a run's members: the worker pool in the server, the
@@ -9,5 +8,5 @@ export interface Simulator {
   /** Simulations that can run at once; the executor keeps about twice as many handed over. */
   readonly threads: number;
   /** Simulates one engine input; rejects with an AbortError when `signal` aborts. */
-  simulate(input: MemberInput, onProgress: (fraction: number) => void, signal?: AbortSignal): Promise<SimulationSummary>;
+  simulate(input: MemberInput, onProgress: (fraction: number) => void, signal?: AbortSignal): Promise<MemberSummary>;
 }
