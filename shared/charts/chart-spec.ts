@@ -34,3 +34,17 @@ export const ZOOM = [{ type: 'inside' }, { type: 'slider', height: 16, bottom: 8
  * the runs compared does not have (runs of different periods), stay a gap.
  */
 export const chartNumber = (value: number | null | undefined): number | null => (value === null || value === undefined ? null : roundSignificant(value, 6));
+
+/**
+ * A text description of a chart for assistive technology: what runs along it and what it shows,
+ * e.g. "Day from 2024-05-01 to 2024-09-30 (153 rows); shows Baseline (m³/s), Variant (m³/s). The table view lists every value."
+ */
+export function describeChartTable(table: ChartTable): string {
+  const [first, ...rest] = table.columns;
+  if (!first || table.rows.length === 0) return 'No values to show yet.';
+  const from = table.rows[0][first.name];
+  const to = table.rows[table.rows.length - 1][first.name];
+  const range = table.rows.length > 1 ? `from ${from} to ${to}` : `${from}`;
+  const shown = rest.length ? `; shows ${rest.map((c) => c.label).join(', ')}` : '';
+  return `${first.label} ${range} (${table.rows.length} rows)${shown}. The table view lists every value.`;
+}

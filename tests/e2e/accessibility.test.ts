@@ -51,7 +51,9 @@ async function audit(page: Page, name: string, theme: Theme): Promise<string[]> 
   await settled(page);
   const result = await checkAccessibility(page);
   report[`${name} (${theme})`] = result.counts;
-  return blockingFindings(result).map((line) => `${name} (${theme}): ${line}`);
+  const headings = await page.locator('h1').count();
+  const structure = headings === 1 ? [] : [`${headings} h1 elements (one expected)`];
+  return [...structure, ...blockingFindings(result)].map((line) => `${name} (${theme}): ${line}`);
 }
 
 async function visit(page: Page, path: string, ready: string, name: string, theme: Theme): Promise<string[]> {
@@ -64,7 +66,10 @@ async function visit(page: Page, path: string, ready: string, name: string, them
 async function dialog(page: Page, opener: string, name: string, theme: Theme): Promise<string[]> {
   await page.click(opener);
   await page.waitForSelector('[role=dialog]');
-  const found = await audit(page, name, theme);
+  // Named by its title, with the focus inside it (on its first field).
+  await page.waitForFunction(() => Boolean(document.activeElement?.closest('[role=dialog]')));
+  const named = await page.evaluate(() => document.getElementById(document.querySelector('[role=dialog]')?.getAttribute('aria-labelledby') ?? '')?.textContent ?? '');
+  const found = [...(named ? [] : [`${name} (${theme}): the dialog has no name`]), ...(await audit(page, name, theme))];
   await page.keyboard.press('Escape');
   // A dialog that must not close by accident (an upload under way) closes with its own button.
   const stillOpen = await page.waitForSelector('[role=dialog]', { state: 'detached', timeout: 1000 }).then(() => false, () => true);

@@ -44,5 +44,5 @@ export async function checkAccessibility(page: Page): Promise<AxeReport> {
 export function blockingFindings(report: AxeReport): string[] {
   return report.findings
     .filter((f) => f.impact === 'critical' || f.impact === 'serious')
-    .flatMap((f) => f.nodes.map((n) => `${f.impact} ${f.id} (${f.help}): ${n.target}`));
+    .flatMap((f) => f.nodes.map((n) => `${f.impact} ${f.id}: ${n.target} — ${n.summary.split('\n').slice(1, 2).join('').trim()}`));
 }
