@@ -34,12 +34,12 @@ describe('saving a band table', () => {
   });
 
   it.each([
-    ['overlapping bands', [band(3000, 3200), band(3100, 3400)], 'bands.1.lowerM', 'Row 2, lowerM: overlaps the band below (its upper edge is 3200 m)'],
-    ['a gap between bands', [band(3000, 3200), band(3300, 3400)], 'bands.1.lowerM', 'Row 2, lowerM: leaves a gap above the band below'],
-    ['a fraction above 1', [band(3000, 3200, { glacierFraction: 1.2 })], 'bands.0.glacierFraction', 'Row 1, glacierFraction:'],
-    ['a zero area', [band(3000, 3200), band(3200, 3400, { areaKm2: 0 })], 'bands.1.areaKm2', 'Row 2, areaKm2:'],
-    ['an implausible elevation', [band(9000, 9500)], 'bands.0.upperM', 'Row 1, upperM:'],
-    ['an upper edge below the lower', [band(3200, 3000)], 'bands.0.upperM', 'Row 1, upperM: must be above lowerM'],
+    ['overlapping bands', [band(3000, 3200), band(3100, 3400)], 'bands.1.lowerM', 'Row 2, lower elevation: overlaps the band below (its upper edge is 3200 m)'],
+    ['a gap between bands', [band(3000, 3200), band(3300, 3400)], 'bands.1.lowerM', 'Row 2, lower elevation: leaves a gap above the band below'],
+    ['a fraction above 1', [band(3000, 3200, { glacierFraction: 1.2 })], 'bands.0.glacierFraction', 'Row 1, glacier fraction: must be between 0 and 1'],
+    ['a zero area', [band(3000, 3200), band(3200, 3400, { areaKm2: 0 })], 'bands.1.areaKm2', 'Row 2, area: must be more than 0 km²'],
+    ['an implausible elevation', [band(9000, 9500)], 'bands.0.upperM', 'Row 1, upper elevation: must be between -500 and 9000 m'],
+    ['an upper edge below the lower', [band(3200, 3000)], 'bands.0.upperM', 'Row 1, upper elevation: must be above the lower elevation'],
   ])('refuses %s, naming row and field, and keeps the stored table', async (_what, bands, field, message) => {
     const id = await newCatchment();
     const good = [band(2000, 2500)];

@@ -104,7 +104,12 @@ describe('catchments in the browser', () => {
 
     await page.click('[data-test=tab-bands]');
     await page.setInputFiles('[data-test=band-file]', BAD_BANDS);
-    await page.waitForSelector('[data-test=band-problems] >> text=Row 4, glacierFraction');
+    await page.waitForSelector('[data-test=band-problems] >> text=Row 4, glacier fraction: must be between 0 and 1');
+    // Every problem at once, by row: the overlap of row 3 beside the fraction of row 4.
+    expect(await page.locator('[data-test=band-problems] li').allTextContents()).toEqual([
+      'Row 3, lower elevation: overlaps the band below (its upper edge is 3800 m); sort bands from low to high without overlaps',
+      'Row 4, glacier fraction: must be between 0 and 1',
+    ]);
     await page.setInputFiles('[data-test=band-file]', GOOD_BANDS);
     await page.waitForSelector('[data-test=band-problems]', { state: 'detached' });
     await page.click('[data-test=band-save]');

@@ -1,4 +1,4 @@
-import { BAND_FIELDS, bandIssuesToProblems, bandTableSchema, type BandField, type BandFileReply } from '../../../../shared/schemas/catchment-bands';
+import { BAND_FIELDS, bandTableProblems, type BandField, type BandFileReply } from '../../../../shared/schemas/catchment-bands';
 import { validationFailed } from '../../../errors';
 import { parseNumber, readCsvTable } from './read-table';
 
@@ -26,9 +26,6 @@ export function readBandFile(text: string): BandFileReply {
     }
     return band;
   });
-  if (problems.length === 0) {
-    const parsed = bandTableSchema.safeParse(bands);
-    if (!parsed.success) problems.push(...bandIssuesToProblems(parsed.error.issues));
-  }
-  return { bands, problems };
+  // Every problem at once, by row: unreadable cells, each row's checks and the order of the rows.
+  return { bands, problems: bandTableProblems(bands, problems) };
 }
