@@ -1,4 +1,5 @@
 import type { RunResults } from '../schemas/results';
+import { withoutNoise } from '../text/format';
 import { roundSignificant } from '../text/numbers';
 
 /** The numbers of a chart as a table: its table view and CSV download. */
@@ -33,7 +34,7 @@ export const ZOOM = [{ type: 'inside' }, { type: 'slider', height: 16, bottom: 8
  * What a chart keeps of long model output: six significant digits; null, and a day or month one of
  * the runs compared does not have (runs of different periods), stay a gap.
  */
-export const chartNumber = (value: number | null | undefined): number | null => (value === null || value === undefined ? null : roundSignificant(value, 6));
+export const chartNumber = (value: number | null | undefined): number | null => (value === null || value === undefined ? null : roundSignificant(withoutNoise(value), 6) || 0);
 
 /**
  * A text description of a chart for assistive technology: what runs along it and what it shows,

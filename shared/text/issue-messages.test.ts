@@ -27,7 +27,7 @@ describe('words for people', () => {
 
   it('reports every problem of a band table at once, sorted by row', () => {
     const problems = bandTableProblems([band(3000, 3200), band(3100, 3400, { glacierFraction: 2 }), band(3400, 3600, { slopeDeg: 95 })]);
-    expect(problems.map(describeRowProblem)).toEqual([
+    expect(problems.map((p) => describeRowProblem(p))).toEqual([
       'Row 2, glacier fraction: must be between 0 and 1',
       'Row 2, lower elevation: overlaps the band below (its upper edge is 3200 m); sort bands from low to high without overlaps',
       'Row 3, mean slope: must be between 0 and 89 °',

@@ -33,7 +33,7 @@ describe('BaseChart', () => {
     expect(wrapper.find('.chart-stub').exists()).toBe(false);
     // Virtual scrolling adds one-cell spacer rows around the data rows.
     const cells = wrapper.findAll('tbody tr').map((tr) => tr.findAll('td').map((td) => td.text())).filter((row) => row.length === 2);
-    expect(cells).toEqual([['2024-01-01 00:00', '-3.5'], ['2024-01-01 01:00', '']]);
+    expect(cells).toEqual([['2024-01-01 00:00', '−3.5'], ['2024-01-01 01:00', '']]);
   });
 
   it('downloads the table as CSV with formula-like text escaped', async () => {
