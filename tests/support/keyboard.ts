@@ -18,10 +18,15 @@ export async function tabTo(page: Page, selector: string, { limit = 80, backward
 /** Whether the focused element matches `selector` or sits inside a match. */
 export const focusIsIn = (page: Page, selector: string) => page.evaluate((s) => Boolean(document.activeElement?.closest(s)), selector);
 
-/** Whether the element with the focus shows a visible focus indicator (an outline or a box shadow). */
-export const focusIsVisible = (page: Page) => page.evaluate(() => {
+/**
+ * The focus indicator of the element with the focus, as "outline 3px solid rgb(…)" or "shadow …";
+ * "none" when nothing shows where the focus is.
+ */
+export const focusIndicator = (page: Page) => page.evaluate(() => {
   const el = document.activeElement;
-  if (!el || el === document.body) return false;
+  if (!el || el === document.body) return 'none (nothing focused)';
   const style = getComputedStyle(el);
-  return (style.outlineStyle !== 'none' && parseFloat(style.outlineWidth) > 0) || style.boxShadow !== 'none';
+  if (style.outlineStyle !== 'none' && parseFloat(style.outlineWidth) > 0) return `outline ${style.outlineWidth} ${style.outlineStyle} ${style.outlineColor}`;
+  if (style.boxShadow !== 'none') return `shadow ${style.boxShadow}`;
+  return `none on <${el.tagName.toLowerCase()} class="${el.className}">`;
 });
