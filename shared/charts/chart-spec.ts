@@ -1,5 +1,6 @@
 import type { RunResults } from '../schemas/results';
 import { withoutNoise } from '../text/format';
+import { chartValue } from './chart-style';
 import { roundSignificant } from '../text/numbers';
 
 /** The numbers of a chart as a table: its table view and CSV download. */
@@ -23,11 +24,12 @@ export interface ResultItem {
 /** Axis settings with the name (and unit) of the axis always shown. */
 export const axis = (name: string, type: 'category' | 'value', data?: string[]) => ({
   type, name, nameLocation: 'middle', nameGap: type === 'value' ? 60 : 30, ...(data ? { data } : {}),
+  ...(type === 'value' ? { axisLabel: { formatter: chartValue } } : {}),
 });
 
 export const GRID = { left: 80, right: 24, top: 56, bottom: 70 };
-export const TOOLTIP = { trigger: 'axis' };
-export const LEGEND = { top: 0, type: 'scroll' };
+/** A legend that wraps onto more lines instead of paging (grid.top 56 leaves room for two rows). */
+export const LEGEND = { type: 'plain', top: 0, left: 'center', width: '92%' };
 export const ZOOM = [{ type: 'inside' }, { type: 'slider', height: 16, bottom: 8 }];
 
 /**

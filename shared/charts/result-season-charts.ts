@@ -1,6 +1,7 @@
 import { addDays } from '../melt/calendar';
 import { lineStyle } from './palette';
-import { axis, chartNumber, GRID, LEGEND, TOOLTIP, ZOOM, type ChartSpec, type ResultItem } from './chart-spec';
+import { axis, chartNumber, GRID, LEGEND, ZOOM, type ChartSpec, type ResultItem } from './chart-spec';
+import { TOOLTIP } from './chart-style';
 
 const datesOf = (item: ResultItem) => Array.from({ length: item.results.dayCount }, (_, d) => addDays(item.results.startDate, d));
 

@@ -5,7 +5,7 @@ import type * as DownloadModule from 'src/composables/useDownload';
 import BaseChart from './BaseChart.vue';
 
 vi.mock('vue-echarts', () => ({ default: { name: 'Echarts', props: ['option', 'autoresize'], template: '<div class="chart-stub" />' } }));
-vi.mock('src/boot/echarts', () => ({ chartsAnimated: false, renderSvg: () => '<svg />' }));
+vi.mock('src/boot/echarts', () => ({ chartsAnimated: false, renderSvg: () => Promise.resolve('<svg />'), renderPng: () => 'data:image/png;base64,' }));
 const saved = vi.hoisted(() => [] as { text: string; fileName: string }[]);
 vi.mock('src/composables/useDownload', async (original) => ({
   ...(await original<typeof DownloadModule>()),

@@ -101,6 +101,12 @@ describe('catchments in the browser', () => {
     expect(svg.suggestedFilename()).toMatch(/^temperature-\d+\.svg$/);
     await page.click('[data-test=series-chart-view] >> text=Table');
     await page.waitForSelector('[data-test=series-chart] table >> text=2024-01-01 00:00');
+    // The picture downloads from the table view too (it is drawn off screen from the chart's option).
+    const [png] = await Promise.all([page.waitForEvent('download'), page.click('[data-test=series-chart-download]').then(() => page.click('text=Picture (PNG)'))]);
+    expect(png.suggestedFilename()).toMatch(/^temperature-\d+\.png$/);
+    const pngBytes = Buffer.from(await new Response((await png.createReadStream()) as unknown as ReadableStream).arrayBuffer());
+    expect(pngBytes.subarray(1, 4).toString()).toBe('PNG');
+    expect(pngBytes.length).toBeGreaterThan(5000);
 
     await page.click('[data-test=tab-bands]');
     await page.setInputFiles('[data-test=band-file]', BAD_BANDS);
