@@ -51,6 +51,7 @@ async function audit(page: Page, name: string, theme: Theme): Promise<string[]> 
   await settled(page);
   const result = await checkAccessibility(page);
   report[`${name} (${theme})`] = result.counts;
+  await page.screenshot({ path: `test-results/a11y-${theme}-${name.replace(/[^a-z0-9]+/gi, '-')}.png` });
   const headings = await page.locator('h1').count();
   const structure = headings === 1 ? [] : [`${headings} h1 elements (one expected)`];
   return [...structure, ...blockingFindings(result)].map((line) => `${name} (${theme}): ${line}`);
@@ -111,7 +112,7 @@ describe.each<Theme>(['light', 'dark'])('accessibility in %s mode', (theme) => {
       ...(await dialog(page, '[data-test="run-Baseline"]', 'run dialog', theme)),
       ...(await visit(page, `${c}/scenarios/${ids.baseline}`, 'input', 'scenario builder', theme)),
       ...(await visit(page, `${c}/results?runs=${ids.run}`, '.echarts, canvas, svg', 'results', theme)),
-      ...(await visit(page, '/lab', '.q-tabs', 'lab', theme)),
+      ...(await visit(page, '/lab', '[data-test=lab-catchment]', 'lab', theme)),
       ...(await visit(page, '/briefings', '[data-test=new-briefing]', 'briefings', theme)),
       ...(await dialog(page, '[data-test=new-briefing]', 'new briefing dialog', theme)),
       ...(await visit(page, `/briefings/${ids.briefing}/edit`, 'input, textarea', 'briefing draft', theme)),
@@ -136,5 +137,36 @@ describe.each<Theme>(['light', 'dark'])('accessibility in %s mode', (theme) => {
     ];
     await page.close();
     expect(found).toEqual([]);
+  });
+
+  it('phones: the main pages fit 390 px, wide tables scroll inside their card', async () => {
+    const page = await themedPage(theme);
+    const admin = account('admin');
+    await signInThroughForm(page, b.baseUrl, admin.email, admin.password);
+    // A phone's screen, after signing in (the navigation waited for is folded away on a phone).
+    await page.setViewportSize({ width: 390, height: 844 });
+    const c = `/catchments/${ids.catchment}`;
+    const pages = [
+      ['catchment', `${c}?tab=bands`, '[data-test=band-table]'],
+      ['scenario', `${c}/scenarios/${ids.baseline}`, '[data-test=scenario-form]'],
+      ['results', `${c}/results?runs=${ids.run}`, '[data-test=totals-table]'],
+      ['briefing', `/briefings/${ids.briefing}`, '[data-test=briefing-title]'],
+    ] as const;
+    const overflowing: string[] = [];
+    for (const [name, path, ready] of pages) {
+      await page.goto(`${b.baseUrl}${path}`);
+      await page.waitForSelector(ready);
+      await settled(page);
+      await page.screenshot({ path: `test-results/phone-${theme}-${name}.png`, fullPage: true });
+      // Nothing wider than the screen: wide tables scroll in their own box, the page never sideways.
+      const width = await page.evaluate(() => document.documentElement.scrollWidth);
+      if (width > 391) overflowing.push(`${name}: ${width} px wide`);
+    }
+    // The results header keeps its title on one line (it collapsed to one word per line before).
+    await page.goto(`${b.baseUrl}${c}/results?runs=${ids.run}`);
+    const title = await page.waitForSelector('h1');
+    expect((await title.boundingBox())!.height).toBeLessThan(40);
+    await page.close();
+    expect(overflowing).toEqual([]);
   });
 });
