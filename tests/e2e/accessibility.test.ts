@@ -1,37 +1,22 @@
 import { mkdirSync, writeFileSync } from 'node:fs';
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { seed as seedOrganisation } from '../../seeds/01_demo_organisation';
-import { seed as seedCatchment } from '../../seeds/02_demo_catchment';
-import { seed as seedSubscription } from '../../seeds/02_demo_subscription';
-import { seed as seedScenarios } from '../../seeds/03_demo_scenarios';
-import { seed as seedBriefing } from '../../seeds/04_demo_briefing';
-import { DEMO_ACCOUNTS, DEMO_ORGANISATION } from '../../seeds/data/demo-accounts';
-import { DEMO_BRIEFING } from '../../seeds/data/demo-briefing';
-import { DEMO_CATCHMENT } from '../../seeds/data/demo-catchment';
+import { DEMO_ACCOUNTS } from '../../seeds/data/demo-accounts';
+import { seedDemoWorld, type DemoWorld } from '../support/demo-world';
 import { blockingFindings, checkAccessibility, type AxeReport } from '../support/axe';
 import { openBrowser, settled, signInThroughForm, type BrowserSession } from '../support/browser';
 
 // Every page and dialog of the demo, in light and dark mode, checked by axe-core (WCAG 2.2 A/AA): none may
 // have a critical or serious violation. The counts of every level go to test-results/axe-report.json.
 let b: BrowserSession;
-const ids = { catchment: 0, baseline: 0, run: 0, briefing: 0 };
+let ids: DemoWorld;
 const report: Record<string, AxeReport['counts']> = {};
 const account = (role: string) => DEMO_ACCOUNTS.find((a) => a.role === role)!;
 type Theme = 'light' | 'dark';
 
 beforeAll(async () => {
   b = await openBrowser();
-  await seedOrganisation(b.t.db);
-  await seedCatchment(b.t.db);
-  await seedSubscription(b.t.db);
-  await seedScenarios(b.t.db);
-  await seedBriefing(b.t.db);
-  const organisation = await b.t.db('organisations').where({ name: DEMO_ORGANISATION.name }).first('id');
-  ids.catchment = (await b.t.db('catchments').where({ organisation_id: organisation.id, name: DEMO_CATCHMENT.name }).first('id')).id;
-  ids.baseline = (await b.t.db('scenarios').where({ catchment_id: ids.catchment, is_baseline: true }).first('id')).id;
-  ids.run = (await b.t.db('runs').where({ catchment_id: ids.catchment, status: 'done' }).orderBy('id', 'desc').first('id')).id;
-  ids.briefing = (await b.t.db('briefings').where({ organisation_id: organisation.id, title: DEMO_BRIEFING.title }).first('id')).id;
+  ids = await seedDemoWorld(b.t.db);
 });
 afterAll(async () => {
   mkdirSync('test-results', { recursive: true });

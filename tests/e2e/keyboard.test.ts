@@ -1,14 +1,10 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { seed as seedOrganisation } from '../../seeds/01_demo_organisation';
-import { seed as seedCatchment } from '../../seeds/02_demo_catchment';
-import { seed as seedSubscription } from '../../seeds/02_demo_subscription';
-import { seed as seedScenarios } from '../../seeds/03_demo_scenarios';
-import { seed as seedBriefing } from '../../seeds/04_demo_briefing';
 import { DEMO_ACCOUNTS } from '../../seeds/data/demo-accounts';
 import { DEMO_BRIEFING } from '../../seeds/data/demo-briefing';
 import { DEMO_CATCHMENT } from '../../seeds/data/demo-catchment';
 import { openBrowser, type BrowserSession } from '../support/browser';
+import { seedDemoWorld } from '../support/demo-world';
 import { unique } from '../support/factories';
 import { focusIndicator, focusIsIn, tabTo } from '../support/keyboard';
 
@@ -20,13 +16,7 @@ const account = (role: string) => DEMO_ACCOUNTS.find((a) => a.role === role)!;
 
 beforeAll(async () => {
   b = await openBrowser();
-  await seedOrganisation(b.t.db);
-  await seedCatchment(b.t.db);
-  await seedSubscription(b.t.db);
-  await seedScenarios(b.t.db);
-  await seedBriefing(b.t.db);
-  catchmentId = (await b.t.db('catchments').where({ name: DEMO_CATCHMENT.name }).first('id')).id;
-  briefingId = (await b.t.db('briefings').where({ title: DEMO_BRIEFING.title }).first('id')).id;
+  ({ catchment: catchmentId, briefing: briefingId } = await seedDemoWorld(b.t.db));
 });
 afterAll(async () => {
   await b?.close();
