@@ -7,5 +7,6 @@ declare module '*.vue' {
 
 // The SVG renderer's installer on its own, so it loads only for a download (src/boot/echarts.ts).
 declare module 'echarts/lib/renderer/installSVGRenderer.js' {
-  export const install: typeof import('echarts/renderers').SVGRenderer;
+  import type { SVGRenderer } from 'echarts/renderers';
+  export const install: typeof SVGRenderer;
 }
