@@ -21,6 +21,8 @@ export default defineConfig({
           name: 'unit',
           include: ['shared/**/*.test.ts', 'server/**/*.test.ts', 'stripe-fake/**/*.test.ts', 'seeds/**/*.test.ts', 'scripts/**/*.test.ts'],
           environment: 'node',
+          // Whole seasons, PDF layout and DEM derivations take seconds, more on a busy machine: a guard against hangs, not a speed check.
+          testTimeout: 30_000,
         },
       },
       {

@@ -85,6 +85,7 @@ export async function createTenantWorld(db: Knex, geodataDir: string): Promise<T
   await db('briefing_versions').insert({ organisation_id, briefing_id: briefing, version: 1, snapshot: JSON.stringify(testSnapshot({ title: `${marker} briefing`, summary: marker })) });
   await db('briefing_shares').insert({ organisation_id, briefing_id: briefing, user_id: org.users.client.id });
   await db('briefing_comments').insert({ organisation_id, briefing_id: briefing, version: 1, user_id: org.users.client.id, body: marker });
+  await db('briefing_events').insert({ organisation_id, briefing_id: briefing, version: 1, user_id: org.users.consultant.id, user_email: org.users.consultant.email, action: 'published', detail: marker });
   const [invited] = await db('users').insert({ organisation_id, email: `${unique('invited')}@test.example`, name: `${marker} invitee`, role: 'client', status: 'invited' });
   return {
     ...org, marker, uploadToken,
@@ -120,7 +121,7 @@ export function pathIn(world: TenantWorld, path: string): string {
 
 /** Every row of the world's organisation in the tables routes can change, to prove a foreign caller changed none. */
 export async function snapshotOf(db: Knex, world: TenantWorld): Promise<string> {
-  const tables = ['catchments', 'band_tables', 'elevation_bands', 'geodata_uploads', 'band_derivations', 'datasets', 'pending_uploads', 'scenarios', 'runs', 'lab_jobs', 'briefings', 'briefing_versions', 'briefing_shares', 'briefing_comments', 'users'];
+  const tables = ['catchments', 'band_tables', 'elevation_bands', 'geodata_uploads', 'band_derivations', 'datasets', 'pending_uploads', 'scenarios', 'runs', 'lab_jobs', 'briefings', 'briefing_versions', 'briefing_shares', 'briefing_comments', 'briefing_events', 'users'];
   const rows = await Promise.all(tables.map((table) => db(table).where({ organisation_id: world.organisationId }).orderBy('id').select()));
   const values = await db('dataset_values').where({ organisation_id: world.organisationId }).orderBy(['dataset_id', 't']).select();
   return JSON.stringify([...rows, values]);
