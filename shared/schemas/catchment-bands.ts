@@ -10,6 +10,20 @@ export const BAND_COLUMNS = (Object.keys(BAND_FIELD_LABELS) as (keyof typeof BAN
 export type BandField = (typeof BAND_COLUMNS)[number]['field'];
 export const BAND_FIELDS: readonly BandField[] = BAND_COLUMNS.map((c) => c.field);
 
+/** A band column's header in a CSV file: the label and its unit, "Lower elevation (m)". */
+export const bandCsvHeader = (field: BandField) => `${BAND_FIELD_LABELS[field].label} (${BAND_FIELD_LABELS[field].unit})`;
+
+const headerWords = (text: string) => text.trim().toLowerCase().replace(/\s+/g, ' ');
+const FIELD_BY_HEADER = new Map<string, BandField>(BAND_COLUMNS.flatMap((c) => [
+  [headerWords(bandCsvHeader(c.field)), c.field], [headerWords(c.label), c.field], [headerWords(c.field), c.field],
+]));
+
+/**
+ * The band field a CSV header names: the header as the download writes it ("Lower elevation (m)"),
+ * the label alone, or the field's own name as earlier files have it (lowerM); case and spacing aside.
+ */
+export const bandFieldOfHeader = (header: string): BandField | undefined => FIELD_BY_HEADER.get(headerWords(header));
+
 /** Aspect classes of response units: north 315–45°, east 45–135°, south 135–225°, west 225–315°. */
 export const ASPECT_CLASS_VALUES = ['N', 'E', 'S', 'W'] as const;
 export type AspectClassValue = (typeof ASPECT_CLASS_VALUES)[number];

@@ -86,7 +86,8 @@ describe('band files', () => {
     const id = await newCatchment();
     const res = await agent.post(`/api/catchments/${id}/bands/file`).attach('file', Buffer.from('from,to\n1,2\n'), { filename: 'b.csv', contentType: 'text/csv' });
     expect(res.status).toBe(422);
-    expect(res.body.error.message).toContain('missing lowerM, upperM');
+    expect(res.body.error.message).toContain('Lower elevation (m), Upper elevation (m), Area (km²)');
+    expect(res.body.error.message).not.toMatch(/lowerM|areaKm2/);
   });
 
   it('downloads the band table as CSV', async () => {
@@ -95,6 +96,15 @@ describe('band files', () => {
     const res = await agent.get(`/api/catchments/${id}/bands.csv`);
     expect(res.headers['content-disposition']).toContain('attachment');
     // With a byte-order mark, so spreadsheet programs read it as UTF-8.
-    expect(res.text).toBe('\uFEFFlowerM,upperM,areaKm2,slopeDeg,aspectDeg,glacierFraction,debrisFraction,debrisThicknessM\r\n3000,3200,3.2,20,180,0.4,0.5,0.2\r\n');
+    expect(res.text).toBe('\uFEFFLower elevation (m),Upper elevation (m),Area (km²),Mean slope (°),Mean aspect (° from north),Glacier fraction (0–1 of band),Debris-covered fraction (0–1 of glacier),Debris thickness (m)\r\n3000,3200,3.2,20,180,0.4,0.5,0.2\r\n');
+  });
+
+  it('reads back the file it downloads', async () => {
+    const id = await newCatchment();
+    await agent.put(`/api/catchments/${id}/bands`).send({ bands: [band(3000, 3200), band(3200, 3400)] });
+    const file = (await agent.get(`/api/catchments/${id}/bands.csv`)).text;
+    const res = await agent.post(`/api/catchments/${id}/bands/file`).attach('file', Buffer.from(file), { filename: 'b.csv', contentType: 'text/csv' });
+    expect(res.body.problems).toEqual([]);
+    expect(res.body.bands).toEqual((await agent.get(`/api/catchments/${id}/bands`)).body.bands);
   });
 });
