@@ -1,5 +1,6 @@
 import type { Parameters, SimulationInput } from '../melt/index';
 import { PARAMETER_SPECS } from '../melt/parameters';
+import { labelOf } from '../text/labels';
 import type { LabSite, Period } from './site';
 
 /** Parameters a scientist may adjust and the automatic search may vary. */
@@ -14,6 +15,7 @@ export interface KeySpec {
   min: number;
   max: number;
   default: number;
+  /** '' for a dimensionless parameter. */
   unit: string;
 }
 
@@ -26,7 +28,7 @@ const PRECIPITATION_FACTOR: KeySpec = { label: 'Precipitation factor', min: 0.5,
 export function keySpec(key: CalibrationKey): KeySpec {
   if (key === 'precipitationFactor') return PRECIPITATION_FACTOR;
   const spec = PARAMETER_SPECS[key];
-  return { label: spec.label, min: spec.min, max: spec.max, default: spec.default, unit: spec.unit };
+  return { label: spec.label, min: spec.min, max: spec.max, default: spec.default, unit: labelOf(key).unit };
 }
 
 /** Parameters in force plus the station precipitation factor: what a catchment's calibration saves. */

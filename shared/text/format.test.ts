@@ -1,5 +1,5 @@
 import { afterEach, describe, expect, it } from 'vitest';
-import { DEFAULT_DISPLAY_LOCALE, decimalsFor, formatDate, formatDateTime, formatDecimal, formatMoney, formatPercent, formatQuantity, isoDate, setDisplayLocale, supportedLocale, withoutNoise } from './format';
+import { DEFAULT_DISPLAY_LOCALE, decimalsFor, formatDate, formatDateTime, formatDecimal, formatMoney, formatPercent, formatQuantity, isoDate, roundForEntry, setDisplayLocale, supportedLocale, withoutNoise } from './format';
 
 afterEach(() => setDisplayLocale(DEFAULT_DISPLAY_LOCALE));
 
@@ -28,6 +28,17 @@ describe('one locale for dates and numbers', () => {
     expect(withoutNoise(3e-12)).toBe(0);
     expect(withoutNoise(0.001)).toBe(0.001);
     expect(formatPercent(0.4567)).toBe('45.7 %');
+  });
+
+  it('shows a setting in a form field to four significant figures, whole digits and small decimals kept', () => {
+    expect(roundForEntry(-5.80327)).toBe(-5.803);
+    expect(roundForEntry(1.49574)).toBe(1.496);
+    expect(roundForEntry(0.00153219)).toBe(0.001532);
+    expect(roundForEntry(3250)).toBe(3250);
+    expect(roundForEntry(123456.7)).toBe(123457);
+    expect(roundForEntry(2.0000000000000004)).toBe(2);
+    expect(roundForEntry(-1e-15)).toBe(0);
+    expect(formatQuantity(0.0015, 'setting')).toBe('0.0015');
   });
 
   it('writes dates in the chosen style, a calendar day as that day everywhere, ISO in exports', () => {

@@ -70,6 +70,8 @@ export const QUANTITY_DIGITS = {
   count: { significant: 6, maxDecimals: 0 },
   /** anything else read from a model */
   general: { significant: 4, maxDecimals: 3 },
+  /** a parameter or scenario setting someone typed or a calibration search found (0.0015 keeps its decimals) */
+  setting: { significant: 4, maxDecimals: 8 },
 } as const;
 export type Quantity = keyof typeof QUANTITY_DIGITS;
 
@@ -86,6 +88,16 @@ export function formatQuantity(value: number | null | undefined, quantity: Quant
   if (value === null || value === undefined || !Number.isFinite(value)) return '–';
   const clean = withoutNoise(value);
   return formatDecimal(clean, decimalsFor(clean, quantity), { locale });
+}
+
+/**
+ * A setting as a form field shows it: the quantity's significant figures as a plain number, whole
+ * digits kept (−5.80327 → −5.803, 0.00153 → 0.00153, 3250 → 3250), float noise gone.
+ */
+export function roundForEntry(value: number, quantity: Quantity = 'setting'): number {
+  if (!Number.isFinite(value)) return value;
+  const clean = withoutNoise(value);
+  return Number(clean.toFixed(decimalsFor(clean, quantity))) || 0;
 }
 
 /** A share as a percentage: 0.4567 → "45.7 %". */

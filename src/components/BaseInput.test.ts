@@ -36,4 +36,22 @@ describe('form fields', () => {
     expect(wrapper.find('[data-test=form-error]').attributes('role')).toBe('alert');
     expect(wrapper.find('[data-test=form-error]').text()).toBe('E-mail or password is not right.');
   });
+
+  it('shows a number set from outside rounded, and what the user types as typed', async () => {
+    const Setting = defineComponent({
+      components: { BaseInput },
+      setup: () => ({ value: ref<number | null>(-5.80327) }),
+      template: '<BaseInput v-model.number="value" rounded type="number" label="Temperature lapse rate" />',
+    });
+    const wrapper = mount(Setting, { global: { plugins: [Quasar] } });
+    const input = wrapper.find('input');
+    expect(input.element.value).toBe('-5.803');
+    expect(wrapper.vm.value).toBe(-5.80327);
+    await input.setValue('-6.12345');
+    expect(wrapper.vm.value).toBe(-6.12345);
+    expect(input.element.value).toBe('-6.12345');
+    wrapper.vm.value = 1.49574;
+    await wrapper.vm.$nextTick();
+    expect(input.element.value).toBe('1.496');
+  });
 });
