@@ -1,9 +1,11 @@
-import { PARAMETER_NAMES, PARAMETER_SPECS, DEFAULT_PARAMETERS } from '../melt/parameters';
+import { PARAMETER_NAMES, DEFAULT_PARAMETERS } from '../melt/parameters';
 import type { ParameterOverrides, ScenarioChanges } from '../schemas/scenarios';
+import { formatQuantity } from '../text/format';
+import { labelOf } from '../text/labels';
 
 type Monthly = number | number[];
 const show = (v: Monthly, unit: string, signed = false) => {
-  const one = (x: number) => `${signed && x > 0 ? '+' : ''}${x}`.replace(/^-/, '−');
+  const one = (x: number) => `${signed && x > 0 ? '+' : ''}${formatQuantity(x, 'setting')}`;
   return Array.isArray(v) ? `${v.map(one).join(', ')} ${unit} (January to December)` : `${one(v)} ${unit}`;
 };
 const isZero = (v: Monthly, zero: number) => (Array.isArray(v) ? v.every((x) => x === zero) : v === zero);
@@ -33,7 +35,7 @@ export function scenarioValues(c: ScenarioChanges): { label: string; value: stri
 export function parameterValues(overrides: ParameterOverrides): { label: string; value: string }[] {
   return PARAMETER_NAMES.map((name) => {
     const value = overrides[name] ?? DEFAULT_PARAMETERS[name];
-    const unit = PARAMETER_SPECS[name].unit === '-' ? '' : ` ${PARAMETER_SPECS[name].unit}`;
-    return { label: PARAMETER_SPECS[name].label, value: `${value}${unit}${overrides[name] === undefined ? '' : ' (set by the scenario)'}` };
+    const { label, unit } = labelOf(name);
+    return { label, value: `${formatQuantity(value, 'setting')}${unit ? ` ${unit}` : ''}${overrides[name] === undefined ? '' : ' (set by the scenario)'}` };
   });
 }

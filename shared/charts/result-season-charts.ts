@@ -59,12 +59,12 @@ export function albedoOfBand(items: ResultItem[], band: number): ChartSpec {
   const baseline = items[0].results.albedo.baseline[band];
   return {
     option: {
-      tooltip: TOOLTIP, legend: LEGEND, grid: GRID, xAxis: axis('Month', 'category', months), yAxis: { ...axis('Albedo (–)', 'value'), min: 0, max: 1 },
+      tooltip: TOOLTIP, legend: LEGEND, grid: GRID, xAxis: axis('Month', 'category', months), yAxis: { ...axis('Albedo', 'value'), min: 0, max: 1 },
       series: [{ name: 'Baseline', type: 'line', data: baseline.map((v) => chartNumber(v)), ...lineStyle(0, true) },
         ...items.map((it, i) => ({ name: it.label, type: 'line', data: it.results.albedo.variant[band].map((v) => chartNumber(v)), ...lineStyle(i) }))],
     },
     table: {
-      columns: [{ name: 'month', label: 'Month' }, { name: 'baseline', label: 'Baseline (–)' }, ...items.map((it, i) => ({ name: `v${i}`, label: `${it.label} (–)` }))],
+      columns: [{ name: 'month', label: 'Month' }, { name: 'baseline', label: 'Baseline albedo' }, ...items.map((it, i) => ({ name: `v${i}`, label: `${it.label} albedo` }))],
       rows: months.map((month, m) => Object.fromEntries([['month', month], ['baseline', chartNumber(baseline[m])], ...items.map((it, i) => [`v${i}`, chartNumber(it.results.albedo.variant[band][m])])])),
     },
   };
