@@ -1,6 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { bandTableProblems } from '../schemas/catchment-bands';
-import { describeRowProblem, plainIssueMessage } from './issue-messages';
+import { z } from 'zod';
+import { describeIssue, describeRowProblem, plainIssueMessage } from './issue-messages';
+import { fieldErrors } from '../schemas/field-errors';
 import { headerOf, labelOf } from './labels';
 
 const band = (lowerM: number, upperM: number, extra: Record<string, number> = {}) => ({
@@ -30,7 +32,24 @@ describe('words for people', () => {
     expect(problems.map((p) => describeRowProblem(p))).toEqual([
       'Row 2, glacier fraction: must be between 0 and 1',
       'Row 2, lower elevation: overlaps the band below (its upper edge is 3200 m); sort bands from low to high without overlaps',
-      'Row 3, mean slope: must be between 0 and 89 °',
+      'Row 3, mean slope: must be between 0 and 89°',
     ]);
   });
+
+  it('never passes zod\'s own wording on, and names the field in words', () => {
+    const schema = z.object({ stationName: z.string(), changes: z.object({ temperatureDeltaC: z.number(), parameters: z.object({ iceAlbedo: z.number().max(0.51) }) }) });
+    const parsed = schema.safeParse({ changes: { temperatureDeltaC: 'hot', parameters: { iceAlbedo: 5 } } });
+    expect(parsed.success).toBe(false);
+    const sentences = parsed.error!.issues.map(describeIssue);
+    expect(sentences).toEqual([
+      'Reference station: is required',
+      'Temperature change: must be a number',
+      'Bare-ice albedo today: must be between 0.25 and 0.51',
+    ]);
+    expect(Object.values(fieldErrors(parsed.error!.issues)).join(' ')).not.toMatch(/Invalid|expected|Too big/);
+    // Messages the schemas write for people pass as written; rows count from 1.
+    expect(describeIssue({ code: 'custom', path: ['changes', 'impuritiesByElevation', 1, 'blackCarbonSnowNgG'], message: 'overlaps the range above' }))
+      .toBe('Row 2, black carbon in snow: overlaps the range above');
+  });
 });
+
