@@ -1,6 +1,6 @@
 import { PARAMETER_NAMES, DEFAULT_PARAMETERS } from '../melt/parameters';
 import type { ParameterOverrides, ScenarioChanges } from '../schemas/scenarios';
-import { formatQuantity } from '../text/format';
+import { formatPeriod, formatQuantity } from '../text/format';
 import { labelOf } from '../text/labels';
 
 type Monthly = number | number[];
@@ -27,7 +27,7 @@ export function scenarioValues(c: ScenarioChanges): { label: string; value: stri
   const out = rows.filter(([, v, zero]) => !isZero(v, zero)).map(([label, v, , unit, signed]) => ({ label, value: show(v, unit, signed) }));
   if (c.stabilityCorrection !== null) out.push({ label: 'Stability correction of turbulent heat over snow and ice', value: c.stabilityCorrection ? 'on' : 'off' });
   if (c.warmingLevel) out.push({ label: 'Warming level preset', value: `${c.warmingLevel} °C global` });
-  if (c.period) out.push({ label: 'Period', value: `${c.period.from} to ${c.period.to}` });
+  if (c.period) out.push({ label: 'Period', value: formatPeriod(c.period.from, c.period.to) });
   return out.length ? out : [{ label: 'Changes', value: 'none (present conditions)' }];
 }
 

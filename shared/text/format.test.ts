@@ -1,5 +1,5 @@
 import { afterEach, describe, expect, it } from 'vitest';
-import { DEFAULT_DISPLAY_LOCALE, decimalsFor, formatDate, formatDateTime, formatDecimal, formatMoney, formatPercent, formatQuantity, isoDate, roundForEntry, setDisplayLocale, supportedLocale, withoutNoise } from './format';
+import { DEFAULT_DISPLAY_LOCALE, decimalsFor, formatDate, formatDateTime, formatDecimal, formatMoney, formatPercent, formatPeriod, formatQuantity, isoDate, roundForEntry, setDisplayLocale, supportedLocale, withoutNoise } from './format';
 
 afterEach(() => setDisplayLocale(DEFAULT_DISPLAY_LOCALE));
 
@@ -39,6 +39,11 @@ describe('one locale for dates and numbers', () => {
     expect(roundForEntry(2.0000000000000004)).toBe(2);
     expect(roundForEntry(-1e-15)).toBe(0);
     expect(formatQuantity(0.0015, 'setting')).toBe('0.0015');
+  });
+
+  it('writes a span of days by their calendar days', () => {
+    expect(formatPeriod('2024-04-01', '2024-09-30')).toBe('1 Apr 2024 to 30 Sept 2024');
+    expect(formatPeriod('2021-10-01T00:00:00', '2024-09-30T23:00:00')).toBe('1 Oct 2021 to 30 Sept 2024');
   });
 
   it('writes dates in the chosen style, a calendar day as that day everywhere, ISO in exports', () => {

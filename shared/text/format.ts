@@ -117,6 +117,15 @@ export function formatDate(value: string | Date | null | undefined): string {
   return new Intl.DateTimeFormat(current.locale, { dateStyle: current.dateStyle, timeZone: zoneFor(value) }).format(toDate(value));
 }
 
+/**
+ * A span of days in the display locale, "1 Apr 2024 to 30 Sept 2024". Timestamps of a record
+ * ("2021-10-01T00:00") count by their calendar day as written: the station's day, wherever the reader is.
+ */
+export function formatPeriod(from: string | null | undefined, to: string | null | undefined): string {
+  const day = (value: string | null | undefined) => formatDate(value && /^\d{4}-\d{2}-\d{2}/.test(value) ? value.slice(0, 10) : value);
+  return `${day(from)} to ${day(to)}`;
+}
+
 /** A date and time of day (to the minute) in the display locale. */
 export function formatDateTime(value: string | Date | null | undefined): string {
   if (!value) return '—';
