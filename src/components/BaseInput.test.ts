@@ -38,20 +38,16 @@ describe('form fields', () => {
   });
 
   it('shows a number set from outside rounded, and what the user types as typed', async () => {
-    const Setting = defineComponent({
-      components: { BaseInput },
-      setup: () => ({ value: ref<number | null>(-5.80327) }),
-      template: '<BaseInput v-model.number="value" rounded type="number" label="Temperature lapse rate" />',
+    const wrapper = mount(BaseInput, {
+      props: { modelValue: -5.80327, rounded: true, type: 'number', label: 'Temperature lapse rate', 'onUpdate:modelValue': (v: string | number | null) => wrapper.setProps({ modelValue: Number(v) }) },
+      global: { plugins: [Quasar] },
     });
-    const wrapper = mount(Setting, { global: { plugins: [Quasar] } });
     const input = wrapper.find('input');
     expect(input.element.value).toBe('-5.803');
-    expect(wrapper.vm.value).toBe(-5.80327);
     await input.setValue('-6.12345');
-    expect(wrapper.vm.value).toBe(-6.12345);
+    expect(wrapper.props('modelValue')).toBe(-6.12345);
     expect(input.element.value).toBe('-6.12345');
-    wrapper.vm.value = 1.49574;
-    await wrapper.vm.$nextTick();
+    await wrapper.setProps({ modelValue: 1.49574 });
     expect(input.element.value).toBe('1.496');
   });
 });
