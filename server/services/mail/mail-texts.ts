@@ -77,3 +77,33 @@ export function invitationRefusedMail(input: { organisationName: string }): { su
     ].join('\n'),
   };
 }
+
+/** To a client a briefing was shared with: what it is and the link that opens it. */
+export function briefingSharedMail(input: { sharerName: string; organisationName: string; title: string; link: string }): { subject: string; text: string } {
+  return {
+    subject: `${input.organisationName} shared a briefing with you: ${input.title}`,
+    text: [
+      `${input.sharerName} of ${input.organisationName} shared the briefing "${input.title}" with you on Tarnish.`,
+      '',
+      'Open it here (sign in with this address):',
+      input.link,
+      '',
+      'You can read it, download it as PDF or CSV and send questions to the team from the page.',
+    ].join('\n'),
+  };
+}
+
+/** To each client a briefing is shared with, when a new version of it is published. */
+export function briefingVersionMail(input: { publisherName: string; organisationName: string; title: string; version: number; link: string }): { subject: string; text: string } {
+  return {
+    subject: `New version of a briefing shared with you: ${input.title}`,
+    text: [
+      `${input.publisherName} of ${input.organisationName} published version ${input.version} of the briefing "${input.title}".`,
+      '',
+      'Open it here (sign in with this address):',
+      input.link,
+      '',
+      'Earlier versions stay readable from the same page.',
+    ].join('\n'),
+  };
+}
