@@ -21,11 +21,14 @@ export function invitationMail(input: {
   };
 }
 
-export function passwordResetMail(input: { link: string; validMinutes: number }): { subject: string; text: string } {
+/** A reset link; `requestedBy` names the admin who sent it, otherwise someone asked on the sign-in page. */
+export function passwordResetMail(input: { link: string; validMinutes: number; requestedBy?: string }): { subject: string; text: string } {
   return {
     subject: 'Choose a new Tarnish password',
     text: [
-      'Someone asked to reset the password of the Tarnish account for this address.',
+      input.requestedBy
+        ? `${input.requestedBy}, an admin of your team, sent you a link to choose a new password for your Tarnish account.`
+        : 'Someone asked to reset the password of the Tarnish account for this address.',
       '',
       'Open this link to choose a new password:',
       input.link,
