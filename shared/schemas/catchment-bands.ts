@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { bandSchema } from '../melt/schema';
 import { BAND_FIELD_LABELS } from '../text/labels';
-import { describeRowProblem, plainIssueMessage, type ZodLikeIssue } from '../text/issue-messages';
+import { describeRowProblem, issueMessage, type ZodLikeIssue } from '../text/issue-messages';
 
 /** The band fields in table order, with the unit each is stored in (the engine's own names and units). */
 export const BAND_COLUMNS = (Object.keys(BAND_FIELD_LABELS) as (keyof typeof BAND_FIELD_LABELS)[]).map((field) => ({
@@ -120,7 +120,7 @@ export type BandFileReply = z.infer<typeof bandFileReplySchema>;
 export function bandIssuesToProblems(issues: readonly ZodLikeIssue[]): BandProblem[] {
   return issues.map((issue) => {
     const [index, field] = issue.path;
-    const message = plainIssueMessage(issue);
+    const message = issueMessage(issue);
     return typeof index === 'number'
       ? { row: index + 1, column: String(field ?? ''), message }
       : { row: 0, column: '', message };

@@ -173,11 +173,15 @@ describe('client access', () => {
   });
 
   it('tells the clients it is shared with by mail when a new version is published', async () => {
-    const published = await consultant.post(`/api/briefings/${briefingId}/publish`);
-    expect(published.status).toBe(201);
-    const mail = await catcher.waitFor((m) => m.to.includes(org.users.client.email) && m.subject.startsWith('New version of a briefing shared with you'));
-    expect(mail.text).toContain(`published version ${published.body.version} of the briefing`);
-    expect(mail.text).toContain(`/briefings/${briefingId}`);
+    const created = await consultant.post('/api/briefings').send({ catchmentId, title: 'Second look at the soot', selection: { runIds: [runId] } });
+    const id = created.body.briefing.id;
+    expect((await consultant.post(`/api/briefings/${id}/publish`)).status).toBe(201);
+    expect((await consultant.post(`/api/briefings/${id}/shares`).send({ emails: [org.users.client.email] })).status).toBe(200);
+    const published = await consultant.post(`/api/briefings/${id}/publish`);
+    expect(published.body.version).toBe(2);
+    const mail = await catcher.waitFor((m) => m.to.includes(org.users.client.email) && m.subject === 'New version of a briefing shared with you: Second look at the soot');
+    expect(mail.text).toContain('published version 2 of the briefing "Second look at the soot"');
+    expect(mail.text).toContain(`/briefings/${id}`);
   });
 
   it('invites a new address as a client at no seat cost and shares with them', async () => {
