@@ -33,8 +33,9 @@ describe('the overview', () => {
     const catchment = page.locator(`[data-test=overview-catchment-${catchmentId}]`);
     await expect.poll(() => catchment.innerText()).toContain(DEMO_CATCHMENT.name);
     const text = await catchment.innerText();
-    expect(text).toMatch(/Calibrated on \d{1,2} \w{3,4} \d{4} \(daily KGE 0\.\d\d\)/);
-    expect(text).toMatch(/Black carbon, moderate · finished/);
+    expect(text).toMatch(/Calibrated on \d{1,2} \w{3,4} \d{4} \(daily KGE 0\.\d{2,3}\)/);
+    // The newest runs of the catchment, each with its state in words.
+    expect(text).toMatch(/ · finished · \d{1,2} \w{3,4} \d{4}/);
     expect(await page.locator(`[data-test=overview-briefing-${briefingId}]`).innerText()).toContain(DEMO_BRIEFING.title);
     expect(await page.locator('[data-test=overview-plan]').count()).toBe(0);
     await catchment.click();
