@@ -1,3 +1,4 @@
+import compression from 'compression';
 import cookieParser from 'cookie-parser';
 import express, { type Express } from 'express';
 import helmet from 'helmet';
@@ -40,16 +41,30 @@ export function createApp(ctx: AppContext, options: AppOptions = {}): Express {
       },
     }),
   );
+  // gzip or brotli, as the browser asks, for JSON and text assets (compression skips what is already compressed).
+  app.use(compression());
   app.use(cookieParser());
   app.use('/api', apiRouter(ctx));
 
   if (options.clientDir && existsSync(options.clientDir)) {
     const dir = path.resolve(options.clientDir);
-    app.use(express.static(dir, { index: false, maxAge: '1h' }));
+    app.use(express.static(dir, { index: false, setHeaders: setClientCacheHeaders }));
     // Client-side routes all load the same page.
-    app.get(/^(?!\/api\/).*/, (_req, res) => res.sendFile(path.join(dir, 'index.html')));
+    app.get(/^(?!\/api\/).*/, (_req, res) => res.sendFile(path.join(dir, 'index.html'), { headers: { 'Cache-Control': 'no-cache' } }));
   }
 
   app.use(errorHandler);
   return app;
+}
+
+/**
+ * Vite names every built asset by its content hash (assets/name-hash.js): a year, immutable. The
+ * page itself is revalidated on every load so a release reaches everyone at once; other public
+ * files (logo, favicon) keep an hour.
+ */
+function setClientCacheHeaders(res: express.Response, file: string): void {
+  const name = path.basename(file);
+  if (name === 'index.html') res.setHeader('Cache-Control', 'no-cache');
+  else if (file.includes(`${path.sep}assets${path.sep}`)) res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
+  else res.setHeader('Cache-Control', 'public, max-age=3600');
 }

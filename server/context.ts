@@ -68,7 +68,8 @@ export function createContext(config: AppConfig, db: Knex, options: ContextOptio
     simulator: options.simulator, catchmentInputs: options.catchmentInputs,
   });
   const briefingServices = createBriefingServices({
-    results: runServices.results, invitations: memberServices.invitations, threads, briefingResults: options.briefingResults,
+    results: runServices.results, invitations: memberServices.invitations, mail: mailServices.mail, publicUrl: () => config.publicUrl,
+    threads, briefingResults: options.briefingResults,
   });
   const pools = [runServices.simulationPool, labServices.lab.pool, briefingServices.pdfPool, catchmentServices.uploads.pool];
   return {

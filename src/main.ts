@@ -8,6 +8,9 @@ import './css/app.scss';
 import App from './App.vue';
 import { createAppRouter } from './router';
 import { installAuthBoot } from './boot/auth';
+import { applyStoredDisplayLocale } from './composables/useDisplayLocale';
+
+applyStoredDisplayLocale();
 
 const app = createApp(App);
 app.use(Quasar, { plugins: { Notify, Dark, Dialog }, config: { dark: 'auto' } });

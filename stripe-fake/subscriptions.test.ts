@@ -42,6 +42,28 @@ describe('seat count changes', () => {
     expect(customer.id).toBe(proration.customer);
   });
 
+  it('previews the charge of a seat change with invoices.createPreview, changing nothing', async () => {
+    const { stripe, fake } = harness;
+    const { subscriptionId } = await subscribedCustomer(harness, 3);
+    const before = await stripe.subscriptions.retrieve(subscriptionId);
+    fake.controls.advanceClock(10 * DAY);
+    const invoicesBefore = (await stripe.invoices.list({ subscription: subscriptionId })).data.length;
+    const item = { id: before.items.data[0].id, quantity: 5 };
+    const preview = await stripe.invoices.createPreview({
+      subscription: subscriptionId, subscription_details: { items: [item], proration_behavior: 'always_invoice' },
+    });
+    // The same prorations the change itself charges (see the test above): 21 of 31 days, −7926 + 13210.
+    expect(preview.lines.data.map((line) => line.amount)).toEqual([-7926, 13210]);
+    expect(preview).toMatchObject({ object: 'invoice', total: 5284, amount_due: 5284, status: 'draft', number: null, billing_reason: 'subscription_update' });
+    // The next renewal with fewer seats: the credit for the unused time and two seats for the next period.
+    const renewal = await stripe.invoices.createPreview({ subscription: subscriptionId, subscription_details: { items: [{ ...item, quantity: 2 }] } });
+    expect(renewal.billing_reason).toBe('subscription_cycle');
+    expect(renewal.lines.data.map((line) => line.amount)).toEqual([-7926, 5284, 7800]);
+    expect((await stripe.subscriptions.retrieve(subscriptionId)).items.data[0].quantity).toBe(3);
+    expect((await stripe.invoices.list({ subscription: subscriptionId })).data).toHaveLength(invoicesBefore);
+    await expect(stripe.invoices.createPreview({ subscription: 'sub_doesnotexist' })).rejects.toMatchObject({ statusCode: 404 });
+  });
+
   it('keeps create_prorations lines for the next period invoice', async () => {
     const { stripe, fake } = harness;
     const { subscriptionId } = await subscribedCustomer(harness, 3);

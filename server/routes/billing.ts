@@ -23,6 +23,10 @@ export function billingRoutes(ctx: AppContext): ApiArea {
       res.json({ subscription: await billing.resize(scope, body.seats) });
     });
 
+    route.post('/seats/preview', 'manageSeats', { body: resizeRequestSchema }, async ({ auth: { scope }, body }, res) => {
+      res.json({ preview: await billing.previewResize(scope, body.seats) });
+    });
+
     route.post('/cancel', 'manageSeats', {}, async ({ auth: { scope } }, res) => {
       res.json({ subscription: await billing.setCancelAtPeriodEnd(scope, true) });
     });

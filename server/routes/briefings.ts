@@ -39,7 +39,9 @@ export function briefingRoutes(ctx: AppContext): ApiArea {
     });
 
     route.post('/:id/publish', 'writeBriefings', { params: briefingParams }, async ({ auth: { scope, user }, params }, res) => {
-      res.status(201).json(await briefings.publish(scope, user, params.id));
+      const published = await briefings.publish(scope, user, params.id);
+      if (published.version > 1) await ctx.briefingNotices.published(scope, user, params.id, published.version);
+      res.status(201).json(published);
     });
 
     route.post('/:id/shares', 'writeBriefings', { params: briefingParams, body: shareSchema }, async ({ auth: { scope, user }, params, body }, res) => {

@@ -7,7 +7,7 @@ const memberParams = z.object({ id: idOf('Member') });
 
 /** /api/members: the organisation's people and its seats, for its admins. */
 export function memberRoutes(ctx: AppContext): ApiArea {
-  const { members } = ctx;
+  const { members, passwordResets } = ctx;
   return memberArea('/members', (route) => {
     route.get('/', 'manageMembers', {}, async ({ auth: { scope } }, res) => {
       res.json(await members.list(scope));
@@ -19,6 +19,10 @@ export function memberRoutes(ctx: AppContext): ApiArea {
 
     route.patch('/:id', 'manageMembers', { params: memberParams, body: roleChangeSchema }, async ({ auth: { user, scope }, params, body }, res) => {
       res.json({ member: await members.changeRole(scope, user, params.id, body.role) });
+    });
+
+    route.post('/:id/password-reset', 'manageMembers', { params: memberParams }, async ({ auth: { user, scope }, params }, res) => {
+      res.json(await passwordResets.sendFor(scope, user, params.id));
     });
 
     route.delete('/:id', 'manageMembers', { params: memberParams }, async ({ auth: { user, scope }, params }, res) => {

@@ -1,9 +1,11 @@
-import { PARAMETER_NAMES, PARAMETER_SPECS, DEFAULT_PARAMETERS } from '../melt/parameters';
+import { PARAMETER_NAMES, DEFAULT_PARAMETERS } from '../melt/parameters';
 import type { ParameterOverrides, ScenarioChanges } from '../schemas/scenarios';
+import { formatPeriod, formatQuantity } from '../text/format';
+import { labelOf } from '../text/labels';
 
 type Monthly = number | number[];
 const show = (v: Monthly, unit: string, signed = false) => {
-  const one = (x: number) => `${signed && x > 0 ? '+' : ''}${x}`.replace(/^-/, '−');
+  const one = (x: number) => `${signed && x > 0 ? '+' : ''}${formatQuantity(x, 'setting')}`;
   return Array.isArray(v) ? `${v.map(one).join(', ')} ${unit} (January to December)` : `${one(v)} ${unit}`;
 };
 const isZero = (v: Monthly, zero: number) => (Array.isArray(v) ? v.every((x) => x === zero) : v === zero);
@@ -26,7 +28,7 @@ export function scenarioValues(c: ScenarioChanges): { label: string; value: stri
   if (c.precipitationSource !== null) out.push({ label: 'Precipitation from', value: c.precipitationSource === 'water-balance' ? 'the water-balance precipitation (closed against measured runoff)' : 'the station record' });
   if (c.stabilityCorrection !== null) out.push({ label: 'Stability correction of turbulent heat over snow and ice', value: c.stabilityCorrection ? 'on' : 'off' });
   if (c.warmingLevel) out.push({ label: 'Warming level preset', value: `${c.warmingLevel} °C global` });
-  if (c.period) out.push({ label: 'Period', value: `${c.period.from} to ${c.period.to}` });
+  if (c.period) out.push({ label: 'Period', value: formatPeriod(c.period.from, c.period.to) });
   return out.length ? out : [{ label: 'Changes', value: 'none (present conditions)' }];
 }
 
@@ -34,7 +36,7 @@ export function scenarioValues(c: ScenarioChanges): { label: string; value: stri
 export function parameterValues(overrides: ParameterOverrides): { label: string; value: string }[] {
   return PARAMETER_NAMES.map((name) => {
     const value = overrides[name] ?? DEFAULT_PARAMETERS[name];
-    const unit = PARAMETER_SPECS[name].unit === '-' ? '' : ` ${PARAMETER_SPECS[name].unit}`;
-    return { label: PARAMETER_SPECS[name].label, value: `${value}${unit}${overrides[name] === undefined ? '' : ' (set by the scenario)'}` };
+    const { label, unit } = labelOf(name);
+    return { label, value: `${formatQuantity(value, 'setting')}${unit ? ` ${unit}` : ''}${overrides[name] === undefined ? '' : ' (set by the scenario)'}` };
   });
 }

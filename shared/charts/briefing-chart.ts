@@ -1,4 +1,5 @@
 import type { ChartData } from '../schemas/briefings';
+import { TOOLTIP, wrappingLegend } from './chart-style';
 import { SERIES_COLOURS, seriesColour } from './palette';
 
 /**
@@ -19,13 +20,15 @@ export function briefingChartOption(chart: ChartData, options: { animation?: boo
       });
     }
   });
+  const legend = wrappingLegend(series.map((s) => String(s.name)), 480, 40);
   return {
     // Left out unless asked for, so the page's own setting (none in browser tests) applies.
     ...(options.animation === undefined ? {} : { animation: options.animation }),
     color: [...SERIES_COLOURS],
-    grid: { left: 64, right: 16, top: 40, bottom: 48 },
-    legend: { top: 4, type: 'scroll' },
-    tooltip: { trigger: 'axis' },
+    // Wraps for as many series as the briefing has; the PDF draws the chart at about this width.
+    grid: { left: 64, right: 16, top: legend.top, bottom: 48 },
+    legend: legend.legend,
+    tooltip: TOOLTIP,
     xAxis: { type: 'category', name: chart.xName, nameLocation: 'middle', nameGap: 30, data: chart.categories },
     yAxis: { type: 'value', name: chart.unit ? `${chart.yName} (${chart.unit})` : chart.yName, nameLocation: 'middle', nameGap: 48 },
     series,

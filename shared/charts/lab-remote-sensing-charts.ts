@@ -1,6 +1,6 @@
 import type { GeodeticComparisonReply, SnowCoverComparisonReply } from '../schemas/lab-remote-sensing';
 import { roundTo } from '../text/numbers';
-import type { ChartSpec } from './chart-spec';
+import { LEGEND, type ChartSpec } from './chart-spec';
 import { profileFrame } from './geodata-charts';
 import { GUIDE_GREY, lineStyle } from './palette';
 
@@ -11,7 +11,7 @@ export function snowCoverSkillChart(r: SnowCoverComparisonReply): ChartSpec {
   return {
     option: {
       tooltip: { trigger: 'item' },
-      legend: { top: 0, type: 'scroll' },
+      legend: LEGEND,
       grid: { left: 64, right: 24, top: 40, bottom: 48 },
       xAxis: { type: 'value', name: 'Mapped snow-covered fraction (%)', nameLocation: 'middle', nameGap: 28, min: 0, max: 100 },
       yAxis: { type: 'value', name: 'Simulated (%)', min: 0, max: 100 },

@@ -1,6 +1,7 @@
 import { SOURCES } from '../melt/result';
 import { INK, SURFACE_STYLES, lineStyle, seriesColour } from './palette';
 import { axis, chartNumber, GRID, LEGEND, type ChartSpec, type ResultItem } from './chart-spec';
+import { BAR_TOOLTIP } from './chart-style';
 
 const bandLabel = (elevationM: number) => `${Math.round(elevationM)} m`;
 
@@ -13,7 +14,7 @@ export function addedMeltByBand(items: ResultItem[]): ChartSpec {
     itemStyle: { color: SURFACE_STYLES[source].colour, borderColor: '#333', borderWidth: 0.5, opacity: 1 - i * 0.12 },
   })));
   return {
-    option: { tooltip: { trigger: 'axis', axisPointer: { type: 'shadow' } }, legend: LEGEND, grid: GRID, xAxis: axis('Band mean elevation (m)', 'category', bands), yAxis: axis('Added melt (mm w.e. over the band)', 'value'), series },
+    option: { tooltip: BAR_TOOLTIP, legend: LEGEND, grid: GRID, xAxis: axis('Band mean elevation (m)', 'category', bands), yAxis: axis('Added melt (mm w.e. over the band)', 'value'), series },
     table: {
       columns: [{ name: 'band', label: 'Band mean elevation (m)' }, ...items.flatMap((it, i) => SOURCES.map((s) => ({ name: `${i}-${s}`, label: `${it.label}: ${SURFACE_STYLES[s].label} (mm w.e.)` })))],
       rows: bands.map((band, b) => Object.fromEntries([['band', band], ...items.flatMap((it, i) => SOURCES.map((s) => [`${i}-${s}`, chartNumber(it.results.bandAddedMm[b][s])]))])),
@@ -35,7 +36,7 @@ export function energyComponents(item: ResultItem): ChartSpec {
     { name: `${label}, ${item.label}`, type: 'bar', data: energy.variant[key].map((v) => chartNumber(v)), itemStyle: { color: lineStyle(k).color } },
   ]);
   return {
-    option: { tooltip: { trigger: 'axis', axisPointer: { type: 'shadow' } }, legend: LEGEND, grid: GRID, xAxis: axis('Month', 'category', months), yAxis: axis('Energy flux, catchment mean (W/m²)', 'value'), series },
+    option: { tooltip: BAR_TOOLTIP, legend: LEGEND, grid: GRID, xAxis: axis('Month', 'category', months), yAxis: axis('Energy flux, catchment mean (W/m²)', 'value'), series },
     table: {
       columns: [{ name: 'month', label: 'Month' }, ...ENERGY.flatMap(({ key, label }) => [{ name: `b-${key}`, label: `${label}, baseline (W/m²)` }, { name: `v-${key}`, label: `${label}, ${item.label} (W/m²)` }])],
       rows: months.map((month, m) => Object.fromEntries([['month', month], ...ENERGY.flatMap(({ key }) => [[`b-${key}`, chartNumber(energy.baseline[key][m])], [`v-${key}`, chartNumber(energy.variant[key][m])]])])),
@@ -48,8 +49,8 @@ export function timingShift(items: ResultItem[]): ChartSpec {
   const labels = items.map((it) => it.label);
   return {
     option: {
-      tooltip: { trigger: 'axis', axisPointer: { type: 'shadow' } }, grid: { ...GRID, bottom: 90 }, xAxis: { ...axis('Variant', 'category', labels), nameGap: 60, axisLabel: { interval: 0, width: 140, overflow: 'break' } }, yAxis: axis('Timing shift of half melt (days; − = earlier)', 'value'),
-      series: [{ name: 'Timing shift', type: 'bar', barMaxWidth: 60, data: items.map((it) => it.results.totals.timingShiftDays), itemStyle: { color: seriesColour(0), decal: { symbol: 'line' } } }],
+      tooltip: BAR_TOOLTIP, grid: { ...GRID, bottom: 90 }, xAxis: { ...axis('Variant', 'category', labels), nameGap: 60, axisLine: { onZero: false }, axisLabel: { interval: 0, width: 140, overflow: 'break' } }, yAxis: axis('Timing shift of half melt (days; − = earlier)', 'value'),
+      series: [{ name: 'Timing shift', type: 'bar', barMaxWidth: 60, data: items.map((it, i) => ({ value: it.results.totals.timingShiftDays, itemStyle: { color: seriesColour(i), decal: { symbol: 'line' } } })) }],
     },
     table: {
       columns: [{ name: 'variant', label: 'Variant' }, { name: 'baseline', label: 'Baseline half-melt date' }, { name: 'variantDate', label: 'Variant half-melt date' }, { name: 'shift', label: 'Shift (days)' }],
@@ -75,7 +76,7 @@ export function attributionWaterfall(item: ResultItem): ChartSpec {
   shown.push(Math.abs(running));
   return {
     option: {
-      tooltip: { trigger: 'axis', axisPointer: { type: 'shadow' } }, grid: { ...GRID, bottom: 110 },
+      tooltip: BAR_TOOLTIP, grid: { ...GRID, bottom: 110 },
       xAxis: { ...axis('Driver or interaction', 'category', labels), nameGap: 90, axisLabel: { rotate: 30, interval: 0 } }, yAxis: axis('Added volume (million m³)', 'value'),
       series: [
         { name: 'offset', type: 'bar', stack: 'w', silent: true, itemStyle: { color: 'transparent' }, data: base.map((v) => chartNumber(v)), tooltip: { show: false } },

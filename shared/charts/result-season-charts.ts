@@ -1,6 +1,7 @@
 import { addDays } from '../melt/calendar';
 import { lineStyle } from './palette';
-import { axis, chartNumber, GRID, LEGEND, TOOLTIP, ZOOM, type ChartSpec, type ResultItem } from './chart-spec';
+import { axis, chartNumber, GRID, LEGEND, ZOOM, type ChartSpec, type ResultItem } from './chart-spec';
+import { TOOLTIP } from './chart-style';
 
 const datesOf = (item: ResultItem) => Array.from({ length: item.results.dayCount }, (_, d) => addDays(item.results.startDate, d));
 
@@ -58,12 +59,12 @@ export function albedoOfBand(items: ResultItem[], band: number): ChartSpec {
   const baseline = items[0].results.albedo.baseline[band];
   return {
     option: {
-      tooltip: TOOLTIP, legend: LEGEND, grid: GRID, xAxis: axis('Month', 'category', months), yAxis: { ...axis('Albedo (–)', 'value'), min: 0, max: 1 },
+      tooltip: TOOLTIP, legend: LEGEND, grid: GRID, xAxis: axis('Month', 'category', months), yAxis: { ...axis('Albedo', 'value'), min: 0, max: 1 },
       series: [{ name: 'Baseline', type: 'line', data: baseline.map((v) => chartNumber(v)), ...lineStyle(0, true) },
         ...items.map((it, i) => ({ name: it.label, type: 'line', data: it.results.albedo.variant[band].map((v) => chartNumber(v)), ...lineStyle(i) }))],
     },
     table: {
-      columns: [{ name: 'month', label: 'Month' }, { name: 'baseline', label: 'Baseline (–)' }, ...items.map((it, i) => ({ name: `v${i}`, label: `${it.label} (–)` }))],
+      columns: [{ name: 'month', label: 'Month' }, { name: 'baseline', label: 'Baseline albedo' }, ...items.map((it, i) => ({ name: `v${i}`, label: `${it.label} albedo` }))],
       rows: months.map((month, m) => Object.fromEntries([['month', month], ['baseline', chartNumber(baseline[m])], ...items.map((it, i) => [`v${i}`, chartNumber(it.results.albedo.variant[band][m])])])),
     },
   };

@@ -1,5 +1,6 @@
 import { addDays } from '../melt/calendar';
-import { axis, chartNumber, GRID, LEGEND, TOOLTIP, ZOOM, type ChartSpec, type ResultItem } from './chart-spec';
+import { axis, chartNumber, GRID, LEGEND, ZOOM, type ChartSpec, type ResultItem } from './chart-spec';
+import { TOOLTIP } from './chart-style';
 import { lineStyle, seriesColour } from './palette';
 
 /**

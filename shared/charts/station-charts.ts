@@ -1,5 +1,6 @@
 import type { StationComparison } from '../schemas/stations';
-import { axis, chartNumber, GRID, LEGEND, TOOLTIP, ZOOM, type ChartSpec } from './chart-spec';
+import { axis, chartNumber, GRID, LEGEND, ZOOM, type ChartSpec } from './chart-spec';
+import { TOOLTIP } from './chart-style';
 import { lineStyle } from './palette';
 
 /** Two records of one variable over the days both hold, without merging them. */

@@ -1,6 +1,7 @@
 import type { TransientResults, TransientSeries } from '../schemas/transient-results';
 import { SURFACE_STYLES, lineStyle, seriesColour, INK } from './palette';
-import { axis, chartNumber, GRID, LEGEND, TOOLTIP, type ChartSpec } from './chart-spec';
+import { axis, chartNumber, GRID, LEGEND, type ChartSpec } from './chart-spec';
+import { TOOLTIP } from './chart-style';
 
 const years = (r: TransientResults) => r.years.map(String);
 const million = (m3: number | null) => (m3 === null ? null : chartNumber(m3 / 1e6));

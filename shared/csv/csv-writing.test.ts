@@ -9,6 +9,10 @@ describe('CSV cells that look like formulas', () => {
   it('leaves numbers, including negative ones, as numbers', () => {
     expect(csvCell(-3.5)).toBe('-3.5');
     expect(csvCell(null)).toBe('');
+    // Every digit kept, never exponent notation.
+    expect(csvCell(1.9818207e-8)).toBe('0.000000019818207');
+    expect(csvCell(-2e-7)).toBe('-0.0000002');
+    expect(csvCell(1.5e21)).toBe('1500000000000000000000');
   });
 
   it('quotes commas and quotes', () => {

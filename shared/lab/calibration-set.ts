@@ -1,5 +1,6 @@
 import type { Parameters, SimulationInput } from '../melt/index';
 import { PARAMETER_SPECS } from '../melt/parameters';
+import { labelOf } from '../text/labels';
 import type { LabSite, Period } from './site';
 import { engineWaterSide, scaledFactor } from '../analysis/water-side-inputs';
 
@@ -15,6 +16,7 @@ export interface KeySpec {
   min: number;
   max: number;
   default: number;
+  /** '' for a dimensionless parameter. */
   unit: string;
 }
 
@@ -27,7 +29,7 @@ const PRECIPITATION_FACTOR: KeySpec = { label: 'Precipitation factor', min: 0.5,
 export function keySpec(key: CalibrationKey): KeySpec {
   if (key === 'precipitationFactor') return PRECIPITATION_FACTOR;
   const spec = PARAMETER_SPECS[key];
-  return { label: spec.label, min: spec.min, max: spec.max, default: spec.default, unit: spec.unit };
+  return { label: spec.label, min: spec.min, max: spec.max, default: spec.default, unit: labelOf(key).unit };
 }
 
 /** Parameters in force plus the station precipitation factor: what a catchment's calibration saves. */

@@ -25,7 +25,7 @@ describe('simulationInputSchema refuses bad input, naming field and problem', ()
   it('a band whose top is below its bottom', () => {
     const input = structuredClone(base);
     input.catchment.bands[0].upperM = 100;
-    expect(refusal(input)).toMatch(/catchment\.bands\[0\]\.upperM: must be above lowerM/);
+    expect(refusal(input)).toMatch(/catchment\.bands\[0\]\.upperM: must be above the lower elevation/);
   });
   it('an unknown time zone', () => {
     expect(refusal({ ...base, catchment: { ...base.catchment, timeZone: 'Mars/Olympus' } })).toMatch(/catchment\.timeZone: is not a known IANA time zone/);

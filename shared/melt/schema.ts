@@ -50,7 +50,7 @@ export const bandSchema = z.object({
    * the band's cells. See terrain.ts for how the sunlit share is read from it.
    */
   horizonDeg: z.array(z.array(z.number().min(-90).max(90)).length(5)).min(8).max(72).optional(),
-}).refine((b) => b.upperM > b.lowerM, { path: ['upperM'], message: 'must be above lowerM' })
+}).refine((b) => b.upperM > b.lowerM, { path: ['upperM'], message: 'must be above the lower elevation' })
   .refine((b) => !b.horizonDeg || b.horizonDeg.every((q) => q.every((v, i) => i === 0 || v >= q[i - 1])), {
     path: ['horizonDeg'], message: 'horizon percentiles must not decrease within a sector',
   });

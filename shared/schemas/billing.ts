@@ -18,6 +18,22 @@ export const checkoutReplySchema = z.object({ url: z.string() });
 export const resizeRequestSchema = z.object({ seats: seatsSchema });
 export type ResizeRequest = z.infer<typeof resizeRequestSchema>;
 
+/** What a seat change would cost, from the payment service's invoice preview, before anything changes. */
+export const seatChangePreviewSchema = z.object({
+  seats: z.number().int(),
+  currentSeats: z.number().int(),
+  /** More seats are charged at once; fewer are credited on the next invoice. */
+  chargedNow: z.boolean(),
+  /** The prorated amount in the currency's smallest unit: charged now (> 0) or credited (< 0). */
+  prorationAmount: z.number().int(),
+  /** Due now when charged now, otherwise on the next invoice, after any credit. */
+  amountDue: z.number().int(),
+  currency: z.string(),
+  /** When the next invoice falls due (the end of the paid period). */
+  nextInvoiceAt: z.string().nullable(),
+});
+export type SeatChangePreview = z.infer<typeof seatChangePreviewSchema>;
+
 export const SUBSCRIPTION_STATUSES = ['active', 'past_due', 'canceled'] as const;
 
 export const subscriptionSchema = z.object({

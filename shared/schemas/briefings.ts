@@ -61,6 +61,17 @@ export type SaveDraftRequest = z.input<typeof saveDraftSchema>;
 export type SaveDraft = z.output<typeof saveDraftSchema>;
 
 export const shareSchema = z.object({ emails: z.array(emailSchema).min(1, { error: 'Enter at least one e-mail address.' }).max(50) });
+
+/** Addresses typed into one field (comma, semicolon or space separated), checked; a problem names the address. */
+export function readShareList(text: string): { emails: string[]; error: null } | { emails: null; error: string } {
+  const list = text.split(/[\s,;]+/).filter(Boolean);
+  const parsed = shareSchema.safeParse({ emails: list });
+  if (parsed.success) return { emails: parsed.data.emails, error: null };
+  const issue = parsed.error.issues[0]!;
+  const at = issue.path[1];
+  return { emails: null, error: typeof at === 'number' ? `${list[at]}: ${issue.message}` : issue.message };
+}
+
 export const commentSchema = z.object({
   body: z.string().trim().min(1, { error: 'Write your comment or question.' }).max(4000, { error: 'Keep the comment under 4,000 characters.' }),
 });

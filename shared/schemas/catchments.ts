@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { isTimeZone } from '../melt/calendar';
+import { timeZoneSchema } from './time-zones';
 
 const trimmed = (max: number) => z.string().trim().max(max, `must be at most ${max} characters`);
 
@@ -18,7 +18,7 @@ export const catchmentFormSchema = z.object({
   description: trimmed(2000).default(''),
   latitudeDeg: z.number({ message: 'must be a number' }).min(-90, 'must be between −90 and 90').max(90, 'must be between −90 and 90'),
   longitudeDeg: z.number({ message: 'must be a number' }).min(-180, 'must be between −180 and 180').max(180, 'must be between −180 and 180'),
-  timeZone: z.string().trim().min(1, 'is required').refine(isTimeZone, { message: 'is not a known IANA time zone (e.g. Asia/Kathmandu)' }),
+  timeZone: timeZoneSchema,
   stationName: trimmed(120).min(1, 'is required'),
   stationElevationM: z.number({ message: 'must be a number' }).min(-500, 'must be between −500 and 9000 m').max(9000, 'must be between −500 and 9000 m'),
   outletDescription: trimmed(500).default(''),

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { isTimeZone } from '../melt/calendar';
+import { timeZoneSchema } from './time-zones';
 import { VARIABLE_NAMES, type Variable } from './dataset-variables';
 
 export const variableSchema = z.enum(VARIABLE_NAMES as [Variable, ...Variable[]]);
@@ -12,7 +12,7 @@ export const datasetUploadFieldsSchema = z.object({
   unit: z.string().trim().max(20).optional().transform((v) => v || undefined),
   /** Leave empty to detect it from the timestamps. */
   timeStep: z.union([timeStepSchema, z.literal('')]).optional().transform((v) => v || undefined),
-  timeZone: z.string().trim().min(1, 'is required').refine(isTimeZone, { message: 'is not a known IANA time zone (e.g. Asia/Kathmandu)' }),
+  timeZone: timeZoneSchema,
   source: z.string().trim().min(1, 'is required (who measured it, which station or product)').max(300),
   accuracy: z.string().trim().max(200).default(''),
   /** The station that recorded the series; empty: the catchment's reference station for climate series, none for observations. */

@@ -1,5 +1,9 @@
+import { formatDecimal } from './format';
+
 /**
  * Rounding and number formatting, one meaning each, for every screen, chart, export and PDF.
+ * Formatting follows the display locale of shared/text/format.ts (British English unless the
+ * browser set the user's own).
  */
 
 /** `value` to `decimals` places (half away from zero for positive halves, as Math.round). */
@@ -15,10 +19,8 @@ export function roundSignificant(value: number, digits: number): number {
 
 /**
  * A number for reading: thousands grouped, at most `digits` decimals (exactly `digits` when
- * `fixed`), a real minus sign; '–' for a missing value. British English, like every text we write.
+ * `fixed`), a real minus sign; '–' for a missing value.
  */
 export function formatNumber(value: number | null | undefined, digits = 2, options: { fixed?: boolean } = {}): string {
-  if (value === null || value === undefined || !Number.isFinite(value)) return '–';
-  const text = value.toLocaleString('en-GB', { maximumFractionDigits: digits, minimumFractionDigits: options.fixed ? digits : 0 });
-  return text.replace(/^-/, '−');
+  return formatDecimal(value, digits, options);
 }

@@ -11,5 +11,6 @@ export const teamApi = {
   changeRole: (id: number, role: Role) => api.patch(`/api/members/${id}`, { role }, { schema: memberReply }),
   remove: (id: number) => api.delete(`/api/members/${id}`),
   invite: (body: InvitationRequest) => api.post('/api/invitations', body, { schema: messageReplySchema, quiet: true }),
+  sendPasswordReset: (id: number) => api.post(`/api/members/${id}/password-reset`, undefined, { schema: messageReplySchema }),
   resend: (id: number) => api.post(`/api/invitations/${id}/resend`, undefined, { schema: messageReplySchema }),
 };

@@ -5,7 +5,7 @@ import type * as DownloadModule from 'src/composables/useDownload';
 import BaseChart from './BaseChart.vue';
 
 vi.mock('vue-echarts', () => ({ default: { name: 'Echarts', props: ['option', 'autoresize'], template: '<div class="chart-stub" />' } }));
-vi.mock('src/boot/echarts', () => ({ chartsAnimated: false, renderSvg: () => '<svg />' }));
+vi.mock('src/boot/echarts', () => ({ chartsAnimated: false, renderSvg: () => Promise.resolve('<svg />'), renderPng: () => 'data:image/png;base64,' }));
 const saved = vi.hoisted(() => [] as { text: string; fileName: string }[]);
 vi.mock('src/composables/useDownload', async (original) => ({
   ...(await original<typeof DownloadModule>()),
@@ -33,7 +33,7 @@ describe('BaseChart', () => {
     expect(wrapper.find('.chart-stub').exists()).toBe(false);
     // Virtual scrolling adds one-cell spacer rows around the data rows.
     const cells = wrapper.findAll('tbody tr').map((tr) => tr.findAll('td').map((td) => td.text())).filter((row) => row.length === 2);
-    expect(cells).toEqual([['2024-01-01 00:00', '-3.5'], ['2024-01-01 01:00', '']]);
+    expect(cells).toEqual([['2024-01-01 00:00', '−3.5'], ['2024-01-01 01:00', '']]);
   });
 
   it('downloads the table as CSV with formula-like text escaped', async () => {

@@ -36,4 +36,18 @@ describe('form fields', () => {
     expect(wrapper.find('[data-test=form-error]').attributes('role')).toBe('alert');
     expect(wrapper.find('[data-test=form-error]').text()).toBe('E-mail or password is not right.');
   });
+
+  it('shows a number set from outside rounded, and what the user types as typed', async () => {
+    const wrapper = mount(BaseInput, {
+      props: { modelValue: -5.80327, rounded: true, type: 'number', label: 'Temperature lapse rate', 'onUpdate:modelValue': (v: string | number | null) => wrapper.setProps({ modelValue: Number(v) }) },
+      global: { plugins: [Quasar] },
+    });
+    const input = wrapper.find('input');
+    expect(input.element.value).toBe('-5.803');
+    await input.setValue('-6.12345');
+    expect(wrapper.props('modelValue')).toBe(-6.12345);
+    expect(input.element.value).toBe('-6.12345');
+    await wrapper.setProps({ modelValue: 1.49574 });
+    expect(input.element.value).toBe('1.496');
+  });
 });

@@ -24,14 +24,19 @@ describe('the band table editor', () => {
     expect(table.paste(0, 0, '2900')).toBe(false);
   });
 
-  it('names row and field of every problem', () => {
+  it('names row and field of every problem, all at once', () => {
     const table = useBandTable();
-    table.paste(0, 0, [ROW.join('\t'), ['3100', '3400', 'x', '20', '180', '0.5', '0.2', '0.1'].join('\t')].join('\n'));
+    table.paste(0, 0, [ROW.join('\t'), ['3100', '3400', 'x', '20', '180', '0.5', '1.5', '0.1'].join('\t')].join('\n'));
     expect(table.validate()).toBeNull();
-    expect(table.problems.value).toEqual([{ row: 2, column: 'areaKm2', message: '"x" is not a number' }]);
+    expect(table.problems.value).toEqual([
+      { row: 2, column: 'areaKm2', message: '"x" is not a number' },
+      { row: 2, column: 'debrisFraction', message: 'must be between 0 and 1' },
+      { row: 2, column: 'lowerM', message: expect.stringContaining('overlaps the band below') },
+    ]);
     table.rows.value[1].areaKm2 = '3';
+    table.rows.value[1].debrisFraction = '0.2';
     expect(table.validate()).toBeNull();
-    expect(table.cellErrors.value['2:lowerM']).toContain('overlaps the band below');
+    expect(Object.keys(table.cellErrors.value)).toEqual(['2:lowerM']);
   });
 
   it('starts a new band where the last one ends', () => {

@@ -1,5 +1,5 @@
 import { computed, ref, type ComputedRef, type Ref } from 'vue';
-import { BAND_FIELDS, bandIssuesToProblems, bandTableSchema, type AspectClassValue, type BandField, type BandProblem, type BandRow } from '@shared/schemas/catchment-bands';
+import { BAND_FIELDS, bandTableProblems, bandTableSchema, type AspectClassValue, type BandField, type BandProblem, type BandRow } from '@shared/schemas/catchment-bands';
 
 /** A band row as typed in the editor: text per field, so half-typed numbers are kept as written; a response unit keeps its aspect class. */
 export type BandDraft = Record<BandField, string> & { aspectClass?: AspectClassValue };
@@ -73,15 +73,13 @@ export function useBandTable(): BandTable {
       })),
       ...(row.aspectClass ? { aspectClass: row.aspectClass } : {}),
     }));
-    if (found.length === 0) {
-      const parsed = bandTableSchema.safeParse(bands);
-      if (parsed.success) {
-        problems.value = [];
-        return parsed.data;
-      }
-      found.push(...bandIssuesToProblems(parsed.error.issues));
+    const parsed = bandTableSchema.safeParse(bands);
+    if (parsed.success && found.length === 0) {
+      problems.value = [];
+      return parsed.data;
     }
-    problems.value = found;
+    // Every problem at once: the cells that are not numbers, each row's checks and the order of the rows.
+    problems.value = bandTableProblems(bands, found);
     return null;
   }
 

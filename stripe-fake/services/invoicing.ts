@@ -50,15 +50,50 @@ export function createInvoice(
 ): Invoice {
   const customer = ctx.state.customers.get(subscription.customer)!;
   const id = newId('in');
+  const invoice = invoiceOf(ctx, subscription, reason, drafts, period, id, `${customer.invoice_prefix}-${String(customer.next_invoice_sequence).padStart(4, '0')}`);
+  customer.balance = invoice.ending_balance;
+  customer.next_invoice_sequence += 1;
+  subscription.latest_invoice = id;
+  return ctx.state.invoices.add(invoice);
+}
+
+/** An invoice preview: a draft with no number and no hosted pages, as the service answers createPreview. */
+export type PreviewInvoice = Omit<Invoice, 'number' | 'hosted_invoice_url' | 'invoice_pdf' | 'status' | 'status_transitions'> & {
+  number: null;
+  hosted_invoice_url: null;
+  invoice_pdf: null;
+  status: 'draft';
+  status_transitions: { finalized_at: null; paid_at: null };
+};
+
+/** The invoice `drafts` would make, changing nothing and stored nowhere (invoices.createPreview). */
+export function previewInvoice(
+  ctx: FakeContext,
+  subscription: Subscription,
+  reason: BillingReason,
+  drafts: LineDraft[],
+  period: { start: number; end: number },
+): PreviewInvoice {
+  const { number: _number, hosted_invoice_url: _page, invoice_pdf: _pdf, status: _status, status_transitions: _transitions, ...invoice } =
+    invoiceOf(ctx, subscription, reason, drafts, period, `upcoming_${subscription.id}`, '');
+  return { ...invoice, number: null, hosted_invoice_url: null, invoice_pdf: null, status: 'draft', status_transitions: { finalized_at: null, paid_at: null } };
+}
+
+function invoiceOf(
+  ctx: FakeContext,
+  subscription: Subscription,
+  reason: BillingReason,
+  drafts: LineDraft[],
+  period: { start: number; end: number },
+  id: string,
+  number: string,
+): Invoice {
+  const customer = ctx.state.customers.get(subscription.customer)!;
   const total = drafts.reduce((sum, line) => sum + line.amount, 0);
   const startingBalance = customer.balance;
   const amountDue = amountDueAfterCredit(ctx, customer.id, total);
-  const endingBalance = Math.min(0, total + startingBalance);
-  customer.balance = endingBalance;
-  const sequence = customer.next_invoice_sequence;
-  customer.next_invoice_sequence += 1;
   const now = ctx.clock.now();
-  const invoice: Invoice = {
+  return {
     id,
     object: 'invoice',
     amount_due: amountDue,
@@ -73,7 +108,7 @@ export function createInvoice(
     customer: customer.id,
     customer_email: customer.email,
     customer_name: customer.name,
-    ending_balance: endingBalance,
+    ending_balance: Math.min(0, total + startingBalance),
     hosted_invoice_url: `${ctx.publicUrl}/hosted/invoices/${id}`,
     invoice_pdf: `${ctx.publicUrl}/hosted/invoices/${id}/pdf`,
     lines: {
@@ -84,7 +119,7 @@ export function createInvoice(
     },
     livemode: false,
     metadata: {},
-    number: `${customer.invoice_prefix}-${String(sequence).padStart(4, '0')}`,
+    number,
     parent: {
       quote_details: null,
       subscription_details: { metadata: { ...subscription.metadata }, subscription: subscription.id },
@@ -99,8 +134,6 @@ export function createInvoice(
     subtotal: total,
     total,
   };
-  subscription.latest_invoice = id;
-  return ctx.state.invoices.add(invoice);
 }
 
 /** Whether charging this customer's saved card fails now; uses up a fail-next flag. */

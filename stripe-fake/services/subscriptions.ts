@@ -6,7 +6,7 @@ import { applyMetadataChanges } from '../metadata';
 import type { Metadata, Price, Subscription } from '../types';
 import { cardError } from './cards';
 import { emitEvent, previousAttributes } from './events';
-import { amountDueAfterCredit, collectInvoice, createInvoice, savedCardChargeFails, seatLine } from './invoicing';
+import { amountDueAfterCredit, collectInvoice, createInvoice, previewInvoice, savedCardChargeFails, seatLine, type PreviewInvoice } from './invoicing';
 import { quantityProrationLines } from './prorations';
 
 export interface NewSubscription {
@@ -128,6 +128,35 @@ export function changeSubscription(ctx: FakeContext, subscription: Subscription,
   });
   // The card was already charged above when the caller asked for error_if_incomplete.
   collectInvoice(ctx, invoice, change.payment_behavior === 'error_if_incomplete');
+}
+
+export interface SubscriptionPreview {
+  items?: { id?: string; quantity?: number }[];
+  proration_behavior?: 'create_prorations' | 'always_invoice' | 'none';
+  proration_date?: number;
+}
+
+/**
+ * invoices.createPreview for a subscription change, changing nothing: with `always_invoice`
+ * the invoice the change would charge at once (its prorations), otherwise the next renewal's
+ * (pending prorations, this change's and the next period at the new seat count).
+ */
+export function previewSubscriptionChange(ctx: FakeContext, subscription: Subscription, change: SubscriptionPreview): PreviewInvoice {
+  if (subscription.status === 'canceled') throw invalidState('A canceled subscription has no upcoming invoice.');
+  const item = subscription.items.data[0];
+  const itemChange = change.items?.[0];
+  if (change.items && change.items.length > 1) throw invalidParam('subscription_details[items]', 'The local fake sells a single seat price; send one item.');
+  if (itemChange?.id && itemChange.id !== item.id) throw noSuch('subscription item', itemChange.id, 'subscription_details[items][0][id]');
+  const at = change.proration_date ?? ctx.clock.now();
+  const newQuantity = itemChange?.quantity ?? item.quantity;
+  const behavior = change.proration_behavior ?? 'create_prorations';
+  const prorations = newQuantity === item.quantity || behavior === 'none' ? [] : quantityProrationLines(subscription, item.quantity, newQuantity, at);
+  const { current_period_end: end } = subscription;
+  if (behavior === 'always_invoice') return previewInvoice(ctx, subscription, 'subscription_update', prorations, { start: at, end });
+  const next = { ...subscription, items: { ...subscription.items, data: [{ ...item, quantity: newQuantity }] } };
+  const nextEnd = addInterval(end, item.price.recurring.interval);
+  const pending = ctx.state.pendingProrations.get(subscription.id) ?? [];
+  return previewInvoice(ctx, subscription, 'subscription_cycle', [...pending, ...prorations, seatLine(next, { start: end, end: nextEnd })], { start: end, end: nextEnd });
 }
 
 /** Ends the subscription at `at` (now, or the end of the period for a scheduled cancellation). */

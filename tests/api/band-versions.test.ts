@@ -56,6 +56,6 @@ describe('band tables as versions', () => {
     expect(saved.body.bands.map((b: { aspectClass?: string }) => b.aspectClass ?? null)).toEqual(['N', 'S', null]);
     const twice = await consultant.put(`/api/catchments/${catchmentId}/bands`).send({ bands: [units[0], { ...units[1], aspectClass: 'N' }, high] });
     expect(twice.status).toBe(422);
-    expect(twice.body.error.message).toMatch(/^Row 2, aspectClass: repeats the aspect class N/);
+    expect(twice.body.error.message).toMatch(/^Row 2, aspect class: repeats the aspect class N/);
   });
 });

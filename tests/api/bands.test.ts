@@ -34,12 +34,12 @@ describe('saving a band table', () => {
   });
 
   it.each([
-    ['overlapping bands', [band(3000, 3200), band(3100, 3400)], 'bands.1.lowerM', 'Row 2, lowerM: overlaps the band below (its upper edge is 3200 m)'],
-    ['a gap between bands', [band(3000, 3200), band(3300, 3400)], 'bands.1.lowerM', 'Row 2, lowerM: leaves a gap above the band below'],
-    ['a fraction above 1', [band(3000, 3200, { glacierFraction: 1.2 })], 'bands.0.glacierFraction', 'Row 1, glacierFraction:'],
-    ['a zero area', [band(3000, 3200), band(3200, 3400, { areaKm2: 0 })], 'bands.1.areaKm2', 'Row 2, areaKm2:'],
-    ['an implausible elevation', [band(9000, 9500)], 'bands.0.upperM', 'Row 1, upperM:'],
-    ['an upper edge below the lower', [band(3200, 3000)], 'bands.0.upperM', 'Row 1, upperM: must be above lowerM'],
+    ['overlapping bands', [band(3000, 3200), band(3100, 3400)], 'bands.1.lowerM', 'Row 2, lower elevation: overlaps the band below (its upper edge is 3200 m)'],
+    ['a gap between bands', [band(3000, 3200), band(3300, 3400)], 'bands.1.lowerM', 'Row 2, lower elevation: leaves a gap above the band below'],
+    ['a fraction above 1', [band(3000, 3200, { glacierFraction: 1.2 })], 'bands.0.glacierFraction', 'Row 1, glacier fraction: must be between 0 and 1'],
+    ['a zero area', [band(3000, 3200), band(3200, 3400, { areaKm2: 0 })], 'bands.1.areaKm2', 'Row 2, area: must be more than 0 km²'],
+    ['an implausible elevation', [band(9000, 9500)], 'bands.0.upperM', 'Row 1, upper elevation: must be between -500 and 9000 m'],
+    ['an upper edge below the lower', [band(3200, 3000)], 'bands.0.upperM', 'Row 1, upper elevation: must be above the lower elevation'],
   ])('refuses %s, naming row and field, and keeps the stored table', async (_what, bands, field, message) => {
     const id = await newCatchment();
     const good = [band(2000, 2500)];
@@ -86,7 +86,8 @@ describe('band files', () => {
     const id = await newCatchment();
     const res = await agent.post(`/api/catchments/${id}/bands/file`).attach('file', Buffer.from('from,to\n1,2\n'), { filename: 'b.csv', contentType: 'text/csv' });
     expect(res.status).toBe(422);
-    expect(res.body.error.message).toContain('missing lowerM, upperM');
+    expect(res.body.error.message).toContain('Lower elevation (m), Upper elevation (m), Area (km²)');
+    expect(res.body.error.message).not.toMatch(/lowerM|areaKm2/);
   });
 
   it('downloads the band table as CSV', async () => {
@@ -95,6 +96,15 @@ describe('band files', () => {
     const res = await agent.get(`/api/catchments/${id}/bands.csv`);
     expect(res.headers['content-disposition']).toContain('attachment');
     // With a byte-order mark, so spreadsheet programs read it as UTF-8.
-    expect(res.text).toBe('\uFEFFlowerM,upperM,areaKm2,slopeDeg,aspectDeg,glacierFraction,debrisFraction,debrisThicknessM\r\n3000,3200,3.2,20,180,0.4,0.5,0.2\r\n');
+    expect(res.text).toBe('\uFEFFLower elevation (m),Upper elevation (m),Area (km²),Mean slope (°),Mean aspect (° from north),Glacier fraction (0–1 of band),Debris-covered fraction (0–1 of glacier),Debris thickness (m)\r\n3000,3200,3.2,20,180,0.4,0.5,0.2\r\n');
+  });
+
+  it('reads back the file it downloads', async () => {
+    const id = await newCatchment();
+    await agent.put(`/api/catchments/${id}/bands`).send({ bands: [band(3000, 3200), band(3200, 3400)] });
+    const file = (await agent.get(`/api/catchments/${id}/bands.csv`)).text;
+    const res = await agent.post(`/api/catchments/${id}/bands/file`).attach('file', Buffer.from(file), { filename: 'b.csv', contentType: 'text/csv' });
+    expect(res.body.problems).toEqual([]);
+    expect(res.body.bands).toEqual((await agent.get(`/api/catchments/${id}/bands`)).body.bands);
   });
 });

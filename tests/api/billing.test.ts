@@ -196,6 +196,24 @@ describe('seat changes', () => {
     expect((await h.remote(ref)).items.data[0]!.quantity).toBe(4);
   });
 
+  it('previews the prorated price of a seat change before anything changes, and charges what it showed', async () => {
+    const admin = await signedInAgent(h.t.app, org.users.admin.email);
+    const res = await admin.post('/api/billing/seats/preview').send({ seats: 6 });
+    expect(res.status).toBe(200);
+    const { preview } = res.body;
+    expect(preview).toMatchObject({ seats: 6, currentSeats: 4, chargedNow: true, currency: 'eur' });
+    // Two more seats for the rest of the period: more than nothing, at most two full-period seats.
+    expect(preview.prorationAmount).toBeGreaterThan(0);
+    expect(preview.prorationAmount).toBeLessThanOrEqual(2 * 3900);
+    expect(preview.amountDue).toBe(preview.prorationAmount);
+    expect((await h.remote(ref)).items.data[0]!.quantity).toBe(4);
+    expect((await localRow(org)).seats).toBe(4);
+    const fewer = (await admin.post('/api/billing/seats/preview').send({ seats: 3 })).body.preview;
+    expect(fewer).toMatchObject({ chargedNow: false, seats: 3 });
+    expect(fewer.prorationAmount).toBeLessThan(0);
+    expect((await admin.post('/api/billing/seats/preview').send({ seats: 0 })).status).toBe(422);
+  });
+
   it('adds seats at once and charges them on an invoice with a PDF link', async () => {
     const admin = await signedInAgent(h.t.app, org.users.admin.email);
     const res = await admin.put('/api/billing/seats').send({ seats: 7 });

@@ -129,6 +129,9 @@ describe('client access', () => {
     const shared = await consultant.post(`/api/briefings/${briefingId}/shares`).send({ emails: [org.users.client.email.toUpperCase()] });
     expect(shared.status).toBe(200);
     expect(shared.body.briefing.sharedWith.map((s: { email: string }) => s.email)).toEqual([org.users.client.email]);
+    // The client is told by mail, with the link that opens the briefing.
+    const mail = await catcher.waitFor((m) => m.to.includes(org.users.client.email) && /shared a briefing with you/.test(m.subject));
+    expect(mail.text).toContain(`/briefings/${briefingId}`);
 
     const list = (await client.get('/api/briefings')).body.briefings;
     expect(list.map((b: { id: number }) => b.id)).toEqual([briefingId]);
@@ -167,6 +170,18 @@ describe('client access', () => {
     ];
     for (const res of await Promise.all(attempts)) expect(res.status).toBe(403);
     expect((await consultant.get(`/api/briefings/${briefingId}/draft`)).body.briefing.title).not.toBe('Mine now');
+  });
+
+  it('tells the clients it is shared with by mail when a new version is published', async () => {
+    const created = await consultant.post('/api/briefings').send({ catchmentId, title: 'Second look at the soot', selection: { runIds: [runId] } });
+    const id = created.body.briefing.id;
+    expect((await consultant.post(`/api/briefings/${id}/publish`)).status).toBe(201);
+    expect((await consultant.post(`/api/briefings/${id}/shares`).send({ emails: [org.users.client.email] })).status).toBe(200);
+    const published = await consultant.post(`/api/briefings/${id}/publish`);
+    expect(published.body.version).toBe(2);
+    const mail = await catcher.waitFor((m) => m.to.includes(org.users.client.email) && m.subject === 'New version of a briefing shared with you: Second look at the soot');
+    expect(mail.text).toContain('published version 2 of the briefing "Second look at the soot"');
+    expect(mail.text).toContain(`/briefings/${id}`);
   });
 
   it('invites a new address as a client at no seat cost and shares with them', async () => {

@@ -200,7 +200,7 @@ describe('reading stored data back', () => {
     const csv = await agent.get(`/api/catchments/${id}/datasets/${dataset.id}/csv`);
     expect(csv.headers['content-type']).toContain('text/csv');
     // The byte-order mark makes spreadsheet programs read units such as °C as UTF-8.
-    expect(csv.text.split('\r\n')[0]).toBe('\uFEFFdate,precipitation (mm)');
+    expect(csv.text.split('\r\n')[0]).toBe('\uFEFFdate,Precipitation (mm)');
     expect(csv.headers['content-disposition']).toBe(`attachment; filename="precipitation-${dataset.id}.csv"`);
     expect(csv.text.split('\r\n')[1]).toBe('2024-01-01,0');
   });

@@ -76,6 +76,33 @@ describe('using the link', () => {
   });
 });
 
+describe('a reset sent by an admin', () => {
+  it("mails the member a working link naming the admin, for the admin's own members only", async () => {
+    const team = await createOrganisation(h.t.db);
+    const admin = await signedInAgent(h.t.app, team.users.admin.email);
+    const res = await admin.post(`/api/members/${team.users.scientist.id}/password-reset`);
+    expect(res.status).toBe(200);
+    expect(res.body.message).toContain(team.users.scientist.email);
+    const mail = await h.catcher.waitFor((m) => m.to.includes(team.users.scientist.email));
+    expect(mail.text).toContain('an admin of your team, sent you a link');
+    expect((await complete(tokenIn(mail.text))).status).toBe(200);
+    await signedInAgent(h.t.app, team.users.scientist.email, NEW_PASSWORD);
+    // Another organisation's member is not found; a consultant may not send resets.
+    expect((await admin.post(`/api/members/${org.users.client.id}/password-reset`)).status).toBe(404);
+    const consultant = await signedInAgent(h.t.app, team.users.consultant.email);
+    expect((await consultant.post(`/api/members/${team.users.client.id}/password-reset`)).status).toBe(403);
+  });
+
+  it('refuses a member who has not joined yet', async () => {
+    const team = await createOrganisation(h.t.db);
+    await h.t.db('users').where({ id: team.users.client.id }).update({ status: 'invited' });
+    const admin = await signedInAgent(h.t.app, team.users.admin.email);
+    const res = await admin.post(`/api/members/${team.users.client.id}/password-reset`);
+    expect(res.status).toBe(409);
+    expect(res.body.error.message).toContain('has not joined yet');
+  });
+});
+
 describe('development inbox', () => {
   it('lists caught mails outside production', async () => {
     const res = await request(h.t.app).get('/api/dev/inbox');

@@ -68,7 +68,7 @@ describe('scenarios', () => {
   it('refuse invalid changes naming the field and the allowed range', async () => {
     const res = await consultant.post(`/api/catchments/${catchmentId}/scenarios`).send({ name: 'Bad', changes: { dustSnowUgG: 9000 } });
     expect(res.status).toBe(422);
-    expect(res.body.error).toMatchObject({ field: 'changes.dustSnowUgG', message: 'changes.dustSnowUgG: must be at most 5000 µg/g' });
+    expect(res.body.error).toMatchObject({ field: 'changes.dustSnowUgG', message: 'Dust in snow: must be at most 5000 µg/g' });
     const months = await consultant.post(`/api/catchments/${catchmentId}/scenarios`).send({ name: 'Bad', changes: { temperatureDeltaC: [1, 2] } });
     expect(months.status).toBe(422);
     expect(months.body.error.message).toMatch(/12 monthly values/);

@@ -71,7 +71,7 @@ describe('building engine inputs from stored data', () => {
     await t.db('datasets').where({ catchment_id: id, variable: 'temperature' }).update({ time_zone: 'UTC' });
     const built = await buildSimulationInputs(scope, bands, id, { from: '2024-07-01', to: '2024-07-02' });
     expect(built.ready).toBe(true);
-    expect(built.notes).toEqual([expect.stringMatching(/^temperature \(dataset \d+\) is kept in UTC, the catchment in Asia\/Kolkata/)]);
+    expect(built.notes).toEqual([expect.stringMatching(/^Air temperature \(hourly or daily mean\) \(dataset \d+\) is kept in UTC, the catchment in Asia\/Kolkata/)]);
   });
 
   it('bridges a short gap by interpolation and says so', async () => {
@@ -92,7 +92,7 @@ describe('building engine inputs from stored data', () => {
       expect.objectContaining({ variable: 'temperature', from: '2024-07-03 00:00', to: '2024-07-03 23:00', bridged: false }),
       expect.objectContaining({ variable: 'precipitation', from: '2024-07-03', to: '2024-07-03', bridged: false }),
     ]));
-    expect(() => requireReadyInputs(built)).toThrow(/temperature \(dataset \d+\) has no values from 2024-07-01 05:00 to 2024-07-01 12:00/);
+    expect(() => requireReadyInputs(built)).toThrow(/Air temperature \(hourly or daily mean\) \(dataset \d+\) has no values from 2024-07-01 05:00 to 2024-07-01 12:00/);
   });
 
   it('builds daily forcing from daily minimum and maximum temperature', async () => {

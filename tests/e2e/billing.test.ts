@@ -52,6 +52,13 @@ describe('seats and team in the browser', () => {
     await page.waitForSelector('[data-test=resize-seats]');
     await page.fill('[data-test=resize-seats]', '6');
     await page.click('[data-test=resize-submit]');
+    // The prorated price first, from the payment service's preview; nothing changes until confirmed.
+    const price = await page.waitForSelector('[data-test=resize-price]');
+    expect(await price.innerText()).toMatch(/3 more seat\(s\) for the rest of this period: €\d+\.\d\d charged now/);
+    expect(await page.locator('[data-test=resize-confirm-button]').innerText()).toMatch(/Pay €\d+\.\d\d and change/i);
+    await shot(page, 'seat-change-confirmation');
+    expect(await page.locator('[data-test=plan-seats]').innerText()).toBe('3');
+    await page.click('[data-test=resize-confirm-button]');
     await page.waitForFunction(() => document.querySelector('[data-test=plan-seats]')?.textContent === '6');
     await page.waitForFunction(() => document.querySelectorAll('[data-test=invoice-table] tbody tr').length >= 2);
     await shot(page, 'seats-and-billing');

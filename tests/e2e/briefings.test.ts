@@ -76,6 +76,12 @@ describe('briefings in the browser', () => {
 
     await page.click('[data-test=tab-draft]');
     await page.click('[data-test=publish]');
+    // Publishing asks first, names who it is shared with and offers to share with more in the same step.
+    const dialog = await page.waitForSelector('[data-test=publish-dialog]');
+    expect(await dialog.innerText()).toContain('Publish version 1?');
+    expect(await page.textContent('[data-test=publish-shared-with]')).toContain(client.email);
+    await page.screenshot({ path: 'test-results/briefing-publish-confirmation.png' });
+    await page.click('[data-test=publish-confirm]');
     await page.waitForSelector('[data-test=briefing-version]:has-text("Version 1")');
     expect(await page.textContent('[data-test=briefing-title]')).toBe(title);
     await page.close();

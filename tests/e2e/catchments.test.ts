@@ -101,10 +101,21 @@ describe('catchments in the browser', () => {
     expect(svg.suggestedFilename()).toMatch(/^temperature-\d+\.svg$/);
     await page.click('[data-test=series-chart-view] >> text=Table');
     await page.waitForSelector('[data-test=series-chart] table >> text=2024-01-01 00:00');
+    // The picture downloads from the table view too (it is drawn off screen from the chart's option).
+    const [png] = await Promise.all([page.waitForEvent('download'), page.click('[data-test=series-chart-download]').then(() => page.click('text=Picture (PNG)'))]);
+    expect(png.suggestedFilename()).toMatch(/^temperature-\d+\.png$/);
+    const pngBytes = Buffer.from(await new Response((await png.createReadStream()) as unknown as ReadableStream).arrayBuffer());
+    expect(pngBytes.subarray(1, 4).toString()).toBe('PNG');
+    expect(pngBytes.length).toBeGreaterThan(5000);
 
     await page.click('[data-test=tab-bands]');
     await page.setInputFiles('[data-test=band-file]', BAD_BANDS);
-    await page.waitForSelector('[data-test=band-problems] >> text=Row 4, glacierFraction');
+    await page.waitForSelector('[data-test=band-problems] >> text=Row 4, glacier fraction: must be between 0 and 1');
+    // Every problem at once, by row: the overlap of row 3 beside the fraction of row 4.
+    expect(await page.locator('[data-test=band-problems] li').allTextContents()).toEqual([
+      'Row 3, lower elevation: overlaps the band below (its upper edge is 3800 m); sort bands from low to high without overlaps',
+      'Row 4, glacier fraction: must be between 0 and 1',
+    ]);
     await page.setInputFiles('[data-test=band-file]', GOOD_BANDS);
     await page.waitForSelector('[data-test=band-problems]', { state: 'detached' });
     await page.click('[data-test=band-save]');

@@ -34,6 +34,8 @@ export async function launchBrowser(): Promise<BrowserWindow> {
     headless: true,
     args: CHROMIUM_ARGS,
     viewport: { width: 1280, height: 860 },
+    // The browser's language is the default display locale: British English, as the tests read it.
+    locale: 'en-GB',
   });
   return {
     context,

@@ -10,6 +10,7 @@ import {
   type CheckoutRequest,
   type Invoice,
   type Plan,
+  type SeatChangePreview,
   type Subscription,
 } from '../../../shared/schemas/billing';
 import type { TenantScope } from '../tenant-scope';
@@ -17,6 +18,10 @@ import { callPayments } from './payments-client';
 import { isActive, lockOrganisation, NO_SUBSCRIPTION, seatsInUse, seatUsage, subscriptionOf, type SubscriptionRow } from './seats';
 import { openCheckoutOnce } from './pending-checkout';
 import { applySubscription } from './subscription-sync';
+
+/** A proration line, as the payment service marks it (its parent's proration flag in newer API versions). */
+const isProration = (line: Stripe.InvoiceLineItem) =>
+  (line as { proration?: boolean }).proration === true || line.parent?.subscription_item_details?.proration === true;
 
 /** Seat plans bought, resized and cancelled through the payment service; our table follows its answers and webhooks. */
 export class BillingService {
@@ -114,6 +119,28 @@ export class BillingService {
       await applySubscription(trx, scope.organisationId, updated);
       return this.toSubscription((await subscriptionOf(trx, scope.organisationId))!);
     });
+  }
+
+  /**
+   * What changing to `seats` would charge or credit, from the payment service's invoice preview
+   * with the same proration the change itself uses (see resize); nothing changes.
+   */
+  async previewResize(scope: TenantScope, seats: number): Promise<SeatChangePreview> {
+    const row = await subscriptionOf(this.db, scope.organisationId);
+    if (!row) throw notFound('Seat plan');
+    if (!isActive(row)) throw paymentRequired('The seat plan is not active; buy a new plan instead.');
+    const growing = seats > row.seats;
+    const preview = await callPayments(() =>
+      this.payments.invoices.createPreview({
+        subscription: row.subscription_ref,
+        subscription_details: { items: [{ id: row.item_ref, quantity: seats }], proration_behavior: growing ? 'always_invoice' : 'create_prorations' },
+      }),
+    );
+    const prorationAmount = preview.lines.data.filter((line) => isProration(line)).reduce((sum, line) => sum + line.amount, 0);
+    return {
+      seats, currentSeats: row.seats, chargedNow: growing, prorationAmount, amountDue: preview.amount_due, currency: preview.currency,
+      nextInvoiceAt: this.toSubscription(row).currentPeriodEnd,
+    };
   }
 
   /** Cancels at the end of the paid period, or undoes that while the period runs. */

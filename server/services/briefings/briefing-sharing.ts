@@ -5,6 +5,7 @@ import type { UserRow } from '../auth/auth-service';
 import type { InvitationService } from '../members/invitation-service';
 import type { TenantScope } from '../tenant-scope';
 import { recordEvent } from './briefing-audit';
+import type { BriefingNotices } from './briefing-notices';
 import { readableBriefing, writes } from './briefing-access';
 
 /** A readable name for an invited client until they choose their own: the address's local part. */
@@ -12,15 +13,20 @@ const nameFromEmail = (email: string) => email.split('@')[0].replace(/[._-]+/g, 
 
 /** Sharing briefings with client users (inviting new ones at no seat cost) and the comments on a briefing. */
 export class BriefingSharing {
-  constructor(private readonly invitations: InvitationService) {}
+  constructor(
+    private readonly invitations: InvitationService,
+    private readonly notices: BriefingNotices,
+  ) {}
 
   /**
    * Shares with each address: an existing client of this organisation, or a new client account
    * created by invitation. Team members are refused by field; another organisation's address is
    * left out without saying so (its owner is told by mail), as when it is invited to the team.
+   * Existing clients the briefing is newly shared with get a mail with its link.
    */
   async share(scope: TenantScope, actor: UserRow, briefingId: number, emails: string[]): Promise<void> {
     await scope.findOr404('briefings', briefingId, 'Briefing');
+    const newlyShared: number[] = [];
     for (const [i, email] of [...new Set(emails)].entries()) {
       const field = `emails.${i}`;
       const existing = await scope.db('users').where({ email }).first('id', 'organisation_id', 'role');
@@ -36,8 +42,12 @@ export class BriefingSharing {
       const inserted = await scope.db('briefing_shares')
         .insert({ organisation_id: scope.organisationId, briefing_id: briefingId, user_id: userId, shared_by: actor.id })
         .onConflict(['briefing_id', 'user_id']).ignore();
-      if (inserted.length && inserted[0]) await recordEvent(scope, briefingId, actor, 'shared', null, email);
+      if (inserted.length && inserted[0]) {
+        await recordEvent(scope, briefingId, actor, 'shared', null, email);
+        newlyShared.push(userId);
+      }
     }
+    await this.notices.shared(scope, actor, briefingId, newlyShared);
   }
 
   async unshare(scope: TenantScope, actor: UserRow, briefingId: number, userId: number): Promise<void> {

@@ -1,7 +1,9 @@
 import type { InvitationService } from '../members/invitation-service';
 import type { ResultsService } from '../runs/results-service';
 import type { ThreadBudget } from '../thread-budget';
+import type { MailService } from '../mail/mail-service';
 import { BriefingExports } from './briefing-exports';
+import { BriefingNotices } from './briefing-notices';
 import { BriefingService } from './briefing-service';
 import { BriefingSharing } from './briefing-sharing';
 import type { BriefingResultsSource } from './comparison';
@@ -11,6 +13,8 @@ import { RunsResultsSource } from './runs-results-source';
 export interface BriefingServices {
   briefings: BriefingService;
   briefingSharing: BriefingSharing;
+  /** Mails to clients when a briefing is shared with them or a new version is published. */
+  briefingNotices: BriefingNotices;
   briefingExports: BriefingExports;
   /** The worker thread that lays out PDFs, on the shared thread budget. */
   pdfPool: PdfPool;
@@ -19,6 +23,8 @@ export interface BriefingServices {
 export interface BriefingServicesDeps {
   results: ResultsService;
   invitations: InvitationService;
+  mail: MailService;
+  publicUrl: () => string;
   threads: ThreadBudget;
   /** Where briefing numbers come from; finished runs unless given. */
   briefingResults?: BriefingResultsSource;
@@ -28,5 +34,9 @@ export interface BriefingServicesDeps {
 export function createBriefingServices(deps: BriefingServicesDeps): BriefingServices {
   const briefings = new BriefingService(deps.briefingResults ?? new RunsResultsSource(deps.results));
   const pdfPool = new PdfPool(deps.threads);
-  return { briefings, briefingSharing: new BriefingSharing(deps.invitations), briefingExports: new BriefingExports(briefings, pdfPool), pdfPool };
+  const briefingNotices = new BriefingNotices(deps.mail, deps.publicUrl);
+  return {
+    briefings, briefingSharing: new BriefingSharing(deps.invitations, briefingNotices), briefingNotices,
+    briefingExports: new BriefingExports(briefings, pdfPool), pdfPool,
+  };
 }

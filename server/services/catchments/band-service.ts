@@ -1,4 +1,4 @@
-import { BAND_COLUMNS, type BandFileReply, type BandRow, type BandTableVersion } from '../../../shared/schemas/catchment-bands';
+import { BAND_COLUMNS, bandCsvHeader, type BandFileReply, type BandRow, type BandTableVersion } from '../../../shared/schemas/catchment-bands';
 import type { TerrainFields } from '../../../shared/geodata/terrain-fields';
 import { csvDocument, safeFileName } from '../../../shared/csv/csv-writing';
 import { csvFile, type DownloadFile } from '../download-file';
@@ -108,7 +108,7 @@ export class BandService {
   async csvFile(scope: TenantScope, catchmentId: number): Promise<DownloadFile> {
     const catchment = await scope.findOr404<{ name: string }>('catchments', catchmentId, 'Catchment');
     const bands = await this.list(scope, catchmentId);
-    const text = csvDocument(BAND_COLUMNS.map((c) => c.field), bands.map((b) => BAND_COLUMNS.map((c) => b[c.field])));
+    const text = csvDocument(BAND_COLUMNS.map((c) => bandCsvHeader(c.field)), bands.map((b) => BAND_COLUMNS.map((c) => b[c.field])));
     return csvFile(`${safeFileName(catchment.name)}-bands.csv`, text);
   }
 

@@ -138,7 +138,8 @@ export class DatasetService {
     }
     const values = await readDatasetValues(scope.db, { datasetId, organisationId: scope.organisationId });
     const time = row.time_step === 'daily' ? (t: string) => t.slice(0, 10) : (t: string) => t;
-    const header = [row.time_step === 'daily' ? 'date' : 'time', `${row.variable} (${row.unit})`];
+    // The variable's label for people, with the stored unit: "Daily minimum air temperature (°C)".
+    const header = [row.time_step === 'daily' ? 'date' : 'time', `${variableSpec(row.variable).label} (${row.unit})`];
     return csvFile(fileName, csvDocument(header, values.map((v) => [time(v.t), v.value])));
   }
 

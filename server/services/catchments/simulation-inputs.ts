@@ -3,7 +3,7 @@ import { addDays, daysBetween, isIsoDate } from '../../../shared/melt/calendar';
 import { fillShortGaps } from '../../../shared/melt/fill-gaps';
 import type { SimulationInput } from '../../../shared/melt/schema';
 import { DAYS_PER_YEAR, hydrologicalYearStartBefore } from '../../../shared/melt/spin-up';
-import type { TimeStep, Variable } from '../../../shared/schemas/dataset-variables';
+import { VARIABLES, type TimeStep, type Variable } from '../../../shared/schemas/dataset-variables';
 import { validationFailed } from '../../errors';
 import { parseWith } from '../../middleware/validate';
 import type { BandService } from './band-service';
@@ -165,7 +165,7 @@ async function assemble(scope: TenantScope, bands: BandService, catchment: Catch
   // The engine reads forcing hours as the catchment's local standard time; a dataset logged in another zone is used as written.
   const notes = rows
     .filter((r) => used.some((u) => u.datasetId === r.id) && r.time_zone !== catchment.time_zone)
-    .map((r) => `${r.variable} (dataset ${r.id}) is kept in ${r.time_zone}, the catchment in ${catchment.time_zone}; its times are used as written.`);
+    .map((r) => `${VARIABLES[r.variable as Variable].label} (dataset ${r.id}) is kept in ${r.time_zone}, the catchment in ${catchment.time_zone}; its times are used as written.`);
   return { input, ready, missing, gaps, datasets: used, notes };
 }
 
@@ -175,7 +175,7 @@ export function requireReadyInputs(assembled: AssembledInputs): SimulationInput 
   const open = assembled.gaps.filter((g) => !g.bridged);
   const lines = [
     ...assembled.missing.map((m) => m.message),
-    ...open.map((g) => `${g.variable} (dataset ${g.datasetId}) has no values from ${g.from} to ${g.to} (${g.steps} steps).`),
+    ...open.map((g) => `${VARIABLES[g.variable].label} (dataset ${g.datasetId}) has no values from ${g.from} to ${g.to} (${g.steps} steps).`),
   ];
   throw validationFailed(`The catchment's data cannot drive the engine for this period: ${lines.slice(0, 3).join(' ')}${lines.length > 3 ? ` (and ${lines.length - 3} more)` : ''}`, undefined, { missing: assembled.missing, gaps: open });
 }

@@ -7,7 +7,7 @@ export interface OutgoingMail {
   subject: string;
   text: string;
   /** What the mail is for, kept in the mail log. */
-  kind: 'invitation' | 'password_reset' | 'sign_up' | 'account_exists' | 'invitation_refused';
+  kind: 'invitation' | 'password_reset' | 'sign_up' | 'account_exists' | 'invitation_refused' | 'briefing_shared' | 'briefing_version';
 }
 
 const HOUR_MS = 3_600_000;

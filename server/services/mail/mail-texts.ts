@@ -21,11 +21,14 @@ export function invitationMail(input: {
   };
 }
 
-export function passwordResetMail(input: { link: string; validMinutes: number }): { subject: string; text: string } {
+/** A reset link; `requestedBy` names the admin who sent it, otherwise someone asked on the sign-in page. */
+export function passwordResetMail(input: { link: string; validMinutes: number; requestedBy?: string }): { subject: string; text: string } {
   return {
     subject: 'Choose a new Tarnish password',
     text: [
-      'Someone asked to reset the password of the Tarnish account for this address.',
+      input.requestedBy
+        ? `${input.requestedBy}, an admin of your team, sent you a link to choose a new password for your Tarnish account.`
+        : 'Someone asked to reset the password of the Tarnish account for this address.',
       '',
       'Open this link to choose a new password:',
       input.link,
@@ -74,6 +77,36 @@ export function invitationRefusedMail(input: { organisationName: string }): { su
       'and an address can belong to one organisation only, so no invitation was made.',
       '',
       'If you want to join them, give them another address of yours. Otherwise ignore this mail.',
+    ].join('\n'),
+  };
+}
+
+/** To a client a briefing was shared with: what it is and the link that opens it. */
+export function briefingSharedMail(input: { sharerName: string; organisationName: string; title: string; link: string }): { subject: string; text: string } {
+  return {
+    subject: `${input.organisationName} shared a briefing with you: ${input.title}`,
+    text: [
+      `${input.sharerName} of ${input.organisationName} shared the briefing "${input.title}" with you on Tarnish.`,
+      '',
+      'Open it here (sign in with this address):',
+      input.link,
+      '',
+      'You can read it, download it as PDF or CSV and send questions to the team from the page.',
+    ].join('\n'),
+  };
+}
+
+/** To each client a briefing is shared with, when a new version of it is published. */
+export function briefingVersionMail(input: { publisherName: string; organisationName: string; title: string; version: number; link: string }): { subject: string; text: string } {
+  return {
+    subject: `New version of a briefing shared with you: ${input.title}`,
+    text: [
+      `${input.publisherName} of ${input.organisationName} published version ${input.version} of the briefing "${input.title}".`,
+      '',
+      'Open it here (sign in with this address):',
+      input.link,
+      '',
+      'Earlier versions stay readable from the same page.',
     ].join('\n'),
   };
 }

@@ -45,10 +45,10 @@ export function bandMonthCsv(results: RunResults, baseline: SimulationSummary, v
     ...headerBlock(results, 'per elevation band and month', seasonPeriod(results)),
     line(['band', 'mean elevation (m)', 'area (km²)', 'month', 'added snow melt (mm w.e.)', 'added clean-ice melt (mm w.e.)',
       'added debris-covered ice melt (mm w.e.)', 'added rain (mm)', 'scenario snow melt (mm w.e.)', 'scenario clean-ice melt (mm w.e.)',
-      'scenario debris-covered ice melt (mm w.e.)', 'scenario rain (mm)', 'baseline albedo (-)', 'scenario albedo (-)',
+      'scenario debris-covered ice melt (mm w.e.)', 'scenario rain (mm)', 'baseline albedo', 'scenario albedo',
       'baseline absorbed shortwave (W/m²)', 'scenario absorbed shortwave (W/m²)',
       'scenario surface melt (mm w.e.)', 'scenario refrozen (mm w.e.)', 'scenario sublimation (mm w.e.)', 'scenario evaporation (mm w.e.)',
-      'baseline snow-covered fraction (-)', 'scenario snow-covered fraction (-)',
+      'baseline snow-covered fraction (0–1)', 'scenario snow-covered fraction (0–1)',
       'scenario snow gained (+) or lost (−) by wind drift (mm w.e.)', 'scenario snow gained (+) or lost (−) by avalanching (mm w.e.)']),
     ...rows,
   ].join('\r\n') + '\r\n';

@@ -2,6 +2,7 @@ import PDFDocument from 'pdfkit';
 import type { BriefingSnapshot, Headline } from '../../../../shared/schemas/briefings';
 import { TIMING_NOTE, formatRanged, scaleRanged } from '../../../../shared/briefings/format';
 import { formatNumber } from '../../../../shared/text/numbers';
+import { formatPeriod } from '../../../../shared/text/format';
 import { CALIBRATION_HEADING, CAUTIONS_HEADING } from '../../../../shared/text/cautions';
 import { chartSvg } from './chart-svg';
 import { FONTS } from './fonts';
@@ -24,7 +25,7 @@ function titlePage(doc: Doc, s: BriefingSnapshot): void {
   const facts: [string, string][] = [
     ['Catchment', c.name],
     ['Location', `${formatNumber(c.latitudeDeg, 3)}°, ${formatNumber(c.longitudeDeg, 3)}° · ${c.bandCount} elevation bands · ${formatNumber(c.areaKm2, 1)} km²`],
-    ['Period simulated', `${s.period.from} to ${s.period.to}`],
+    ['Period simulated', formatPeriod(s.period.from, s.period.to)],
     ['Version', `${s.version}`],
     ['Date', dateOf(s.publishedAt)],
     ['Published by', s.publishedBy],

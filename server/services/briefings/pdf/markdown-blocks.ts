@@ -1,4 +1,5 @@
 import { Lexer, type Token, type Tokens } from 'marked';
+import { NON_TEXT_TAGS } from '../markdown';
 
 /** A block of narrative as the PDF sets it: plain text only, no markup and no raw HTML. */
 export type TextBlock =
@@ -7,12 +8,29 @@ export type TextBlock =
   | { kind: 'list'; ordered: boolean; items: string[] }
   | { kind: 'code'; text: string };
 
-/** Inline tokens to plain text; raw HTML is dropped, links keep their address in brackets. */
+/** The tag an inline HTML token opens or closes ("<script …>" → open script), if any. */
+function tagOf(raw: string): { name: string; closing: boolean; selfClosing: boolean } | null {
+  const match = /^<\s*(\/)?\s*([a-z][a-z0-9-]*)/i.exec(raw);
+  return match ? { name: match[2].toLowerCase(), closing: Boolean(match[1]), selfClosing: /\/\s*>$/.test(raw) } : null;
+}
+
+/**
+ * Inline tokens to plain text, as the page's sanitiser leaves them: raw HTML tags are dropped, and
+ * so is the text inside script, style and the other tags it drops whole; links keep their address
+ * in brackets.
+ */
 function plain(tokens: Token[] | undefined): string {
   if (!tokens) return '';
+  let inside: string | null = null;
   return tokens.map((t) => {
+    if (t.type === 'html') {
+      const tag = tagOf(t.raw);
+      if (tag && !tag.closing && !tag.selfClosing && !inside && NON_TEXT_TAGS.includes(tag.name)) inside = tag.name;
+      else if (tag?.closing && tag.name === inside) inside = null;
+      return '';
+    }
+    if (inside) return '';
     switch (t.type) {
-      case 'html': return '';
       case 'link': {
         const label = plain((t as Tokens.Link).tokens);
         const href = (t as Tokens.Link).href;

@@ -106,7 +106,7 @@ export function readSeriesFile(text: string, options: SeriesFileOptions): ReadSe
       valueCount: rowValues.length,
       first: formatMinutes(rowMinutes[0], step.step),
       last: formatMinutes(rowMinutes[rowMinutes.length - 1], step.step),
-      problems,
+      problems: problems.sort((a, b) => a.row - b.row),
       problemCounts: counts,
       canConfirm: !hasErrors,
     },

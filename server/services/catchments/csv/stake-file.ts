@@ -88,7 +88,7 @@ export function readStakeFile(text: string, requestedUnit: string | undefined): 
       valueCount: readings.length,
       first: starts[0] ?? null,
       last: ends[ends.length - 1] ?? null,
-      problems,
+      problems: problems.sort((a, b) => a.row - b.row),
       problemCounts: counts,
       canConfirm: Object.keys(counts).length === 0 && readings.length > 0,
     },

@@ -1,0 +1,61 @@
+import { formatQuantity } from '../text/format';
+
+/**
+ * The style every chart shares, on screen and in the PDF: a legend that wraps onto more lines
+ * (never pages: arrows do nothing on paper), numbers in tooltips and on axes without float noise,
+ * and the light and dark themes (legend, axes, grid lines, tooltip). Colours of series come from
+ * palette.ts.
+ */
+
+/** Tooltip and axis numbers as everywhere else in the app: significant figures, no exponent. */
+export const chartValue = (value: unknown): string => (typeof value === 'number' ? formatQuantity(value) : String(value ?? ''));
+
+export const TOOLTIP = { trigger: 'axis', valueFormatter: chartValue } as const;
+export const BAR_TOOLTIP = { trigger: 'axis', axisPointer: { type: 'shadow' }, valueFormatter: chartValue } as const;
+
+const LEGEND_ROW_PX = 22;
+const LEGEND_ITEM_PX = 34;
+const CHAR_PX = 6.6;
+
+/**
+ * A plain legend that wraps, and the grid top that leaves room for its rows at `widthPx` (the
+ * narrowest width the chart is drawn at: a phone's 390 px on screen, the page width in the PDF).
+ */
+export function wrappingLegend(names: readonly string[], widthPx: number, gridTop = 56): { legend: Record<string, unknown>; top: number } {
+  const usable = widthPx * 0.92;
+  let rows = 1;
+  let used = 0;
+  for (const name of names) {
+    const item = LEGEND_ITEM_PX + name.length * CHAR_PX;
+    if (used > 0 && used + item > usable) {
+      rows += 1;
+      used = 0;
+    }
+    used += item;
+  }
+  return { legend: { type: 'plain', top: 0, left: 'center', width: '92%', itemGap: 12 }, top: Math.max(gridTop, 24 + rows * LEGEND_ROW_PX) };
+}
+
+const axisColours = (text: string, line: string, split: string) => ({
+  axisLine: { lineStyle: { color: line } },
+  axisTick: { lineStyle: { color: line } },
+  axisLabel: { color: text },
+  splitLine: { lineStyle: { color: split } },
+  nameTextStyle: { color: text },
+});
+
+/** Dark mode's chart theme (registered as 'tarnish-dark'): light text on the dark card, muted grid lines; contrast ≥ 4.5:1 for text. */
+export const DARK_CHART_THEME = {
+  backgroundColor: 'transparent',
+  textStyle: { color: '#dfe6eb' },
+  title: { textStyle: { color: '#eef2f5' } },
+  legend: { textStyle: { color: '#dfe6eb' }, inactiveColor: '#6b7780', pageTextStyle: { color: '#dfe6eb' } },
+  tooltip: { backgroundColor: '#222c33', borderColor: '#4a5963', textStyle: { color: '#eef2f5' } },
+  categoryAxis: axisColours('#c9d3da', '#7d8b95', '#36434c'),
+  valueAxis: axisColours('#c9d3da', '#7d8b95', '#36434c'),
+  timeAxis: axisColours('#c9d3da', '#7d8b95', '#36434c'),
+  logAxis: axisColours('#c9d3da', '#7d8b95', '#36434c'),
+  dataZoom: { textStyle: { color: '#c9d3da' }, borderColor: '#4a5963', fillerColor: 'rgba(169, 200, 222, 0.2)' },
+  visualMap: { textStyle: { color: '#dfe6eb' } },
+} as const;
+export const DARK_CHART_THEME_NAME = 'tarnish-dark';
