@@ -6,8 +6,8 @@
  * API is not blocked while the worker threads simulate.
  *
  * Runs against the database in the environment (DB_* variables, as the server), inside a
- * throw-away organisation that is removed afterwards. The worker threads are started and given a
- * moment to load the engine first, as they are when the server starts. The API runs in a process
+ * throw-away organisation that is removed afterwards. The runs are simulated by the worker process
+ * of `npm start` when one is connected, otherwise by one started for the benchmark. The API runs in a process
  * of its own (scripts/bench/runs-server.ts) so this client does not share its event loop. Each
  * invocation varies the variant's black carbon by a fraction of a ng/g so an earlier identical run
  * is never reused.
@@ -15,6 +15,8 @@
 import bcrypt from 'bcryptjs';
 import { availableParallelism, loadavg } from 'node:os';
 import { loadConfig } from '../../server/config';
+import { JobQueues } from '../../server/queue/job-queues';
+import { withWorkerProcess } from '../../server/queue/worker-process';
 import { createDb } from '../../server/db';
 import { insertBandTable } from '../../server/services/catchments/band-tables';
 import { insertBaseline } from '../../server/services/catchments/baseline-scenario';
@@ -126,9 +128,12 @@ async function main(): Promise<void> {
   }));
 }
 
+// The runs go to a worker process: the one of `npm start`, or one started for the benchmark.
+const queues = new JobQueues(config.queue);
 try {
-  await main();
+  await withWorkerProcess(queues, main);
 } finally {
+  await queues.close();
   await db('organisations').where('id', organisationId).delete();
   await db.destroy();
 }

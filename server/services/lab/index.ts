@@ -1,15 +1,15 @@
 import type { Knex } from 'knex';
+import type { JobQueues } from '../../queue/job-queues';
 import type { BandService } from '../catchments/band-service';
-import type { ThreadBudget } from '../thread-budget';
 import { CalibrationStore } from './calibration-store';
-import { LabPool } from './lab-pool';
+import { LabQueue } from './lab-queue';
 import { LabService } from './lab-service';
 
 export interface LabServices {
   lab: LabService;
 }
 
-/** The lab: its worker pool on the shared thread budget, its jobs and the saved calibrations. */
-export function createLabServices(deps: { db: Knex; bands: BandService; threads: ThreadBudget }): LabServices {
-  return { lab: new LabService(deps.db, deps.bands, new LabPool(deps.threads), new CalibrationStore()) };
+/** The lab: its computations on the lab queue (run by the worker processes), its jobs and the saved calibrations. */
+export function createLabServices(deps: { db: Knex; bands: BandService; queues: JobQueues; workerThreads: number }): LabServices {
+  return { lab: new LabService(deps.db, deps.bands, new LabQueue(deps.queues, deps.workerThreads), new CalibrationStore()) };
 }

@@ -2,13 +2,15 @@ import { planRun, RunPlanError } from '../../../shared/analysis/run-plan';
 import { simulationSettings } from '../../../shared/analysis/variant-settings';
 import { ENGINE_VERSION } from '../../../shared/melt/version';
 import { parseSimulationInput, SimulationInputError } from '../../../shared/melt/prepare';
-import { DEFAULT_RUN_START, type Run, type RunStart, type StartRunRequest } from '../../../shared/schemas/runs';
+import { DEFAULT_RUN_START, FINISHED_STATUSES, type Run, type RunStart, type StartRunRequest } from '../../../shared/schemas/runs';
 import { conflict, notFound, validationFailed } from '../../errors';
 import type { ScenarioService } from './scenario-service';
 import type { TenantScope } from '../tenant-scope';
 import type { CatchmentInputs, CatchmentInputSource } from './catchment-inputs';
 import { inputHash } from './input-hash';
-import type { RunExecutor } from './run-executor';
+import type { JobPriority } from '../../queue/jobs';
+import { saveRunInputs } from './run-inputs';
+import type { RunQueue } from './run-queue';
 
 export interface RunRow {
   id: number;
@@ -64,19 +66,20 @@ export function toRun(row: RunRow): Run {
   };
 }
 
-/** Starting, reading and cancelling runs; the simulating is the executor's. */
+/** Starting, reading and cancelling runs; the simulating is the worker processes' (through the queue). */
 export class RunService {
   constructor(
     private readonly scenarios: ScenarioService,
     private readonly inputs: CatchmentInputSource,
-    private readonly executor: RunExecutor,
+    private readonly queue: RunQueue,
   ) {}
 
   /**
-   * Validates everything a run needs, then queues it — or returns the finished (or still running)
-   * run with identical inputs instead of computing it again.
+   * Validates everything a run needs, stores it with its inputs and queues its members — or
+   * returns the finished (or still running) run with identical inputs instead of computing it
+   * again. `priority` places its jobs: a run started on its own goes ahead of a study's.
    */
-  async start(scope: TenantScope, catchmentId: number, request: StartRunRequest, userId: number): Promise<{ run: Run; reused: boolean }> {
+  async start(scope: TenantScope, catchmentId: number, request: StartRunRequest, userId: number, priority: JobPriority = 'run'): Promise<{ run: Run; reused: boolean }> {
     await scope.findOr404('catchments', catchmentId, 'Catchment');
     const scenario = await this.scenarios.get(scope, catchmentId, request.scenarioId);
     if (scenario.archived) throw validationFailed('This scenario is archived; restore it before running it.', 'scenarioId');
@@ -94,10 +97,9 @@ export class RunService {
       if (error instanceof RunPlanError) throw validationFailed(error.message, 'attribution');
       throw error;
     }
-    const members = plan.members.map((m) => ({ plan: m, input: { ...stored, ...m.input, start: request.start } }));
     try {
       // The first member checks what all share (catchment, forcing, period); the rest differ only in validated changes.
-      parseSimulationInput({ ...members[0].input, parts: undefined });
+      parseSimulationInput({ ...stored, ...plan.members[0].input, start: request.start, parts: undefined });
     } catch (error) {
       if (error instanceof SimulationInputError) throw validationFailed(`The inputs cannot be simulated: ${error.issues[0].path}: ${error.issues[0].message}`, error.issues[0].path, { issues: error.issues });
       throw error;
@@ -108,18 +110,21 @@ export class RunService {
     const same = await scope.from<RunRow>('runs').where({ catchment_id: catchmentId, input_hash: hash }).whereIn('status', ['queued', 'running', 'done']).orderBy('id', 'desc').first();
     if (same) return { run: toRun(same), reused: true };
 
-    const id = await scope.insert('runs', {
-      catchment_id: catchmentId, scenario_id: scenario.id, scenario_name: scenario.name, is_baseline: scenario.isBaseline,
-      changes: JSON.stringify(scenario.changes), baseline_changes: baseline ? JSON.stringify(baseline.changes) : null,
-      attribution: request.attribution, ensemble_size: request.ensembleSize, ensemble_seed: request.ensembleSeed,
-      status: 'queued', progress: 0, simulation_count: members.length, engine_version: ENGINE_VERSION, input_hash: hash,
-      period_from: period?.from ?? null, period_to: period?.to ?? null, start_options: JSON.stringify(request.start), created_by: userId,
-      // The band table version in use, which later saves leave in place for this run.
-      band_table_id: scope.db.raw('(SELECT MAX(id) FROM band_tables WHERE catchment_id = ?)', [catchmentId]),
+    const id = await scope.transaction(async (s) => {
+      const runId = await s.insert('runs', {
+        catchment_id: catchmentId, scenario_id: scenario.id, scenario_name: scenario.name, is_baseline: scenario.isBaseline,
+        changes: JSON.stringify(scenario.changes), baseline_changes: baseline ? JSON.stringify(baseline.changes) : null,
+        attribution: request.attribution, ensemble_size: request.ensembleSize, ensemble_seed: request.ensembleSeed,
+        status: 'queued', progress: 0, simulation_count: plan.members.length, engine_version: ENGINE_VERSION, input_hash: hash,
+        period_from: period?.from ?? null, period_to: period?.to ?? null, start_options: JSON.stringify(request.start), created_by: userId,
+        // The band table version in use, which later saves leave in place for this run.
+        band_table_id: s.db.raw('(SELECT MAX(id) FROM band_tables WHERE catchment_id = ?)', [catchmentId]),
+      });
+      await saveRunInputs(s, runId, { stored, start: request.start, plans: plan.members });
+      return runId;
     });
-    const run = await this.get(scope, catchmentId, id);
-    this.executor.enqueue({ runId: id, organisationId: scope.organisationId, members });
-    return { run, reused: false };
+    await this.queue.enqueue({ runId: id, organisationId: scope.organisationId, memberCount: plan.members.length, priority });
+    return { run: await this.get(scope, catchmentId, id), reused: false };
   }
 
   /** Stored catchment and forcing for a period with the default spin-up, for the builder's in-browser preview. */
@@ -130,6 +135,16 @@ export class RunService {
 
   async get(scope: TenantScope, catchmentId: number, id: number): Promise<Run> {
     return toRun(await this.row(scope, catchmentId, id));
+  }
+
+  /** The run once it has ended (done, failed or cancelled), or as it is after `timeoutMs` (seeds and scripts wait on the workers with this). */
+  async finished(scope: TenantScope, catchmentId: number, id: number, timeoutMs: number): Promise<Run> {
+    const until = Date.now() + timeoutMs;
+    for (;;) {
+      const run = await this.get(scope, catchmentId, id);
+      if (FINISHED_STATUSES.includes(run.status) || Date.now() > until) return run;
+      await new Promise((resolve) => setTimeout(resolve, 100));
+    }
   }
 
   async row(scope: TenantScope, catchmentId: number, id: number): Promise<RunRow> {
@@ -147,10 +162,17 @@ export class RunService {
   async cancel(scope: TenantScope, catchmentId: number, id: number): Promise<Run> {
     const row = await this.row(scope, catchmentId, id);
     if (row.status !== 'queued' && row.status !== 'running') throw conflict(`This run is already ${row.status}.`);
-    if (!(await this.executor.cancel(id))) {
-      // Not held by this process (e.g. left over from before a restart): close it here.
-      await scope.from('runs').where('id', id).update({ status: 'cancelled', finished_at: scope.db.fn.now(3) });
-    }
+    await this.cancelOpen(scope, [id]);
     return this.get(scope, catchmentId, id);
+  }
+
+  /** Cancels those of the runs still queued or running: marked first, so no worker stores more of them, then their jobs stopped. */
+  async cancelOpen(scope: TenantScope, runIds: number[]): Promise<void> {
+    if (runIds.length === 0) return;
+    const open: Pick<RunRow, 'id' | 'simulation_count'>[] = await scope.from<RunRow>('runs').whereIn('id', runIds).whereIn('status', ['queued', 'running']).select('id', 'simulation_count');
+    if (open.length === 0) return;
+    await scope.from('runs').whereIn('id', open.map((r) => r.id)).whereIn('status', ['queued', 'running'])
+      .update({ status: 'cancelled', finished_at: scope.db.fn.now(3) });
+    await this.queue.stop(open.map((r) => ({ runId: r.id, memberCount: r.simulation_count })));
   }
 }

@@ -2,10 +2,9 @@ import type { SimulationSummary } from '../../../shared/analysis/simulation-summ
 import type { MemberInput } from '../../../shared/analysis/simulate-summary';
 import { ThreadPool } from '../thread-pool';
 import type { ThreadBudget } from '../thread-budget';
-import type { Simulator } from './simulator';
 
-/** Worker threads that run the melt engine for runs (server/workers/simulate-worker.ts); background work. */
-export class SimulationPool extends ThreadPool<MemberInput, SimulationSummary> implements Simulator {
+/** A worker process's threads that run the melt engine for run members (server/workers/simulate-worker.ts); background work. */
+export class SimulationPool extends ThreadPool<MemberInput, SimulationSummary> {
   constructor(budget: ThreadBudget) {
     super(new URL('../../workers/simulate-worker.ts', import.meta.url), budget, 'batch');
   }
