@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
 import type { AppConfig } from './config';
-import { createLogger, type Logger } from './logger';
+import { createLogger, safeError, type Logger } from './logger';
 import { createAuthServices, type AuthServices } from './services/auth';
 import { createBillingServices, type BillingServices } from './services/billing';
 import { createBriefingServices, type BriefingServices } from './services/briefings';
@@ -13,12 +13,13 @@ import type { MailInbox } from './services/mail/mail-catcher';
 import { createMemberServices, type MemberServices } from './services/members';
 import { JobQueues } from './queue/job-queues';
 import { createRunServices, type RunServices } from './services/runs';
+import { createStudyServices, type StudyServices } from './services/studies';
 import type { CatchmentInputSource } from './services/runs/catchment-inputs';
 import { ThreadBudget } from './services/thread-budget';
 
 /** Everything the routes need, built once per app by `createContext` (tests and seeds build their own). */
 export interface AppContext
-  extends AuthServices, MailServices, BillingServices, MemberServices, CatchmentServices, GeodataServices, LabServices, RunServices, BriefingServices {
+  extends AuthServices, MailServices, BillingServices, MemberServices, CatchmentServices, GeodataServices, LabServices, RunServices, StudyServices, BriefingServices {
   config: AppConfig;
   db: Knex;
   /** The structured log; requests, errors and background failures, never values (server/logger.ts). */
@@ -62,7 +63,7 @@ export function createContext(config: AppConfig, db: Knex, options: ContextOptio
   const memberServices = createMemberServices({ config, db, logger, auth: authServices.auth, mail: mailServices.mail });
   const catchmentServices = createCatchmentServices({ threads, uploadsPerOrganisation: config.uploads.perOrganisation });
   const geodataServices = createGeodataServices({ config, bands: catchmentServices.bands, threads });
-  const queues = new JobQueues(config.queue);
+  const queues = new JobQueues(config.queue, (error) => logger.warn({ err: safeError(error) }, 'job queue unreachable'));
   const labServices = createLabServices({ db, bands: catchmentServices.bands, queues, workerThreads: config.workerThreads });
   const runServices = createRunServices({
     db, bands: catchmentServices.bands, calibrations: labServices.lab.calibrations, queues, catchmentInputs: options.catchmentInputs,
@@ -85,6 +86,7 @@ export function createContext(config: AppConfig, db: Knex, options: ContextOptio
     ...geodataServices,
     ...labServices,
     ...runServices,
+    ...createStudyServices(runServices),
     ...briefingServices,
     async start() {
       // Runs live in the database and the queue: their jobs are added again where one was lost.

@@ -21,10 +21,19 @@ export class JobQueues {
   private events: QueueEvents | null = null;
   private publisher: Redis | null = null;
 
-  constructor(readonly settings: AppConfig['queue']) {
+  constructor(readonly settings: AppConfig['queue'], onError: (error: Error) => void = () => undefined) {
     const options = { connection: redisOptions(settings), prefix: settings.prefix };
     this.simulations = new Queue<MemberJobData>('simulations', options);
     this.lab = new Queue<LabJobData>('lab', options);
+    // While Redis is away every reconnect attempt fails: said once per ten seconds, not per attempt.
+    let last = 0;
+    const report = (error: Error) => {
+      if (Date.now() - last < 10_000) return;
+      last = Date.now();
+      onError(error);
+    };
+    this.simulations.on('error', report);
+    this.lab.on('error', report);
   }
 
   queue(name: QueueName) {
@@ -33,7 +42,10 @@ export class JobQueues {
 
   /** Completion and progress of lab jobs (one listener for the process). */
   labEvents(): QueueEvents {
-    this.events ??= new QueueEvents('lab', { connection: redisOptions(this.settings), prefix: this.settings.prefix });
+    if (!this.events) {
+      this.events = new QueueEvents('lab', { connection: redisOptions(this.settings), prefix: this.settings.prefix });
+      this.events.on('error', () => undefined);
+    }
     return this.events;
   }
 

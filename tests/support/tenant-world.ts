@@ -14,7 +14,7 @@ export interface TenantWorld extends TestOrg {
   marker: string;
   ids: {
     catchment: number; dataset: number; scenario: number; run: number; labJob: number; briefing: number; member: number; invited: number; sharedClient: number;
-    geodataUpload: number; derivation: number;
+    geodataUpload: number; derivation: number; study: number;
   };
   uploadToken: string;
 }
@@ -85,12 +85,17 @@ export async function createTenantWorld(db: Knex, geodataDir: string): Promise<T
   await db('briefing_versions').insert({ organisation_id, briefing_id: briefing, version: 1, snapshot: JSON.stringify(testSnapshot({ title: `${marker} briefing`, summary: marker })) });
   await db('briefing_shares').insert({ organisation_id, briefing_id: briefing, user_id: org.users.client.id });
   await db('briefing_comments').insert({ organisation_id, briefing_id: briefing, version: 1, user_id: org.users.client.id, body: marker });
+  // A study of the catchment, started, whose one cell is the failed run above.
+  const [study] = await db('studies').insert({ organisation_id, name: `${marker} study`, description: marker, options: '{}', started_at: new Date() });
+  await db('study_catchments').insert({ organisation_id, study_id: study, catchment_id: catchment });
+  const [template] = await db('study_scenarios').insert({ organisation_id, study_id: study, name: `${marker} soot`, changes: '{}' });
+  await db('study_runs').insert({ organisation_id, study_id: study, study_scenario_id: template, catchment_id: catchment, run_id: run });
   const [invited] = await db('users').insert({ organisation_id, email: `${unique('invited')}@test.example`, name: `${marker} invitee`, role: 'client', status: 'invited' });
   return {
     ...org, marker, uploadToken,
     ids: {
       catchment: catchment!, dataset: dataset!, scenario, run: run!, labJob: labJob!, briefing: briefing!, member: org.users.scientist.id, invited: invited!,
-      sharedClient: org.users.client.id, geodataUpload: geodataUpload!, derivation: derivation!,
+      sharedClient: org.users.client.id, geodataUpload: geodataUpload!, derivation: derivation!, study: study!,
     },
   };
 }
@@ -110,7 +115,7 @@ export function pathIn(world: TenantWorld, path: string): string {
       if (param === 'userId') return ids.sharedClient;
       if (param === 'uploadId') return ids.geodataUpload;
       if (param === 'derivationId') return ids.derivation;
-      const bySegment: Record<string, number> = { scenarios: ids.scenario, runs: ids.run, briefings: ids.briefing, members: ids.member, invitations: ids.invited };
+      const bySegment: Record<string, number> = { scenarios: ids.scenario, runs: ids.run, briefings: ids.briefing, members: ids.member, invitations: ids.invited, studies: ids.study };
       if (bySegment[segment] !== undefined) return bySegment[segment];
       throw new Error(`no record for :${param} after /${segment} in ${path}`);
     })();
