@@ -49,9 +49,16 @@ export function memberProcessor(deps: MemberProcessorDeps) {
     const { runId, organisationId, memberIndex } = job.data;
     const jobId = job.id!;
     const log = logger.child({ jobId, runId, memberIndex, attempt: job.attemptsStarted });
-    const run = await db('runs').where({ id: runId, organisation_id: organisationId }).first('status', 'simulation_count');
-    if (!run || (run.status !== 'queued' && run.status !== 'running')) return { outcome: 'skipped', finished: false };
-    if (!(await slots.take(organisationId, jobId))) {
+    // What the job needs is read side by side: the run's state, a slot of its organisation, its inputs (cached per run).
+    const [run, slot] = await Promise.all([
+      db('runs').where({ id: runId, organisation_id: organisationId }).first('status', 'simulation_count'),
+      slots.take(organisationId, jobId),
+    ]);
+    if (!run || (run.status !== 'queued' && run.status !== 'running')) {
+      if (slot) await slots.release(organisationId, jobId);
+      return { outcome: 'skipped', finished: false };
+    }
+    if (!slot) {
       await job.moveToDelayed(Date.now() + (deps.retryDelayMs ?? 200) * (1 + Math.random()), token);
       throw new DelayedError();
     }
@@ -63,11 +70,12 @@ export function memberProcessor(deps: MemberProcessorDeps) {
       if (!stored) return { outcome: 'skipped', finished: false };
       const plan = stored.plans[memberIndex];
       const scope = new TenantScope(db, organisationId);
-      if (await scope.from('run_members').where({ run_id: runId, member_key: plan.key }).first('id')) {
+      // A retry after a fault finds its member stored: counted, not simulated again.
+      if (job.attemptsStarted > 1 && await scope.from('run_members').where({ run_id: runId, member_key: plan.key }).first('id')) {
         log.info('member already stored');
         return await storeMember(scope, runId, plan, null);
       }
-      await db('runs').where({ id: runId, status: 'queued' }).update({ status: 'running', started_at: db.fn.now(3) });
+      if (run.status === 'queued') await db('runs').where({ id: runId, status: 'queued' }).update({ status: 'running', started_at: db.fn.now(3) });
       let lastWrite = 0;
       const onProgress = (fraction: number) => {
         // A one-member run moves within its simulation; longer runs move as members are stored.
