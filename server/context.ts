@@ -68,8 +68,9 @@ export function createContext(config: AppConfig, db: Knex, options: ContextOptio
   const runServices = createRunServices({
     db, bands: catchmentServices.bands, calibrations: labServices.lab.calibrations, queues, catchmentInputs: options.catchmentInputs,
   });
+  const studyServices = createStudyServices(runServices);
   const briefingServices = createBriefingServices({
-    results: runServices.results, invitations: memberServices.invitations, threads, briefingResults: options.briefingResults,
+    results: runServices.results, studyResults: studyServices.studyResults, invitations: memberServices.invitations, threads, briefingResults: options.briefingResults,
   });
   const pools = [briefingServices.pdfPool, catchmentServices.uploads.pool];
   return {
@@ -86,7 +87,7 @@ export function createContext(config: AppConfig, db: Knex, options: ContextOptio
     ...geodataServices,
     ...labServices,
     ...runServices,
-    ...createStudyServices(runServices),
+    ...studyServices,
     ...briefingServices,
     async start() {
       // Runs live in the database and the queue: their jobs are added again where one was lost.

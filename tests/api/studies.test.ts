@@ -124,6 +124,36 @@ describe('regional studies', () => {
     expect(text.match(/Region \(sum of the catchments\)/g)).toHaveLength(2);
   });
 
+  it('publish their regional result in a briefing section the client reads, with the regional caution', async () => {
+    const first = study.catchments[0];
+    const created = await consultant.post('/api/briefings').send({ catchmentId: first.catchmentId, title: 'Regional soot', selection: { runIds: [first.cells[0].runId] } });
+    expect(created.status, JSON.stringify(created.body)).toBe(201);
+    const id = created.body.briefing.id as number;
+    const draft = { title: 'Regional soot', summary: '', selection: { runIds: [first.cells[0].runId] } };
+    const noStudy = await consultant.put(`/api/briefings/${id}/draft`).send({ ...draft, sections: [{ kind: 'regional', heading: 'Region', studyId: 999_999_999, contentKey: 'regional-table' }] });
+    expect(noStudy.status).toBe(422);
+    expect(noStudy.body.error.field).toBe('sections.0.studyId');
+    const saved = await consultant.put(`/api/briefings/${id}/draft`).send({ ...draft, sections: [
+      { kind: 'regional', heading: 'Added runoff across the region', studyId: study.id, contentKey: 'regional-table' },
+      { kind: 'regional', heading: 'By catchment', studyId: study.id, contentKey: 'regional-by-catchment' },
+    ] });
+    expect(saved.status, JSON.stringify(saved.body)).toBe(200);
+    expect((await consultant.post(`/api/briefings/${id}/publish`)).status).toBe(201);
+    await consultant.post(`/api/briefings/${id}/shares`).send({ emails: [org.users.client.email] });
+    const client = await signedInAgent(t.app, org.users.client.email);
+    const reading = await client.get(`/api/briefings/${id}/versions/1`);
+    expect(reading.status).toBe(200);
+    const [table, chart] = reading.body.snapshot.sections;
+    expect(table.kind).toBe('table');
+    expect(table.table.rows.at(-1)[0]).toBe('Region (sum of the catchments)');
+    const results = regionalResultsSchema.parse((await consultant.get(`/api/studies/${study.id}/results`)).body.results);
+    // Four significant digits in the briefing.
+    expect(table.table.rows.at(-1)[1]).toBeCloseTo(results.templates[0].total.addedVolumeM3 / 1e6, 1);
+    expect(chart.kind).toBe('chart');
+    expect(chart.chart.series).toHaveLength(2);
+    expect(reading.body.snapshot.cautions.at(-1)).toMatch(/not routed/);
+  });
+
   it('retry only the catchments that failed or were cancelled', async () => {
     const res = await consultant.post('/api/studies').send({
       name: `Retry ${Date.now()}`, catchmentIds: catchmentIds.slice(0, 2), templates: [{ name: 'Dusty', changes: { period: SEASON, dustSnowUgG: 80 } }],

@@ -1,5 +1,6 @@
 import type { InvitationService } from '../members/invitation-service';
 import type { ResultsService } from '../runs/results-service';
+import type { StudyResults } from '../studies/study-results';
 import type { ThreadBudget } from '../thread-budget';
 import { BriefingExports } from './briefing-exports';
 import { BriefingService } from './briefing-service';
@@ -18,6 +19,8 @@ export interface BriefingServices {
 
 export interface BriefingServicesDeps {
   results: ResultsService;
+  /** Regional results, for regional sections. */
+  studyResults: StudyResults;
   invitations: InvitationService;
   threads: ThreadBudget;
   /** Where briefing numbers come from; finished runs unless given. */
@@ -26,7 +29,7 @@ export interface BriefingServicesDeps {
 
 /** Briefings, their sharing and comments, and their PDF and CSV exports. */
 export function createBriefingServices(deps: BriefingServicesDeps): BriefingServices {
-  const briefings = new BriefingService(deps.briefingResults ?? new RunsResultsSource(deps.results));
+  const briefings = new BriefingService(deps.briefingResults ?? new RunsResultsSource(deps.results), (scope, studyId) => deps.studyResults.results(scope, studyId));
   const pdfPool = new PdfPool(deps.threads);
   return { briefings, briefingSharing: new BriefingSharing(deps.invitations), briefingExports: new BriefingExports(briefings, pdfPool), pdfPool };
 }
