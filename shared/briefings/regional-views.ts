@@ -44,17 +44,20 @@ export function regionalView(key: RegionalKey, results: RegionalResults): { char
     };
   }
   const range = (r: { p5: number; p95: number } | null) => (r ? `${m3(r.p5)} to ${m3(r.p95)}` : '');
+  // Range columns only for a study with an ensemble.
+  const ranged = results.templates.some((t) => t.total.addedVolumeRangeM3);
+  const cells = (volume: number | null, r: { p5: number; p95: number } | null) => (ranged ? [volume, volume === null ? '' : range(r)] : [volume]);
   return {
     table: {
       columns: [{ label: 'Catchment', unit: '' }, ...results.templates.flatMap((t) => [
-        { label: `${t.name}: added runoff`, unit: 'million m³' }, { label: `${t.name}: 5–95 % of the ensemble`, unit: 'million m³' },
+        { label: `${t.name}: added runoff`, unit: 'million m³' }, ...(ranged ? [{ label: `${t.name}: 5–95 % of the ensemble`, unit: 'million m³' }] : []),
       ])],
       rows: [
         ...catchments.map((c) => [c.name, ...results.templates.flatMap((t) => {
           const x = t.catchments.find((k) => k.catchmentId === c.id);
-          return x ? [m3(x.addedVolumeM3), range(x.addedVolumeRangeM3)] : [null, ''];
+          return x ? cells(m3(x.addedVolumeM3), x.addedVolumeRangeM3) : cells(null, null);
         })]),
-        ['Region (sum of the catchments)', ...results.templates.flatMap((t) => [m3(t.total.addedVolumeM3), range(t.total.addedVolumeRangeM3)])],
+        ['Region (sum of the catchments)', ...results.templates.flatMap((t) => cells(m3(t.total.addedVolumeM3), t.total.addedVolumeRangeM3))],
       ],
     },
   };

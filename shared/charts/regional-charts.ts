@@ -14,7 +14,8 @@ export function regionalCatchmentChart(template: RegionalTemplate): ChartSpec {
       tooltip: TOOLTIP,
       legend: LEGEND,
       grid: GRID,
-      xAxis: axis('Catchment (ranked by added runoff)', 'category', names),
+      // Every catchment named, slanted so long names fit.
+      xAxis: { ...axis('Catchment (ranked by added runoff)', 'category', names), axisLabel: { interval: 0, rotate: 25 }, nameGap: 70 },
       yAxis: axis('Added runoff (million m³)', 'value'),
       series: [
         { name: template.name, type: 'bar', data: template.catchments.map((c) => chartNumber(c.addedVolumeM3 / MILLION)) },
