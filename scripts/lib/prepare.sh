@@ -104,15 +104,19 @@ GRANT ALL PRIVILEGES ON \`$db\`.* TO '$user'@'localhost';
 SQL
 }
 
+# stop_by_pidfile PIDFILE NAME: SIGTERM to the pid in PIDFILE, then waits (up to 10 s) for it to exit.
+stop_by_pidfile() {
+  [ -f "$1" ] || return 0
+  local pid; pid=$(cat "$1")
+  kill -TERM "$pid" 2>/dev/null || return 0
+  for _ in $(seq 1 100); do kill -0 "$pid" 2>/dev/null || break; sleep 0.1; done
+  log "$2 stopped"
+}
+
 # Stops the server we started, by its pid, and waits for it to exit.
 mariadb_stop() {
   [ "${MARIADB_OWNED:-0}" = 1 ] || return 0
-  local pidfile="$MARIADB_DIR/mariadbd.pid"
-  [ -f "$pidfile" ] || return 0
-  local pid; pid=$(cat "$pidfile")
-  kill -TERM "$pid" 2>/dev/null || return 0
-  for _ in $(seq 1 100); do kill -0 "$pid" 2>/dev/null || break; sleep 0.1; done
-  log "MariaDB stopped"
+  stop_by_pidfile "$MARIADB_DIR/mariadbd.pid" MariaDB
 }
 
 ensure_redis_installed() {
@@ -154,12 +158,7 @@ redis_start() {
 # Stops the Redis we started, by its pid (it writes its append-only file first).
 redis_stop() {
   [ "${REDIS_OWNED:-0}" = 1 ] || return 0
-  local pidfile="$REDIS_DIR/redis.pid"
-  [ -f "$pidfile" ] || return 0
-  local pid; pid=$(cat "$pidfile")
-  kill -TERM "$pid" 2>/dev/null || return 0
-  for _ in $(seq 1 100); do kill -0 "$pid" 2>/dev/null || break; sleep 0.1; done
-  log "Redis stopped"
+  stop_by_pidfile "$REDIS_DIR/redis.pid" Redis
 }
 
 # Both local servers, for the EXIT trap of the scripts beside this one.

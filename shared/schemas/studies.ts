@@ -1,19 +1,12 @@
 import { z } from 'zod';
-import { MAX_ENSEMBLE_SIZE } from '../analysis/ensemble-parameters';
 import { catchmentFormSchema } from './catchments';
-import { DEFAULT_RUN_START, runStartSchema } from './runs';
+import { startRunSchema } from './runs';
 import { isReservedScenarioName, scenarioChangesSchema, BASELINE_NAME } from './scenarios';
 
 const name = z.string().trim().min(1, 'is required').max(80, 'must be at most 80 characters');
 
-/** What every run of a study shares (as a single run's options). */
-export const studyOptionsSchema = z.object({
-  attribution: z.boolean().default(false),
-  ensembleSize: z.number({ message: 'must be a whole number' }).int('must be a whole number')
-    .min(0, 'must be 0 (no ensemble) or more').max(MAX_ENSEMBLE_SIZE, `must be at most ${MAX_ENSEMBLE_SIZE}`).default(0),
-  ensembleSeed: z.number().int().min(1).max(2 ** 31 - 1).default(1),
-  start: runStartSchema.default(DEFAULT_RUN_START),
-}).strict();
+/** What every run of a study shares: a single run's options without its scenario. */
+export const studyOptionsSchema = startRunSchema.omit({ scenarioId: true });
 export type StudyOptions = z.output<typeof studyOptionsSchema>;
 
 /** The values a template may set differently for one catchment (catchment-wide numbers). */
