@@ -42,6 +42,8 @@ export class LabQueue implements LabRunner {
     };
     if (onProgress) events.on('progress', progress);
     signal?.addEventListener('abort', abort, { once: true });
+    // Aborted while the job was being added: its listener came too late.
+    if (signal?.aborted) abort();
     try {
       const finished = job.waitUntilFinished(events);
       const result = await (signal ? Promise.race([finished, aborted(signal)]) : finished);
@@ -55,6 +57,7 @@ export class LabQueue implements LabRunner {
 
 function aborted(signal: AbortSignal): Promise<never> {
   return new Promise((_resolve, reject) => {
-    signal.addEventListener('abort', () => reject(signal.reason), { once: true });
+    if (signal.aborted) reject(signal.reason);
+    else signal.addEventListener('abort', () => reject(signal.reason), { once: true });
   });
 }
