@@ -21,9 +21,9 @@ export default defineConfig({
           name: 'unit',
           include: ['shared/**/*.test.ts', 'server/**/*.test.ts', 'stripe-fake/**/*.test.ts', 'seeds/**/*.test.ts', 'scripts/**/*.test.ts'],
           environment: 'node',
-          // The whole suite runs its projects side by side with worker processes on a shared 2-core
-          // machine: a PDF laid out twice can pass the default 5 s there.
-          testTimeout: 20_000,
+          // Whole seasons, PDF layout and DEM derivations take seconds, more while the suite's projects and
+          // worker processes share the machine's cores: a guard against hangs, not a speed check.
+          testTimeout: 30_000,
         },
       },
       {

@@ -17,6 +17,8 @@ import { availableParallelism, loadavg } from 'node:os';
 import { loadConfig } from '../../server/config';
 import { createDb } from '../../server/db';
 import { DEMO_BANDS, DEMO_CATCHMENT } from '../../seeds/data/demo-catchment';
+import { insertBandTable } from '../../server/services/catchments/band-tables';
+import { TenantScope } from '../../server/services/tenant-scope';
 import { startApiProcess } from './api-process';
 
 const SECONDS = Number(process.env.BENCH_SECONDS ?? 8);
@@ -47,10 +49,8 @@ async function addOrganisation(label: string, email?: string): Promise<number> {
     });
     ids.push(id);
   }
-  await db('elevation_bands').insert(ids.flatMap((catchmentId) => DEMO_BANDS.map((b, position) => ({
-    organisation_id: organisationId, catchment_id: catchmentId, position, lower_m: b.lowerM, upper_m: b.upperM, area_km2: b.areaKm2,
-    slope_deg: b.slopeDeg, aspect_deg: b.aspectDeg, glacier_fraction: b.glacierFraction, debris_fraction: b.debrisFraction, debris_thickness_m: b.debrisThicknessM,
-  }))));
+  const scope = new TenantScope(db, organisationId);
+  for (const catchmentId of ids) await insertBandTable(scope, catchmentId, DEMO_BANDS);
   return ids[0]!;
 }
 

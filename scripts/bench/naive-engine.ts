@@ -1,11 +1,12 @@
 /**
  * The melt engine's physics written the way a first version would be: sensible in every respect
  * but two habits — the sun position is computed for every band-hour (suncalc plus trigonometry),
- * and every step builds new objects (air, sky and surface records, result arrays for the kernels).
- * It reuses the engine's validation, forcing expansion, band geometry, tables and the physics
- * kernels (snow, ice and debris steps, impurities, snow cover), and keeps its own state as one
- * object per band, so it checks the engine's loop — hoisting, per-hour sharing, bookkeeping — as
- * a differential test (naive-engine.test.ts) and is the yardstick of the benchmark.
+ * and every step builds new objects (sun, precipitation, sky and air records, the day's
+ * accumulators and totals). It works out each band-hour's weather itself, the naive way, and hands
+ * it to the engine's surface physics (bandSurfaces: snow, ice, debris, impurities, snow cover),
+ * reusing the engine's validation, forcing expansion, band geometry and tables; so it checks the
+ * engine's weather pass — the sun once per hour for all bands, band constants hoisted, nothing
+ * allocated — as a differential test (naive-engine.test.ts) and is the yardstick of the benchmark.
  */
 import { prepareRun, type PreparedRun } from '../../shared/melt/prepare';
 import { solarPosition } from '../../shared/melt/solar-position';
@@ -16,8 +17,7 @@ import { diffuseIndex } from '../../shared/melt/clear-sky';
 import { horizonSector, sunlitShare } from '../../shared/melt/terrain';
 import { readTable } from '../../shared/melt/temperature-table';
 import { ACC, buildLoopContext, type LoopContext } from '../../shared/melt/loop-context';
-import { addSnowfall, coverOf, snowHour } from '../../shared/melt/band-day';
-import { glacierHour } from '../../shared/melt/glacier-hour';
+import { bandSurfaces } from '../../shared/melt/band-day';
 import { ZERO_CELSIUS_K, STEFAN_BOLTZMANN } from '../../shared/melt/constants';
 
 export interface DayTotals {
@@ -47,7 +47,8 @@ function sky(run: PreparedRun, sw: ShortwaveForcing, b: number, h: number, insta
   return { global, longIn: (emissivity * g.skyView[b] + g.groundView[b]) * STEFAN_BOLTZMANN * (tk * tk) * (tk * tk) };
 }
 
-function hour(c: LoopContext, b: number, h: number, month: number, instantMs: number): void {
+/** The weather of band b in hour h (hour k of its day), written where the engine's surface pass reads it. */
+function weather(c: LoopContext, b: number, h: number, k: number, instantMs: number): void {
   const run = c.run;
   const g = run.geometry;
   const p = run.params;
@@ -61,25 +62,25 @@ function hour(c: LoopContext, b: number, h: number, month: number, instantMs: nu
   const fall = { snow, rain: precipitation - snow };
   c.acc[ACC.snowfall] += fall.snow;
   c.acc[ACC.rainfall] += fall.rain;
-  if (fall.snow > 0) addSnowfall(c, b, fall.snow, airC, month);
-  const cover = coverOf(c, b);
-  c.acc[ACC.snowCover] += cover;
   c.acc[ACC.airTemperature] += airC;
-  const glacier = g.cleanIceShare[b] > 0 || g.debrisShare[b] > 0;
-  if (cover <= 0 && !glacier) {
-    c.acc[ACC.rainRunoff] += fall.rain;
-    return;
-  }
   const now = sky(run, c.shortwave, b, h, instantMs, airC, c.clearSkyEmissivityScale[h], c.overcastEmissivity[h]);
   const tk = airC + ZERO_CELSIUS_K;
-  Object.assign(c.air, {
+  const air = {
     airC, vapourPa: f.relativeHumidity[h] * readTable(run.airVapour, airC), windMs: f.windMs[h],
     sensibleCoefficient: g.pressurePa[b] * c.cpOverRd * p.exchangeCoefficient * (1 / tk) * f.windMs[h],
     vapourCoefficient: c.vapourOverRd * p.exchangeCoefficient * (1 / tk) * f.windMs[h],
-  });
-  if (cover > 0) snowHour(c, b, h, month, cover, now.global, now.longIn, fall.rain, airC);
-  else c.acc[ACC.rainRunoff] += fall.rain;
-  if (glacier) glacierHour(c, b, month, 1 - cover, now.global, now.longIn, airC, tk);
+  };
+  const w = c.hours;
+  w.airC[k] = air.airC;
+  w.airK[k] = tk;
+  w.rainMm[k] = fall.rain;
+  w.snowMm[k] = fall.snow;
+  w.globalWm2[k] = now.global;
+  w.longInWm2[k] = now.longIn;
+  w.vapourPa[k] = air.vapourPa;
+  w.windMs[k] = air.windMs;
+  w.sensibleCoefficient[k] = air.sensibleCoefficient;
+  w.vapourCoefficient[k] = air.vapourCoefficient;
 }
 
 /** Runs the input the naive way; returns the recorded days' totals, day by day, band by band. */
@@ -93,7 +94,8 @@ export function simulateNaive(input: unknown): DayTotals[][] {
       const bands: DayTotals[] = [];
       for (let b = 0; b < run.geometry.count; b++) {
         context.acc = new Float64Array(context.acc.length);
-        for (let k = 0; k < 24; k++) hour(context, b, d * 24 + k, run.timeline.months[d], run.timeline.dayStartUtcMs[d] + (k + 0.5) * 3_600_000);
+        for (let k = 0; k < 24; k++) weather(context, b, d * 24 + k, k, run.timeline.dayStartUtcMs[d] + (k + 0.5) * 3_600_000);
+        bandSurfaces(context, b, d, run.timeline.months[d]);
         const a = context.acc;
         const s = run.state;
         bands.push({

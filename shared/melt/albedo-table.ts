@@ -46,13 +46,15 @@ export function snowAlbedoTable(): SnowAlbedoTable {
 
 /** Position of radius r in the table: integer node index plus fraction, packed as one number. */
 export function radiusPosition(grainRadiusUm: number): number {
-  const r = grainRadiusUm < TABLE_MIN_UM ? TABLE_MIN_UM : grainRadiusUm > TABLE_MAX_UM ? TABLE_MAX_UM : grainRadiusUm;
+  // Math.min/max rather than ternaries: V8 reads module constants untyped, and a ternary mixing
+  // one with a float would box the float on every call.
+  const r = Math.min(Math.max(grainRadiusUm, TABLE_MIN_UM), TABLE_MAX_UM);
   return (r - TABLE_MIN_UM) / TABLE_STEP_UM;
 }
 
 /** Position of a black-carbon-equivalent load (ng g⁻¹) on the load axis. */
 export function loadPosition(blackCarbonEqNgG: number): number {
-  const c = blackCarbonEqNgG > 0 ? (blackCarbonEqNgG < TABLE_MAX_LOAD_NG_G ? blackCarbonEqNgG : TABLE_MAX_LOAD_NG_G) : 0;
+  const c = blackCarbonEqNgG > 0 ? Math.min(blackCarbonEqNgG, TABLE_MAX_LOAD_NG_G) : 0;
   return Math.sqrt(c / 1000) / LOAD_STEP;
 }
 
@@ -110,11 +112,11 @@ export function cloudTermTable(): CloudTermTable {
 
 /** dατ from the tables: `tau` the cloud optical thickness, `logTerm` = ln(1 + 1.5 τ). */
 export function readCloudTerm(table: CloudTermTable, clean: number, loaded: number, tau: number, logTerm: number): number {
-  const x = (loaded < 0 ? 0 : loaded > POWER_MAX ? POWER_MAX : loaded) / POWER_STEP;
+  const x = (loaded < 0 ? 0 : Math.min(loaded, POWER_MAX)) / POWER_STEP;
   const i = x | 0;
   const power = table.power[i] + (table.power[i + 1] - table.power[i]) * (x - i);
-  const u = ((clean < DECAY_CLEAN_MIN ? DECAY_CLEAN_MIN : clean > 1 ? 1 : clean) - DECAY_CLEAN_MIN) / DECAY_CLEAN_STEP;
-  const v = (logTerm > DECAY_LOG_MAX ? DECAY_LOG_MAX : logTerm) / DECAY_LOG_STEP;
+  const u = (Math.min(Math.max(clean, DECAY_CLEAN_MIN), 1) - DECAY_CLEAN_MIN) / DECAY_CLEAN_STEP;
+  const v = Math.min(logTerm, DECAY_LOG_MAX) / DECAY_LOG_STEP;
   const a = u | 0;
   const b = v | 0;
   const fu = u - a;

@@ -1,8 +1,16 @@
 import { describe, expect, it } from 'vitest';
-import { addDays, dateToUtcMs, dayOfYear, daysBetween, isIsoDate, standardOffsetHours } from './calendar';
+import { addDays, dateToUtcMs, dayOfYear, daysBetween, isIsoDate, isTimeZone, standardOffsetHours } from './calendar';
 import { buildTimeline } from './timeline';
 
 describe('calendar', () => {
+  it('knows IANA time zones, the second time as the first, and refuses names that are none', () => {
+    for (const round of [1, 2]) {
+      expect(isTimeZone('Asia/Kathmandu'), `round ${round}`).toBe(true);
+      expect(isTimeZone('UTC'), `round ${round}`).toBe(true);
+      expect(isTimeZone('Asia/Atlantis'), `round ${round}`).toBe(false);
+      expect(isTimeZone(''), `round ${round}`).toBe(false);
+    }
+  });
   it('accepts real dates only', () => {
     expect(isIsoDate('2024-02-29')).toBe(true);
     expect(isIsoDate('2023-02-29')).toBe(false);

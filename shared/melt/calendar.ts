@@ -47,12 +47,18 @@ export function standardOffsetHours(timeZone: string, year: number): number {
   return Math.min(offsetAt(Date.UTC(year, 0, 1)), offsetAt(Date.UTC(year, 6, 1)));
 }
 
+/** Zones already found known: building a formatter for a zone costs about half a millisecond, and every catchment write checks one. */
+const knownTimeZones = new Set<string>();
+
 /** True if the runtime knows the IANA time zone. */
 export function isTimeZone(timeZone: string): boolean {
+  if (knownTimeZones.has(timeZone)) return true;
   try {
     new Intl.DateTimeFormat('en-US', { timeZone });
-    return true;
   } catch {
     return false;
   }
+  // Only known zones are kept, and no more than a thousand (spellings in other letter cases are known too).
+  if (knownTimeZones.size < 1000) knownTimeZones.add(timeZone);
+  return true;
 }

@@ -25,7 +25,12 @@ export const MIN_SIN_ELEVATION = 0.01;
  */
 export function beamIndex(pressureKPa: number, sinElevation: number, precipitableMm: number, turbidity: number): number {
   const s = Math.max(sinElevation, MIN_SIN_ELEVATION);
-  return 0.98 * Math.exp((-0.00146 * pressureKPa) / (turbidity * s) - 0.075 * Math.pow(precipitableMm / s, 0.4));
+  return beamIndexOf(pressureKPa, s, turbidity, Math.pow(precipitableMm / s, 0.4));
+}
+
+/** KB from its parts, with sin β already raised to MIN_SIN_ELEVATION and (W / sin β)^0.4 already worked out. */
+export function beamIndexOf(pressureKPa: number, sinElevation: number, turbidity: number, waterPower: number): number {
+  return 0.98 * Math.exp((-0.00146 * pressureKPa) / (turbidity * sinElevation) - 0.075 * waterPower);
 }
 
 /** Transmissivity index of diffuse radiation KD from KB (Eq. D.4). */

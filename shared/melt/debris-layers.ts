@@ -26,10 +26,38 @@ export interface DebrisColumn {
   heightOverRoughness: number;
 }
 
+/**
+ * Where stepDebrisFrom reads its numbers in its input array: absorbed shortwave and incoming
+ * longwave (W m⁻², the longwave already times the debris emissivity), air temperature (°C), wind
+ * (m s⁻¹) and the three node temperatures (°C). An array instead of arguments for the reason
+ * given at STEP_IN (surface-flux.ts).
+ */
+export const DEBRIS_IN = { absorbed: 0, longIn: 1, airC: 2, windMs: 3, surfaceC: 4, upperC: 5, lowerC: 6 } as const;
+export const DEBRIS_IN_SIZE = 7;
+
+const debrisInput = new Float64Array(DEBRIS_IN_SIZE);
+
+/** The same as stepDebrisFrom with its numbers given as arguments. */
 export function stepDebris(
   out: Float64Array, column: DebrisColumn, absorbedWm2: number, longInWm2: number, airC: number, windMs: number,
   surfaceC: number, upperC: number, lowerC: number, stability: boolean,
 ): void {
+  const input = debrisInput;
+  input[DEBRIS_IN.absorbed] = absorbedWm2;
+  input[DEBRIS_IN.longIn] = longInWm2;
+  input[DEBRIS_IN.airC] = airC;
+  input[DEBRIS_IN.windMs] = windMs;
+  input[DEBRIS_IN.surfaceC] = surfaceC;
+  input[DEBRIS_IN.upperC] = upperC;
+  input[DEBRIS_IN.lowerC] = lowerC;
+  stepDebrisFrom(out, input, column, stability);
+}
+
+/** One hour of the debris column, reading its numbers from `input` (DEBRIS_IN.*); writes DEBRIS.* into `out`. */
+export function stepDebrisFrom(out: Float64Array, input: Float64Array, column: DebrisColumn, stability: boolean): void {
+  const airC = input[DEBRIS_IN.airC];
+  const surfaceC = input[DEBRIS_IN.surfaceC];
+  const longInWm2 = input[DEBRIS_IN.longIn];
   const dt = SECONDS_PER_HOUR;
   const h = column.thicknessM;
   const cap = column.heatCapacity * h / dt;
@@ -40,19 +68,19 @@ export function stepDebris(
   const k12 = column.conductivity / (0.35 * h);
   const k2i = column.conductivity / (0.5 * h);
 
-  const fh = stability ? stabilityFactor(airC, surfaceC, windMs, column.drag, column.heightOverRoughness) : 1;
+  const fh = stability ? stabilityFactor(airC, surfaceC, input[DEBRIS_IN.windMs], column.drag, column.heightOverRoughness) : 1;
   const hc = column.sensibleCoefficient * fh;
   const tk = surfaceC + ZERO_CELSIUS_K;
   const es = column.emissivity * STEFAN_BOLTZMANN;
   const longOut = es * tk * tk * tk * tk;
   const longSlope = 4 * es * tk * tk * tk;
-  const f = absorbedWm2 + longInWm2 - longOut + hc * (airC - surfaceC);
+  const f = input[DEBRIS_IN.absorbed] + longInWm2 - longOut + hc * (airC - surfaceC);
   const d = longSlope + hc;
 
   // Tridiagonal system, solved by elimination (Thomas algorithm).
   const a0 = c0 + d + k01, r0 = c0 * surfaceC + f + d * surfaceC;
-  const a1 = c1 + k01 + k12, r1 = c1 * upperC;
-  const a2 = c2 + k12 + k2i, r2 = c2 * lowerC;
+  const a1 = c1 + k01 + k12, r1 = c1 * input[DEBRIS_IN.upperC];
+  const a2 = c2 + k12 + k2i, r2 = c2 * input[DEBRIS_IN.lowerC];
   const a1p = a1 - (k01 * k01) / a0;
   const r1p = r1 + (k01 * r0) / a0;
   const a2p = a2 - (k12 * k12) / a1p;

@@ -1,30 +1,32 @@
 import { ICE, stepIce } from './ice-surface';
-import { DEBRIS, stepDebris } from './debris-layers';
+import { DEBRIS, DEBRIS_IN, stepDebrisFrom } from './debris-layers';
+import { STEP_IN } from './surface-flux';
 import { ACC, type LoopContext } from './loop-context';
 
 /**
- * One hour of band b's snow-free glacier (a share `exposed` of the band's glacier): clean ice,
- * bare ice between debris patches, and debris. Energy balance (surface temperatures, melt,
+ * Hour k of band b's snow-free glacier (the share 1 − cover > 0 of the band's glacier, with the
+ * hour's weather and snow cover in `c.hours`): clean ice, bare ice between debris patches, and
+ * debris. Energy balance (surface temperatures, melt,
  * vapour exchange) or, for the reference models, their melt index; debris in the reference
  * models melts the clean-ice amount times H* / (H* + h) (Anderson & Anderson 2016).
  * Debris always takes the stability correction: midday debris is far warmer than the air, and the
  * free convection over it is what keeps its surface within measured temperatures (Reid & Brock
  * 2010; Collier et al. 2014) [memory]; the run's option applies to snow and ice.
  */
-export function glacierHour(c: LoopContext, b: number, month: number, exposed: number, global: number, longIn: number, airC: number, airK: number): void {
+export function glacierHour(c: LoopContext, b: number, k: number, month: number): void {
   const run = c.run;
   const g = run.geometry;
   const p = run.params;
   const s = run.state;
   const a = c.acc;
+  const w = c.hours;
   const out = c.scratch;
   const clean = g.cleanIceShare[b];
   const debris = g.debrisShare[b];
-  if (exposed <= 0) {
-    s.iceSurfaceC[b] = s.iceDeepC[b] = 0;
-    s.debrisSurfaceC[b] = s.debrisUpperC[b] = s.debrisLowerC[b] = 0;
-    return;
-  }
+  const exposed = 1 - w.cover[k];
+  const global = w.globalWm2[k];
+  const longIn = w.longInWm2[k];
+  const airC = w.airC[k];
   const patch = g.debrisPatchShare[b];
   const iceAlbedo = run.tables.iceAlbedo[month];
   const bareShare = clean + (c.model === 0 ? debris * (1 - patch) : 0);
@@ -32,7 +34,14 @@ export function glacierHour(c: LoopContext, b: number, month: number, exposed: n
     const absorbed = global * (1 - iceAlbedo);
     let melt: number;
     if (c.model === 0) {
-      stepIce(out, run.surfaceVapour, c.air, absorbed, longIn, s.iceSurfaceC[b], s.iceDeepC[b], c.snowIceDrag, c.snowIceHeightOverRoughness, c.stability);
+      const input = c.iceInput;
+      input[STEP_IN.absorbed] = absorbed;
+      input[STEP_IN.longIn] = longIn;
+      input[STEP_IN.surfaceC] = s.iceSurfaceC[b];
+      input[STEP_IN.deepC] = s.iceDeepC[b];
+      input[STEP_IN.drag] = c.snowIceDrag;
+      input[STEP_IN.heightOverRoughness] = c.snowIceHeightOverRoughness;
+      stepIce(out, input, run.surfaceVapour, c.air, c.stability);
       melt = out[ICE.melt];
       s.iceSurfaceC[b] = out[ICE.surfaceC];
       s.iceDeepC[b] = out[ICE.deepC];
@@ -62,8 +71,16 @@ export function glacierHour(c: LoopContext, b: number, month: number, exposed: n
   if (debris > 0 && patch > 0 && c.model === 0) {
     const absorbed = global * (1 - p.debrisAlbedo);
     const column = c.columns[b];
-    column.sensibleCoefficient = (g.pressurePa[b] / airK) * c.cpOverRd * c.debrisExchange * c.air.windMs;
-    stepDebris(out, column, absorbed, p.debrisEmissivity * longIn, airC, c.air.windMs, s.debrisSurfaceC[b], s.debrisUpperC[b], s.debrisLowerC[b], true);
+    const input = c.debrisInput;
+    column.sensibleCoefficient = (g.pressurePa[b] / w.airK[k]) * c.cpOverRd * c.debrisExchange * w.windMs[k];
+    input[DEBRIS_IN.absorbed] = absorbed;
+    input[DEBRIS_IN.longIn] = p.debrisEmissivity * longIn;
+    input[DEBRIS_IN.airC] = airC;
+    input[DEBRIS_IN.windMs] = w.windMs[k];
+    input[DEBRIS_IN.surfaceC] = s.debrisSurfaceC[b];
+    input[DEBRIS_IN.upperC] = s.debrisUpperC[b];
+    input[DEBRIS_IN.lowerC] = s.debrisLowerC[b];
+    stepDebrisFrom(out, input, column, true);
     s.debrisSurfaceC[b] = out[DEBRIS.surfaceC];
     s.debrisUpperC[b] = out[DEBRIS.upperC];
     s.debrisLowerC[b] = out[DEBRIS.lowerC];

@@ -1,5 +1,5 @@
 import { ICE_CONDUCTIVITY, ICE_DENSITY_KG_M3, SECONDS_PER_HOUR } from './constants';
-import { FLUX, surfaceFlux, type TurbulentAir } from './surface-flux';
+import { FLUX, STEP_IN, surfaceFlux, type TurbulentAir } from './surface-flux';
 import { diurnalLayerMass } from './snow-pack';
 import { LAYERS, stepTwoLayers } from './two-layer';
 import type { SurfaceVapourTable } from './vapour';
@@ -20,12 +20,11 @@ const ICE_CONDUCTANCE = ICE_CONDUCTIVITY / ((ICE_SURFACE_MASS + ICE_DEEP_MASS) /
 const flux = new Float64Array(10);
 const layer = new Float64Array(3);
 
-export function stepIce(
-  out: Float64Array, table: SurfaceVapourTable, air: TurbulentAir, absorbedWm2: number, longInWm2: number,
-  surfaceC: number, deepC: number, drag: number, heightOverRoughness: number, stability: boolean,
-): void {
-  surfaceFlux(flux, table, absorbedWm2, longInWm2, 0, air, surfaceC, drag, heightOverRoughness, stability);
-  stepTwoLayers(layer, flux[FLUX.total], flux[FLUX.slope], surfaceC, deepC, ICE_SURFACE_MASS, ICE_DEEP_MASS, ICE_CONDUCTANCE);
+/** Reads absorbed shortwave, incoming longwave, the layer temperatures and the exchange (STEP_IN.*) from `input`; writes ICE.* into `out`. */
+export function stepIce(out: Float64Array, input: Float64Array, table: SurfaceVapourTable, air: TurbulentAir, stability: boolean): void {
+  const surfaceC = input[STEP_IN.surfaceC];
+  surfaceFlux(flux, input, table, air, stability);
+  stepTwoLayers(layer, flux[FLUX.total], flux[FLUX.slope], surfaceC, input[STEP_IN.deepC], ICE_SURFACE_MASS, ICE_DEEP_MASS, ICE_CONDUCTANCE);
   const t1 = layer[LAYERS.surfaceC];
   const change = t1 - surfaceC;
   const latent = flux[FLUX.latent] - flux[FLUX.latentSlope] * change;
@@ -33,7 +32,7 @@ export function stepIce(
   out[ICE.deepC] = layer[LAYERS.deepC];
   out[ICE.melt] = layer[LAYERS.melt];
   out[ICE.vapourLoss] = -latent * SECONDS_PER_HOUR * flux[FLUX.inverseLatentHeat];
-  out[ICE.netLongwave] = longInWm2 - flux[FLUX.longOut] - flux[FLUX.longSlope] * change;
+  out[ICE.netLongwave] = input[STEP_IN.longIn] - flux[FLUX.longOut] - flux[FLUX.longSlope] * change;
   out[ICE.sensible] = flux[FLUX.sensible] - flux[FLUX.sensibleSlope] * change;
   out[ICE.latent] = latent;
   out[ICE.evaporating] = surfaceC < 0 ? 0 : 1;

@@ -2,12 +2,13 @@ import { GAS_CONSTANT_DRY_AIR, SPECIFIC_HEAT_AIR, VAPOUR_MASS_RATIO } from './co
 import { OVERCAST_EMISSIVITY } from './longwave';
 import { neutralExchange, roughnessForExchange } from './turbulence';
 import { snowLayers, type SnowLayers } from './snow-pack';
-import type { DebrisColumn } from './debris-layers';
+import { DEBRIS_IN_SIZE, type DebrisColumn } from './debris-layers';
 import { cloudTermTable, type CloudTermTable } from './albedo-table';
+import { IMPURITY_IN_SIZE } from './impurities';
 import type { PreparedRun } from './prepare';
 import type { ShortwaveForcing } from './shortwave-forcing';
 import type { SunTrack } from './sun-track';
-import type { TurbulentAir } from './surface-flux';
+import { STEP_IN_SIZE, type TurbulentAir } from './surface-flux';
 import type { MeltModel } from './result';
 
 /** Slots of the per band-day accumulators the hour step adds to. */
@@ -17,6 +18,35 @@ export const ACC = {
   sensible: 15, latent: 16, albedoWeighted: 17, snowCover: 18, debrisMax: 19, debrisSeen: 20, airTemperature: 21,
 } as const;
 export const ACC_SIZE = 22;
+
+/**
+ * The weather of the band being simulated through one day, hour by hour (band-day.ts: worked out
+ * by bandWeather, used by bandSurfaces and glacierHour).
+ */
+export interface BandHours {
+  airC: Float64Array;
+  airK: Float64Array;
+  rainMm: Float64Array;
+  snowMm: Float64Array;
+  /** Shortwave on the band's slope and incoming longwave, W m⁻². */
+  globalWm2: Float64Array;
+  longInWm2: Float64Array;
+  /** Vapour pressure of the air, Pa, wind, and the neutral turbulent coefficients of TurbulentAir. */
+  vapourPa: Float64Array;
+  windMs: Float64Array;
+  sensibleCoefficient: Float64Array;
+  vapourCoefficient: Float64Array;
+  /** Snow-covered share of the band in each hour, for the glacier the snow leaves exposed. */
+  cover: Float64Array;
+}
+
+function allocateBandHours(): BandHours {
+  const day = () => new Float64Array(24);
+  return {
+    airC: day(), airK: day(), rainMm: day(), snowMm: day(), globalWm2: day(), longInWm2: day(),
+    vapourPa: day(), windMs: day(), sensibleCoefficient: day(), vapourCoefficient: day(), cover: day(),
+  };
+}
 
 /** Everything the hour step reads, gathered once per run so the loop allocates nothing. */
 export interface LoopContext {
@@ -39,6 +69,7 @@ export interface LoopContext {
   cpOverRd: number;
   vapourOverRd: number;
   air: TurbulentAir;
+  hours: BandHours;
   /** Grain growth per hour, µm³-equivalent: dr = rate / r² (dV/(4πr²), Brun 1989 form). */
   wetGrowth: number;
   dryGrowth: number;
@@ -46,6 +77,11 @@ export interface LoopContext {
   cloudTerm: CloudTermTable;
   acc: Float64Array;
   scratch: Float64Array;
+  /** What the snow, ice, debris and impurity steps read (STEP_IN.*, DEBRIS_IN.*, IMPURITY_IN.*); the ice's rain heat stays 0. */
+  snowInput: Float64Array;
+  iceInput: Float64Array;
+  debrisInput: Float64Array;
+  impurityInput: Float64Array;
 }
 
 /** µm of radius growth per hour, times r², from a grain volume growth in mm³ per day: dr = dV/(4πr²). */
@@ -58,10 +94,17 @@ export function buildLoopContext(run: PreparedRun, sun: SunTrack, shortwave: Sho
   const hours = run.timeline.dayCount * 24;
   const clear = new Float64Array(hours);
   const overcast = new Float64Array(hours);
+  // RH^(1/7) again only when the humidity changes (daily series repeat it through the day).
+  let humidity = NaN;
+  let humidityRoot = 0;
   for (let h = 0; h < hours; h++) {
     const n = shortwave.cloudiness[h];
     const n4 = n * n * n * n;
-    clear[h] = Math.pow(run.forcing.relativeHumidity[h], 1 / 7) * (1 - n4);
+    if (run.forcing.relativeHumidity[h] !== humidity) {
+      humidity = run.forcing.relativeHumidity[h];
+      humidityRoot = Math.pow(humidity, 1 / 7);
+    }
+    clear[h] = humidityRoot * (1 - n4);
     overcast[h] = OVERCAST_EMISSIVITY * n4;
   }
   const snowIce = neutralExchange(roughnessForExchange(p.exchangeCoefficient));
@@ -75,6 +118,7 @@ export function buildLoopContext(run: PreparedRun, sun: SunTrack, shortwave: Sho
     debrisExchange: debris.heat, debrisDrag: debris.drag, debrisHeightOverRoughness: debris.heightOverRoughness,
     cpOverRd: SPECIFIC_HEAT_AIR / GAS_CONSTANT_DRY_AIR, vapourOverRd: VAPOUR_MASS_RATIO / GAS_CONSTANT_DRY_AIR,
     air: { airC: 0, vapourPa: 0, windMs: 1, sensibleCoefficient: 0, vapourCoefficient: 0 },
+    hours: allocateBandHours(),
     wetGrowth: p.wetGrainGrowthMm3PerDay * GRAIN_SCALE,
     dryGrowth: p.dryGrainGrowthMm3PerDay * GRAIN_SCALE,
     columns: Array.from({ length: g.count }, (_, b) => ({
@@ -84,5 +128,9 @@ export function buildLoopContext(run: PreparedRun, sun: SunTrack, shortwave: Sho
     cloudTerm: cloudTermTable(),
     acc: new Float64Array(ACC_SIZE),
     scratch: new Float64Array(16),
+    snowInput: new Float64Array(STEP_IN_SIZE),
+    iceInput: new Float64Array(STEP_IN_SIZE),
+    debrisInput: new Float64Array(DEBRIS_IN_SIZE),
+    impurityInput: new Float64Array(IMPURITY_IN_SIZE),
   };
 }

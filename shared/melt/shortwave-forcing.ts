@@ -1,4 +1,4 @@
-import { beamIndex, diffuseIndex, MIN_SIN_ELEVATION, precipitableWaterMm } from './clear-sky';
+import { beamIndexOf, diffuseIndex, MIN_SIN_ELEVATION, precipitableWaterMm } from './clear-sky';
 import { cloudinessFromTransmission, cloudOpticalThickness, cloudTransmission } from './cloud';
 import { extraterrestrialNormal } from './shortwave';
 import { sunAngleFactor } from './snow-albedo';
@@ -63,6 +63,7 @@ export function buildShortwaveForcing(
   };
   const stationKPa = stationPressurePa / 1000;
   const fixedIndex = cloudTransmission(params.defaultCloudiness);
+  const cloud = new HourCloud();
   for (let d = 0; d < timeline.dayCount; d++) {
     const top = extraterrestrialNormal(timeline.daysOfYear[d]);
     let topSum = 0;
@@ -78,24 +79,48 @@ export function buildShortwaveForcing(
       sw.topHorizontalWm2[h] = top * cosZ;
       sw.inverseCosZenith[h] = 1 / cosZ;
       sw.pressureTerm[h] = -0.00146 / (params.turbidity * s);
-      sw.vapourTerm[h] = -0.075 * Math.pow(w / s, 0.4);
-      const kb = beamIndex(stationKPa, cosZ, w, params.turbidity);
+      const waterPower = Math.pow(w / s, 0.4);
+      sw.vapourTerm[h] = -0.075 * waterPower;
+      const kb = beamIndexOf(stationKPa, s, params.turbidity, waterPower);
       topSum += top * cosZ;
       clearSum += (kb + diffuseIndex(kb)) * top * cosZ;
     }
     for (let h = d * 24; h < d * 24 + 24; h++) {
-      let index: number;
-      if (source === 'measured') index = clearSum > 0 ? Math.min(1, measuredSum / clearSum) : 1;
-      else if (source === 'cloudiness') index = cloudTransmission(forcing.cloudiness![h]);
-      else if (source === 'temperature-range') index = temperatureRangeClearSkyIndex(forcing.dailyRangeK[d], topSum, clearSum, params.temperatureRangeRadiationCoefficient);
-      else index = fixedIndex;
-      const tau = cloudOpticalThickness(index);
-      sw.cloudIndex[h] = index;
-      sw.cloudiness[h] = source === 'cloudiness' ? forcing.cloudiness![h] : source === 'fixed-cloudiness' ? params.defaultCloudiness : cloudinessFromTransmission(index);
-      sw.cloudOpticalThickness[h] = tau;
-      sw.cloudLogTerm[h] = Math.log(1 + 1.5 * tau);
-      sw.albedoSunFactor[h] = sunAngleFactor(sun.cosZenith[h], tau);
+      if (source === 'cloudiness') {
+        const n = forcing.cloudiness![h];
+        if (n !== cloud.cloudiness) cloud.of(cloudTransmission(n), n);
+      } else {
+        let index: number;
+        if (source === 'measured') index = clearSum > 0 ? Math.min(1, measuredSum / clearSum) : 1;
+        else if (source === 'temperature-range') index = temperatureRangeClearSkyIndex(forcing.dailyRangeK[d], topSum, clearSum, params.temperatureRangeRadiationCoefficient);
+        else index = fixedIndex;
+        if (index !== cloud.index) cloud.of(index, source === 'fixed-cloudiness' ? params.defaultCloudiness : cloudinessFromTransmission(index));
+      }
+      sw.cloudIndex[h] = cloud.index;
+      sw.cloudiness[h] = cloud.cloudiness;
+      sw.cloudOpticalThickness[h] = cloud.tau;
+      sw.cloudLogTerm[h] = cloud.logTerm;
+      sw.albedoSunFactor[h] = sunAngleFactor(sun.cosZenith[h], cloud.tau);
     }
   }
   return sw;
+}
+
+/**
+ * The cloud of the hour and what follows from it (index, cloudiness, optical thickness and its
+ * log term), worked out again only when the cloud changes: daily series give the same cloud to
+ * all 24 hours of a day.
+ */
+class HourCloud {
+  index = NaN;
+  cloudiness = NaN;
+  tau = 0;
+  logTerm = 0;
+
+  of(index: number, cloudiness: number): void {
+    this.index = index;
+    this.cloudiness = cloudiness;
+    this.tau = cloudOpticalThickness(index);
+    this.logTerm = Math.log(1 + 1.5 * this.tau);
+  }
 }

@@ -1,5 +1,5 @@
 import { LATENT_HEAT_FUSION, SECONDS_PER_HOUR, SPECIFIC_HEAT_ICE } from './constants';
-import { FLUX, surfaceFlux, type TurbulentAir } from './surface-flux';
+import { FLUX, STEP_IN, STEP_IN_SIZE, surfaceFlux, type TurbulentAir } from './surface-flux';
 import { LAYERS, stepTwoLayers } from './two-layer';
 import type { SurfaceVapourTable } from './vapour';
 
@@ -64,11 +64,12 @@ const FREEZE_PER_KELVIN = SPECIFIC_HEAT_ICE / LATENT_HEAT_FUSION;
 
 const flux = new Float64Array(10);
 const layer = new Float64Array(3);
+const stepInput = new Float64Array(STEP_IN_SIZE);
 
 /**
  * Advances the pack by one hour. Writes SNOW.* into `out`. Masses in kg m⁻² (= mm w.e.) per m² of
  * snow-covered ground; `rainMm` is the rain falling on it this hour and `rainHeatWm2` the heat that
- * rain brings.
+ * rain brings. The same as stepSnowFrom with its numbers given as arguments.
  */
 export function stepSnow(
   out: Float64Array, table: SurfaceVapourTable, layers: SnowLayers, air: TurbulentAir,
@@ -76,13 +77,41 @@ export function stepSnow(
   surfaceC: number, deepC: number, solid: number, liquid: number,
   drag: number, heightOverRoughness: number, stability: boolean,
 ): void {
+  const input = stepInput;
+  input[STEP_IN.absorbed] = absorbedWm2;
+  input[STEP_IN.longIn] = longInWm2;
+  input[STEP_IN.rain] = rainMm;
+  input[STEP_IN.rainHeat] = rainHeatWm2;
+  input[STEP_IN.surfaceC] = surfaceC;
+  input[STEP_IN.deepC] = deepC;
+  input[STEP_IN.solid] = solid;
+  input[STEP_IN.liquid] = liquid;
+  input[STEP_IN.drag] = drag;
+  input[STEP_IN.heightOverRoughness] = heightOverRoughness;
+  stepSnowFrom(out, input, table, layers, air, stability, false);
+}
+
+/**
+ * One hour of the pack as stepSnow, reading its numbers from `input` (STEP_IN.*), as the hour loop
+ * calls it; with `indexMelt`, the reference models' pack instead (stepSnowIndex). One entry for
+ * both, so V8 compiles the hour loop alike for every model.
+ */
+export function stepSnowFrom(
+  out: Float64Array, input: Float64Array, table: SurfaceVapourTable, layers: SnowLayers, air: TurbulentAir, stability: boolean, indexMelt: boolean,
+): void {
+  if (indexMelt) {
+    stepSnowIndex(out, input, layers);
+    return;
+  }
+  const surfaceC = input[STEP_IN.surfaceC];
+  const solid = input[STEP_IN.solid];
   const m1 = solid < layers.surfaceMass ? solid : layers.surfaceMass;
   const rest = solid - m1;
   const m2 = rest < layers.deepMass ? rest : layers.deepMass;
   const k = m2 > 0 ? layers.conductance2 / (m1 + m2) : 0;
 
-  surfaceFlux(flux, table, absorbedWm2, longInWm2, rainHeatWm2, air, surfaceC, drag, heightOverRoughness, stability);
-  stepTwoLayers(layer, flux[FLUX.total], flux[FLUX.slope], surfaceC, deepC, m1, m2, k);
+  surfaceFlux(flux, input, table, air, stability);
+  stepTwoLayers(layer, flux[FLUX.total], flux[FLUX.slope], surfaceC, input[STEP_IN.deepC], m1, m2, k);
   let t1 = layer[LAYERS.surfaceC];
   let t2 = layer[LAYERS.deepC];
   let melt = layer[LAYERS.melt];
@@ -95,7 +124,7 @@ export function stepSnow(
   left -= vapourLoss;
 
   // Meltwater and rain refreeze against the cold content of the surface layer, then of the layer below.
-  let water = liquid + melt + rainMm;
+  let water = input[STEP_IN.liquid] + melt + input[STEP_IN.rain];
   let refrozen = 0;
   if (t1 < 0 && water > 0 && m1 > 0) {
     const r = Math.min(water, m1 * -t1 * FREEZE_PER_KELVIN);
@@ -121,22 +150,25 @@ export function stepSnow(
   out[SNOW.vapourLoss] = vapourLoss;
   out[SNOW.solid] = left;
   out[SNOW.liquid] = water - drained;
-  out[SNOW.netLongwave] = longInWm2 - flux[FLUX.longOut] - flux[FLUX.longSlope] * change;
+  out[SNOW.netLongwave] = input[STEP_IN.longIn] - flux[FLUX.longOut] - flux[FLUX.longSlope] * change;
   out[SNOW.sensible] = flux[FLUX.sensible] - flux[FLUX.sensibleSlope] * change;
   out[SNOW.latent] = latent;
   out[SNOW.evaporating] = surfaceC < 0 ? 0 : 1;
 }
 
 /**
- * The reference models' pack (degree-day, enhanced temperature index): `melt` kg m⁻² from the
- * index, with the same retention and drainage, no refreezing and no vapour exchange. Writes the
- * same SNOW.* fields as stepSnow; temperatures stay at 0 °C.
+ * The reference models' pack (degree-day, enhanced temperature index): input[STEP_IN.indexMelt]
+ * kg m⁻² from the index, with the same retention and drainage, no refreezing and no vapour
+ * exchange. Reads rain, solid and liquid water from `input` as stepSnowFrom does and writes the
+ * same SNOW.* fields; temperatures stay at 0 °C.
  */
-export function stepSnowIndex(out: Float64Array, layers: SnowLayers, melt: number, rainMm: number, solid: number, liquid: number): void {
+function stepSnowIndex(out: Float64Array, input: Float64Array, layers: SnowLayers): void {
+  const solid = input[STEP_IN.solid];
+  const melt = input[STEP_IN.indexMelt];
   const m = melt < solid ? melt : solid;
   const left = solid - m;
   const active = Math.min(left, layers.surfaceMass + layers.deepMass);
-  const water = liquid + m + rainMm;
+  const water = input[STEP_IN.liquid] + m + input[STEP_IN.rain];
   const capacity = layers.holdingFraction * active;
   const drained = water > capacity ? water - capacity : 0;
   out[SNOW.surfaceC] = 0;

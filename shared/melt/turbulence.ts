@@ -46,7 +46,8 @@ export const MIN_RICHARDSON_WIND_MS = 0.5;
  * @example stabilityFactor(8, 0, 2, 0.0026, 2600) // ≈ 0.27 (warm air over melting ice is stable)
  */
 export function stabilityFactor(airTempC: number, surfaceTempC: number, windMs: number, drag: number, heightOverRoughness: number): number {
-  const u = windMs > MIN_RICHARDSON_WIND_MS ? windMs : MIN_RICHARDSON_WIND_MS;
+  // Math.max rather than a ternary with the module constant, which V8 would box the float for (albedo-table.ts).
+  const u = Math.max(windMs, MIN_RICHARDSON_WIND_MS);
   const ri = (GRAVITY * (airTempC - surfaceTempC) * MEASUREMENT_HEIGHT_M) / ((airTempC + ZERO_CELSIUS_K) * u * u);
   if (ri >= 0) return 1 / (1 + 15 * ri * Math.sqrt(1 + 5 * ri));
   return 1 - (15 * ri) / (1 + 75 * drag * Math.sqrt(-ri * heightOverRoughness));

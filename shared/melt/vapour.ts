@@ -54,6 +54,7 @@ export function surfaceVapourTable(): SurfaceVapourTable {
 
 /** Position of a surface temperature (°C, clamped to −80 … 0) in the surface table: index plus fraction. */
 export function surfaceTablePosition(tempC: number): number {
-  const t = tempC < SURFACE_TABLE_MIN_C ? SURFACE_TABLE_MIN_C : tempC > 0 ? 0 : tempC;
-  return (t - SURFACE_TABLE_MIN_C) / SURFACE_TABLE_STEP_C;
+  // Math.max rather than a ternary with the module constant, which V8 would box the float for (albedo-table.ts).
+  const t = Math.max(tempC, SURFACE_TABLE_MIN_C);
+  return ((t > 0 ? 0 : t) - SURFACE_TABLE_MIN_C) / SURFACE_TABLE_STEP_C;
 }

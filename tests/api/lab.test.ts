@@ -17,8 +17,9 @@ let otherCatchmentId: number;
 const season = { from: '2022-06-01', to: '2022-08-31' };
 const query = `band=6&from=${season.from}&to=${season.to}`;
 
+/** Waits up to two minutes: a calibration simulates whole spun-up seasons, searched and then sampled for behavioural ranges. */
 async function waitForJob(agent: Awaited<ReturnType<typeof signedInAgent>>, id: number): Promise<LabJob> {
-  for (let i = 0; i < 600; i++) {
+  for (let i = 0; i < 1200; i++) {
     const res = await agent.get(`/api/lab/jobs/${id}`);
     const job = labJobSchema.parse(res.body);
     if (job.status !== 'running' && job.status !== 'queued') return job;

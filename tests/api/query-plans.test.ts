@@ -52,14 +52,25 @@ async function tenantTables(db: Knex): Promise<Set<string>> {
   return new Set(rows.map((r: { name: string }) => r.name));
 }
 
-/** The accesses to tenant tables that MariaDB's plan (EXPLAIN) makes without any index: a scan of every organisation's rows. */
+/**
+ * The accesses to tenant tables that MariaDB's plan (EXPLAIN) makes without any index: a scan of
+ * every organisation's rows. On a few test rows a scan costs less than an index, so the plan is
+ * asked for as on a large table: `max_seeks_for_key` set low makes the optimizer take an index
+ * wherever one serves the statement (MariaDB's documented use of it). A table that is empty is
+ * passed over (scanning nothing is its best plan).
+ */
 async function scansOf(db: Knex, queries: Query[]): Promise<string[]> {
   const tenant = await tenantTables(db);
+  const filled = new Map<string, boolean>();
+  const hasRows = async (table: string) => {
+    if (!filled.has(table)) filled.set(table, (await db(table).first(db.raw('1'))) !== undefined);
+    return filled.get(table)!;
+  };
   const scans: string[] = [];
   for (const q of queries) {
-    const [plan] = (await db.raw(`EXPLAIN ${q.sql}`, q.bindings as Knex.RawBinding[])) as [PlanRow[]];
+    const [plan] = (await db.raw(`SET STATEMENT max_seeks_for_key = 1 FOR EXPLAIN ${q.sql}`, q.bindings as Knex.RawBinding[])) as [PlanRow[]];
     for (const row of plan) {
-      if (row.table && tenant.has(row.table) && row.key === null) scans.push(`${row.table} (${row.type}, ${row.Extra ?? ''}): ${q.sql}`);
+      if (row.table && tenant.has(row.table) && row.key === null && (await hasRows(row.table))) scans.push(`${row.table} (${row.type}, ${row.Extra ?? ''}): ${q.sql}`);
     }
   }
   return scans;
@@ -80,7 +91,7 @@ describe('query plans of every read route, from the route table', () => {
       })));
     }
     expect(queries.length).toBeGreaterThan(readsOf('admin').length);
-    expect(await scansOf(t.db, queries)).toEqual([]);
+    expect((await scansOf(t.db, queries)).join('\n')).toBe('');
   });
 
   it('would report a list filtered on a column without an index (control)', async () => {

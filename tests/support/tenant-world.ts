@@ -85,6 +85,7 @@ export async function createTenantWorld(db: Knex, geodataDir: string): Promise<T
   await db('briefing_versions').insert({ organisation_id, briefing_id: briefing, version: 1, snapshot: JSON.stringify(testSnapshot({ title: `${marker} briefing`, summary: marker })) });
   await db('briefing_shares').insert({ organisation_id, briefing_id: briefing, user_id: org.users.client.id });
   await db('briefing_comments').insert({ organisation_id, briefing_id: briefing, version: 1, user_id: org.users.client.id, body: marker });
+  await db('briefing_events').insert({ organisation_id, briefing_id: briefing, version: 1, user_id: org.users.consultant.id, user_email: org.users.consultant.email, action: 'published', detail: marker });
   // A study of the catchment, started, whose one cell is the failed run above.
   const [study] = await db('studies').insert({ organisation_id, name: `${marker} study`, description: marker, options: '{}', started_at: new Date() });
   await db('study_catchments').insert({ organisation_id, study_id: study, catchment_id: catchment });
@@ -125,7 +126,7 @@ export function pathIn(world: TenantWorld, path: string): string {
 
 /** Every row of the world's organisation in the tables routes can change, to prove a foreign caller changed none. */
 export async function snapshotOf(db: Knex, world: TenantWorld): Promise<string> {
-  const tables = ['catchments', 'band_tables', 'elevation_bands', 'geodata_uploads', 'band_derivations', 'datasets', 'pending_uploads', 'scenarios', 'runs', 'lab_jobs', 'briefings', 'briefing_versions', 'briefing_shares', 'briefing_comments', 'users'];
+  const tables = ['catchments', 'band_tables', 'elevation_bands', 'geodata_uploads', 'band_derivations', 'datasets', 'pending_uploads', 'scenarios', 'runs', 'lab_jobs', 'briefings', 'briefing_versions', 'briefing_shares', 'briefing_comments', 'briefing_events', 'users'];
   const rows = await Promise.all(tables.map((table) => db(table).where({ organisation_id: world.organisationId }).orderBy('id').select()));
   const values = await db('dataset_values').where({ organisation_id: world.organisationId }).orderBy(['dataset_id', 't']).select();
   return JSON.stringify([...rows, values]);

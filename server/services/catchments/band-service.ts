@@ -26,6 +26,8 @@ interface TableDbRow {
   version: number;
   source: BandTableVersion['source'];
   derivation_id: number | null;
+  /** How many bands the version holds (written with it). */
+  band_count: number;
   created_at: Date;
 }
 
@@ -118,12 +120,11 @@ export class BandService {
   private async describe(scope: TenantScope, rows: TableDbRow[]): Promise<BandTableVersion[]> {
     if (rows.length === 0) return [];
     const ids = rows.map((r) => r.id);
-    const bands = await scope.from('elevation_bands').whereIn('band_table_id', ids).groupBy('band_table_id').select('band_table_id').count({ n: '*' });
     const runs = await scope.from('runs').whereIn('band_table_id', ids).groupBy('band_table_id').select('band_table_id').count({ n: '*' });
-    const count = (list: Record<string, unknown>[], id: number) => Number(list.find((x) => x.band_table_id === id)?.n ?? 0);
+    const runCount = (id: number) => Number(runs.find((x: Record<string, unknown>) => x.band_table_id === id)?.n ?? 0);
     return rows.map((r) => ({
       id: r.id, version: r.version, source: r.source, derivationId: r.derivation_id,
-      bandCount: count(bands, r.id), runCount: count(runs, r.id), createdAt: new Date(r.created_at).toISOString(),
+      bandCount: r.band_count, runCount: runCount(r.id), createdAt: new Date(r.created_at).toISOString(),
     }));
   }
 }

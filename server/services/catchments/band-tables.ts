@@ -20,7 +20,7 @@ export async function insertBandTable(
   const origin = options.origin ?? { source: 'entered' };
   const last = await scope.from<{ version: number }>('band_tables').where('catchment_id', catchmentId).max({ v: 'version' }).first();
   const tableId = await scope.insert('band_tables', {
-    catchment_id: catchmentId, version: Number((last as { v?: number } | undefined)?.v ?? 0) + 1, source: origin.source,
+    catchment_id: catchmentId, version: Number((last as { v?: number } | undefined)?.v ?? 0) + 1, source: origin.source, band_count: bands.length,
     derivation_id: origin.source === 'derived' ? origin.derivationId : null, created_by: options.userId ?? null,
   });
   const terrain = options.terrain ?? ((position: number): TerrainFields => (origin.source === 'derived' ? origin.bands[position] : {}));

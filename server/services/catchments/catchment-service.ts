@@ -1,7 +1,7 @@
 import type { Knex } from 'knex';
 import type { Catchment, CatchmentFields, catchmentListQuerySchema } from '../../../shared/schemas/catchments';
 import type { z } from 'zod';
-import { conflict } from '../../errors';
+import { conflict, notFound } from '../../errors';
 import type { TenantScope } from '../tenant-scope';
 import { insertBaseline } from './baseline-scenario';
 
@@ -67,9 +67,11 @@ export function toCatchment(row: CatchmentRow): Catchment {
 export class CatchmentService {
   /** The row with its band and dataset counts, or 404. */
   async get(scope: TenantScope, id: number): Promise<Catchment> {
-    await scope.findOr404('catchments', id, 'Catchment');
-    const row = await withCounts(scope.from<CatchmentRow>('catchments'), scope.db).where('catchments.id', id).first();
-    return toCatchment(row as CatchmentRow);
+    const row = Number.isSafeInteger(id) && id > 0
+      ? ((await withCounts(scope.from<CatchmentRow>('catchments'), scope.db).where('catchments.id', id).first()) as CatchmentRow | undefined)
+      : undefined;
+    if (!row) throw notFound('Catchment');
+    return toCatchment(row);
   }
 
   async list(scope: TenantScope, query: z.output<typeof catchmentListQuerySchema>) {
@@ -139,7 +141,8 @@ export class CatchmentService {
 function withCounts(query: Knex.QueryBuilder, db: Knex | Knex.Transaction): Knex.QueryBuilder {
   return query.select(
     'catchments.*',
-    db('elevation_bands').count('*').whereRaw('elevation_bands.band_table_id = (SELECT MAX(t.id) FROM band_tables t WHERE t.catchment_id = catchments.id)').as('band_count'),
+    // The newest band table version's own count (kept with it): one index lookup per catchment.
+    db('band_tables').select('band_tables.band_count').whereRaw('band_tables.catchment_id = catchments.id').orderBy('band_tables.version', 'desc').limit(1).as('band_count'),
     db('datasets').count('*').whereRaw('datasets.catchment_id = catchments.id').as('dataset_count'),
   );
 }
