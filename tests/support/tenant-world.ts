@@ -90,6 +90,7 @@ export async function createTenantWorld(db: Knex, geodataDir: string): Promise<T
   const [study] = await db('studies').insert({ organisation_id, name: `${marker} study`, description: marker, options: '{}', started_at: new Date() });
   await db('study_catchments').insert({ organisation_id, study_id: study, catchment_id: catchment });
   const [template] = await db('study_scenarios').insert({ organisation_id, study_id: study, name: `${marker} soot`, changes: '{}' });
+  await db('study_scenario_values').insert({ organisation_id, study_scenario_id: template, catchment_id: catchment, changes: '{}' });
   await db('study_runs').insert({ organisation_id, study_id: study, study_scenario_id: template, catchment_id: catchment, run_id: run });
   const [invited] = await db('users').insert({ organisation_id, email: `${unique('invited')}@test.example`, name: `${marker} invitee`, role: 'client', status: 'invited' });
   return {
@@ -126,7 +127,7 @@ export function pathIn(world: TenantWorld, path: string): string {
 
 /** Every row of the world's organisation in the tables routes can change, to prove a foreign caller changed none. */
 export async function snapshotOf(db: Knex, world: TenantWorld): Promise<string> {
-  const tables = ['catchments', 'band_tables', 'elevation_bands', 'geodata_uploads', 'band_derivations', 'datasets', 'pending_uploads', 'scenarios', 'runs', 'lab_jobs', 'briefings', 'briefing_versions', 'briefing_shares', 'briefing_comments', 'briefing_events', 'users'];
+  const tables = ['catchments', 'band_tables', 'elevation_bands', 'geodata_uploads', 'band_derivations', 'datasets', 'pending_uploads', 'scenarios', 'runs', 'lab_jobs', 'briefings', 'briefing_versions', 'briefing_shares', 'briefing_comments', 'briefing_events', 'studies', 'study_catchments', 'study_scenarios', 'study_scenario_values', 'study_runs', 'users'];
   const rows = await Promise.all(tables.map((table) => db(table).where({ organisation_id: world.organisationId }).orderBy('id').select()));
   const values = await db('dataset_values').where({ organisation_id: world.organisationId }).orderBy(['dataset_id', 't']).select();
   return JSON.stringify([...rows, values]);
