@@ -12,7 +12,7 @@ import { createTestApp, type TestApp } from '../support/test-app';
 
 /**
  * The queue under faults, with real worker processes and a Redis of this file's own (so it can be
- * restarted): workers killed mid-run, Redis restarted mid-run, cancel, priorities and the
+ * restarted): workers killed mid-run, Redis and the API restarted mid-run, cancel, priorities and the
  * per-organisation limit. Locks last two seconds here, so a killed worker's jobs come back quickly.
  */
 let redis: TestRedis;
@@ -95,6 +95,20 @@ describe('the job queue under faults', () => {
     await new Promise((r) => setTimeout(r, 500));
     await redis.start();
     expect((await runEnded(t.ctx, runId, 90_000)).status).toBe('done');
+    expect(await totalsOf(runId)).toEqual(reference);
+  });
+
+  it('shows a run\'s progress from the database after the API restarts, while the workers finish it', async () => {
+    const runId = await queueRun(t.ctx, org.organisationId, ensemble);
+    await until(async () => (await storedMembers(runId)) >= 2);
+    const { catchment_id: catchmentId } = await t.db('runs').where('id', runId).first('catchment_id');
+    expect(await storedMembers(runId)).toBeLessThan(ensemble.plans.length);
+    await t.close();
+    t = createTestApp(env);
+    const run = await t.ctx.runs.get(new TenantScope(t.db, org.organisationId), catchmentId, runId);
+    expect(run.progress).toBeGreaterThan(0);
+    expect(['running', 'done']).toContain(run.status);
+    expect((await runEnded(t.ctx, runId)).status).toBe('done');
     expect(await totalsOf(runId)).toEqual(reference);
   });
 
