@@ -3,7 +3,7 @@ import { spawnWorker, type WorkerProcess } from '../../server/queue/worker-proce
 /**
  * The API and browser suites' worker process: runs and lab computations started by the tests go
  * through the real queue to it, as in production. Tests that kill or restart workers start their
- * own on a queue prefix of their own (tests/support/queue-world.ts).
+ * own, on a Redis and queue prefix of their own (tests/api/queue-faults.test.ts).
  */
 let worker: WorkerProcess | undefined;
 
