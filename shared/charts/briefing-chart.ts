@@ -19,14 +19,20 @@ export function briefingChartOption(chart: ChartData, options: { animation?: boo
       });
     }
   });
+  // Every bar is named (ECharts would drop labels that crowd); long names, such as catchments', are slanted to fit.
+  const named = chart.type === 'bar';
+  const slanted = named && chart.categories.some((c) => String(c).length > 12);
   return {
     // Left out unless asked for, so the page's own setting (none in browser tests) applies.
     ...(options.animation === undefined ? {} : { animation: options.animation }),
     color: [...SERIES_COLOURS],
-    grid: { left: 64, right: 16, top: 40, bottom: 48 },
+    grid: { left: 64, right: 16, top: 40, bottom: slanted ? 110 : 48 },
     legend: { top: 4, type: 'scroll' },
     tooltip: { trigger: 'axis' },
-    xAxis: { type: 'category', name: chart.xName, nameLocation: 'middle', nameGap: 30, data: chart.categories },
+    xAxis: {
+      type: 'category', name: chart.xName, nameLocation: 'middle', nameGap: slanted ? 90 : 30, data: chart.categories,
+      ...(named ? { axisLabel: { interval: 0, ...(slanted ? { rotate: 25 } : {}) } } : {}),
+    },
     yAxis: { type: 'value', name: chart.unit ? `${chart.yName} (${chart.unit})` : chart.yName, nameLocation: 'middle', nameGap: 48 },
     series,
   };
