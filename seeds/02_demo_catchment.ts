@@ -3,6 +3,7 @@ import { variableSpec, type Variable } from '../shared/schemas/dataset-variables
 import { BandService } from '../server/services/catchments/band-service';
 import { insertBandTable } from '../server/services/catchments/band-tables';
 import { insertBaseline } from '../server/services/catchments/baseline-scenario';
+import { insertReferenceStation, syncReferenceStation } from '../server/services/stations/reference-station';
 import { insertDatasetValues, insertStakeReadings } from '../server/services/catchments/dataset-values';
 import { TenantScope } from '../server/services/tenant-scope';
 import { DEMO_ACCOUNTS, DEMO_ORGANISATION } from './data/demo-accounts';
@@ -11,11 +12,16 @@ import { demoStation } from './data/demo-forcing';
 import { demoObservations } from './data/demo-observations';
 import { DEMO_CALIBRATION } from './data/demo-calibration';
 import { DEMO_CALIBRATION_SEASON } from './data/demo-calibrate';
+import { DEMO_REFERENCE_STATION, demoGlacierAreasKm2, demoStations } from './data/demo-stations';
+import { stationColumns } from '../server/services/stations/station-rows';
+import { waterSettingsSchema } from '../shared/schemas/water-settings';
 
 /** How the demo's shipped calibration is marked, so a re-run replaces it and leaves the users' own saves alone. */
 const CALIBRATION_NOTE = 'Demo calibration: lapse rate and precipitation factor against the Sarvel gauge, melt season 2023.';
 
 const SOURCE = 'Synthetic demo series (seed script, invented station)';
+/** Every series the seed writes has a source starting so, whichever station it belongs to. */
+const SEEDED_SOURCES = 'Synthetic demo series (seed script, invented %';
 
 /**
  * The demo catchment of the demo consultancy, with its bands and synthetic temperature,
@@ -43,40 +49,69 @@ export async function seed(knex: Knex): Promise<void> {
     };
     const existing = await trx('catchments').where({ organisation_id: organisationId, name: c.name }).first('id');
     const catchmentId: number = existing ? existing.id : (await trx('catchments').insert({ ...columns, created_by: user?.id ?? null }))[0];
-    if (existing) await trx('catchments').where('id', catchmentId).update(columns);
-    // A new catchment gets its baseline in the same transaction, as through the API.
-    else await insertBaseline(new TenantScope(trx, organisationId), catchmentId, user?.id ?? null);
+    const scope = new TenantScope(trx, organisationId);
+    if (existing) {
+      await trx('catchments').where('id', catchmentId).update(columns);
+      await syncReferenceStation(scope, catchmentId, c.stationName, c.stationElevationM);
+    } else {
+      // A new catchment gets its baseline and reference station in the same transaction, as through the API.
+      await insertBaseline(scope, catchmentId, user?.id ?? null);
+      await insertReferenceStation(scope, catchmentId, c.stationName, c.stationElevationM);
+    }
+    const referenceId: number = (await trx('stations').where({ catchment_id: catchmentId, is_reference: true }).first('id')).id;
+    await trx('stations').where('id', referenceId).update(stationColumns(DEMO_REFERENCE_STATION));
 
     // A re-run keeps the table in use when it is the demo table (runs point to it), else saves the demo table as a new version.
-    const scope = new TenantScope(trx, organisationId);
     const inUse = await new BandService().list(scope, catchmentId);
     if (JSON.stringify(inUse) !== JSON.stringify(DEMO_BANDS)) await insertBandTable(scope, catchmentId, DEMO_BANDS, { userId: user?.id ?? null });
 
-    const seeded = trx('datasets').where({ catchment_id: catchmentId, source: SOURCE }).select('id');
+    const seeded = trx('datasets').where('catchment_id', catchmentId).where('source', 'like', SEEDED_SOURCES).select('id');
     await trx('dataset_values').whereIn('dataset_id', seeded.clone()).delete();
     await trx('stake_readings').whereIn('dataset_id', seeded.clone()).delete();
     await trx('datasets').whereIn('id', seeded).delete();
 
-    const addDataset = async (variable: Variable, step: 'hourly' | 'daily', accuracy: string, fileName: string, range: { first: string; last: string; count: number }) => {
+    // The valley's other stations, found by name and reset with their records.
+    const others = demoStations();
+    const stationIds: number[] = [];
+    for (const s of others) {
+      const found = await trx('stations').where({ catchment_id: catchmentId, name: s.fields.name }).first('id');
+      if (found) await trx('stations').where('id', found.id).update(stationColumns(s.fields));
+      stationIds.push(found ? found.id : await scope.insert('stations', { catchment_id: catchmentId, ...stationColumns(s.fields), is_reference: false }));
+    }
+
+    const addDataset = async (variable: Variable, step: 'hourly' | 'daily', accuracy: string, fileName: string, range: { first: string; last: string; count: number }, station = { id: referenceId, source: SOURCE }) => {
       const spec = variableSpec(variable);
       const [datasetId] = await trx('datasets').insert({
-        organisation_id: organisationId, catchment_id: catchmentId, variable, kind: spec.kind, unit: spec.storedUnit, original_unit: spec.storedUnit,
-        time_step: step, time_zone: c.timeZone, source: SOURCE, accuracy, file_name: fileName,
+        organisation_id: organisationId, catchment_id: catchmentId, station_id: spec.kind === 'climate' ? station.id : null,
+        variable, kind: spec.kind, unit: spec.storedUnit, original_unit: spec.storedUnit,
+        time_step: step, time_zone: c.timeZone, source: station.source, accuracy, file_name: fileName,
         uploaded_by: user?.id ?? null, uploaded_by_name: user?.name ?? 'Demo seed',
         first_at: range.first, last_at: range.last, value_count: range.count,
       });
       return { datasetId: datasetId as number, organisationId };
     };
-    const add = async (variable: Variable, step: 'hourly' | 'daily', series: { times: string[]; values: number[] }, accuracy: string, fileName: string) => {
+    const add = async (variable: Variable, step: 'hourly' | 'daily', series: { times: string[]; values: number[] }, accuracy: string, fileName: string, station?: { id: number; source: string }) => {
       const range = { first: series.times[0], last: series.times[series.times.length - 1], count: series.values.length };
-      await insertDatasetValues(trx, await addDataset(variable, step, accuracy, fileName, range), series.times, series.values);
+      await insertDatasetValues(trx, await addDataset(variable, step, accuracy, fileName, range, station), series.times, series.values);
     };
     await add('temperature', 'hourly', station.hourlyTemperature, '±0.3 °C (invented)', 'kolvi-camp-temperature-hourly.csv');
     await add('precipitation', 'daily', station.dailyPrecipitation, '±10 %, undercatch of snow not corrected (invented)', 'kolvi-camp-precipitation-daily.csv');
     await add('discharge', 'daily', observations.dailyDischarge, '±15 % at high flows (invented)', 'sarvel-gauge-discharge-daily.csv');
+    // The other stations' series after the reference station's, so its series are listed first.
+    for (const [i, s] of others.entries()) {
+      const recordedAt = { id: stationIds[i], source: s.source };
+      await add('temperature', 'daily', s.dailyTemperature, s.accuracy.temperature, s.files.temperature, recordedAt);
+      await add('precipitation', 'daily', s.dailyPrecipitation, s.accuracy.precipitation, s.files.precipitation, recordedAt);
+    }
     const stakes = observations.stakes;
     const stakeRange = { first: stakes[0].from, last: stakes[stakes.length - 1].to, count: stakes.length };
     await insertStakeReadings(trx, await addDataset('pointBalance', 'daily', '±0.2 m w.e. (invented)', 'sarvel-stakes.csv', stakeRange), stakes);
+
+    // The water side starts as the model did before it (runs unchanged); only the glacier is described as the valley's separate glaciers.
+    const glacierKm2 = DEMO_BANDS.reduce((s, b) => s + b.areaKm2 * b.glacierFraction, 0);
+    const water = JSON.stringify(waterSettingsSchema.parse({ glacier: { method: 'volume-area', glacierAreasKm2: demoGlacierAreasKm2(glacierKm2) } }));
+    await trx('catchment_water_settings').where('catchment_id', catchmentId).delete();
+    await trx('catchment_water_settings').insert({ organisation_id: organisationId, catchment_id: catchmentId, settings: water, updated_by: user?.id ?? null });
 
     await trx('calibrated_parameters').where({ catchment_id: catchmentId, note: CALIBRATION_NOTE }).delete();
     await trx('calibrated_parameters').insert({

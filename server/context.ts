@@ -13,13 +13,15 @@ import type { MailInbox } from './services/mail/mail-catcher';
 import { createMemberServices, type MemberServices } from './services/members';
 import { JobQueues } from './queue/job-queues';
 import { createRunServices, type RunServices } from './services/runs';
+import { createStationServices, type StationServices } from './services/stations';
 import { createStudyServices, type StudyServices } from './services/studies';
+import { createWaterServices, type WaterServices } from './services/water';
 import type { CatchmentInputSource } from './services/runs/catchment-inputs';
 import { ThreadBudget } from './services/thread-budget';
 
 /** Everything the routes need, built once per app by `createContext` (tests and seeds build their own). */
 export interface AppContext
-  extends AuthServices, MailServices, BillingServices, MemberServices, CatchmentServices, GeodataServices, LabServices, RunServices, StudyServices, BriefingServices {
+  extends AuthServices, MailServices, BillingServices, MemberServices, CatchmentServices, GeodataServices, StationServices, WaterServices, LabServices, RunServices, StudyServices, BriefingServices {
   config: AppConfig;
   db: Knex;
   /** The structured log; requests, errors and background failures, never values (server/logger.ts). */
@@ -64,9 +66,10 @@ export function createContext(config: AppConfig, db: Knex, options: ContextOptio
   const catchmentServices = createCatchmentServices({ threads, uploadsPerOrganisation: config.uploads.perOrganisation });
   const geodataServices = createGeodataServices({ config, bands: catchmentServices.bands, threads });
   const queues = new JobQueues(config.queue, (error) => logger.warn({ err: safeError(error) }, 'job queue unreachable'));
-  const labServices = createLabServices({ db, bands: catchmentServices.bands, queues, workerThreads: config.workerThreads });
+  const waterServices = createWaterServices({ bands: catchmentServices.bands });
+  const labServices = createLabServices({ db, bands: catchmentServices.bands, queues, workerThreads: config.workerThreads, water: waterServices });
   const runServices = createRunServices({
-    db, bands: catchmentServices.bands, calibrations: labServices.lab.calibrations, queues, catchmentInputs: options.catchmentInputs,
+    db, bands: catchmentServices.bands, calibrations: labServices.lab.calibrations, queues, water: waterServices, catchmentInputs: options.catchmentInputs,
   });
   const studyServices = createStudyServices(runServices);
   const briefingServices = createBriefingServices({
@@ -85,6 +88,8 @@ export function createContext(config: AppConfig, db: Knex, options: ContextOptio
     ...memberServices,
     ...catchmentServices,
     ...geodataServices,
+    ...createStationServices(catchmentServices),
+    ...waterServices,
     ...labServices,
     ...runServices,
     ...studyServices,

@@ -47,14 +47,14 @@ function sky(run: PreparedRun, sw: ShortwaveForcing, b: number, h: number, insta
   return { global, longIn: (emissivity * g.skyView[b] + g.groundView[b]) * STEFAN_BOLTZMANN * (tk * tk) * (tk * tk) };
 }
 
-/** The weather of band b in hour h (hour k of its day), written where the engine's surface pass reads it. */
-function weather(c: LoopContext, b: number, h: number, k: number, instantMs: number): void {
+/** The weather of band b in hour h (hour k of its day, in `month`), written where the engine's surface pass reads it; no glacier damping. */
+function weather(c: LoopContext, b: number, h: number, k: number, month: number, instantMs: number): void {
   const run = c.run;
   const g = run.geometry;
   const p = run.params;
   const f = run.forcing;
-  const airC = f.temperatureC[h] + g.temperatureOffsetC[b];
-  const precipitation = f.precipitationMm[h] * g.precipitationFactor[b];
+  const airC = f.temperatureC[h] + g.temperatureOffsetK[b * 12 + month];
+  const precipitation = f.precipitationMm[h] * g.precipitationMultiplier[b * 12 + month];
   const width = p.rainSnowTransitionK;
   const top = p.rainSnowThresholdC + width / 2;
   const snowShare = width > 0 ? Math.min(1, Math.max(0, (top - airC) * (1 / width))) : airC < top ? 1 : 0;
@@ -94,8 +94,9 @@ export function simulateNaive(input: unknown): DayTotals[][] {
       const bands: DayTotals[] = [];
       for (let b = 0; b < run.geometry.count; b++) {
         context.acc = new Float64Array(context.acc.length);
-        for (let k = 0; k < 24; k++) weather(context, b, d * 24 + k, k, run.timeline.dayStartUtcMs[d] + (k + 0.5) * 3_600_000);
-        bandSurfaces(context, b, d, run.timeline.months[d]);
+        const month = run.timeline.months[d];
+        for (let k = 0; k < 24; k++) weather(context, b, d * 24 + k, k, month, run.timeline.dayStartUtcMs[d] + (k + 0.5) * 3_600_000);
+        bandSurfaces(context, b, d, month);
         const a = context.acc;
         const s = run.state;
         bands.push({

@@ -25,7 +25,7 @@ import { createDb } from '../../server/db';
 import { redisOptions } from '../../server/queue/connection';
 import { memberJobId } from '../../server/queue/jobs';
 import { spawnWorker, type WorkerProcess } from '../../server/queue/worker-process';
-import type { RunInputs } from '../../server/services/runs/run-inputs';
+import { seasonRunInputs, type RunInputs } from '../../server/services/runs/run-inputs';
 import { storeQueuedRun } from '../../tests/support/queued-runs';
 
 const PREFIX = `bench-queue-${process.pid}`;
@@ -50,7 +50,7 @@ function inputsOf(changes: object, bandCount: number, period: { from: string; to
     changes: scenarioChangesSchema.parse({ ...changes, period }), baselineChanges: scenarioChangesSchema.parse({ period }),
     attribution: false, ensembleSize: 0, ensembleSeed: 1,
   }, catchment.bands.map((b) => (b.lowerM + b.upperM) / 2));
-  return { stored: { catchment, forcing }, start, plans: plan.members };
+  return seasonRunInputs({ catchment, forcing }, start, plan.members);
 }
 
 async function startWorkers(count: number): Promise<WorkerProcess[]> {

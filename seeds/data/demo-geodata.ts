@@ -2,6 +2,7 @@ import { encodeGeoTiff } from '../../server/services/geodata/geotiff-writer';
 import { generateDemoValley } from '../../shared/geodata/demo/demo-valley';
 import type { GeodataLayer } from '../../shared/schemas/geodata';
 import { DEMO_BANDS, DEMO_CATCHMENT } from './demo-catchment';
+import { demoThinning } from './demo-thinning';
 
 /** One geodata file of the demo catchment as a user would upload it, with its form fields. */
 export interface DemoGeodataFile {
@@ -17,11 +18,12 @@ let cached: DemoGeodataFile[] | null = null;
  * The invented Upper Sarvel valley's geodata files, generated the same way every time
  * (shared/geodata/demo/demo-valley.ts): a 30 m DEM (float32 GeoTIFF on UTM 44N), catchment, glacier
  * and debris outlines (GeoJSON), a debris-thickness raster, six classified snow-cover maps of 2024
- * and a 2000–2020 glacier thinning map. Nothing in them is measured.
+ * and a 2000–2020 glacier thinning map consistent with the demo's hidden "true" run
+ * (demo-thinning.ts). Nothing in them is measured.
  */
 export function demoGeodataFiles(): DemoGeodataFile[] {
   if (cached) return cached;
-  const valley = generateDemoValley(DEMO_BANDS, { latitudeDeg: DEMO_CATCHMENT.latitudeDeg, longitudeDeg: DEMO_CATCHMENT.longitudeDeg });
+  const valley = generateDemoValley(DEMO_BANDS, { latitudeDeg: DEMO_CATCHMENT.latitudeDeg, longitudeDeg: DEMO_CATCHMENT.longitudeDeg, thinning: demoThinning() });
   const json = (value: unknown) => new TextEncoder().encode(JSON.stringify(value));
   const codes = valley.snowClassCodes;
   const list = (values: number[]) => values.join(', ');

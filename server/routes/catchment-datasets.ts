@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { datasetStationSchema } from '../../shared/schemas/stations';
 import type { AppContext } from '../context';
 import { sendDownload } from './download';
 import { idOf, memberArea, type ApiArea } from './route-table';
@@ -28,6 +29,10 @@ export function catchmentDatasetRoutes(ctx: AppContext): ApiArea {
 
     route.get('/:datasetId/csv', 'readCatchments', { params: datasetParams }, async ({ auth: { scope }, params }, res) => {
       sendDownload(res, await datasets.csvFile(scope, params.catchmentId, params.datasetId));
+    });
+
+    route.put('/:datasetId/station', 'editCatchments', { params: datasetParams, body: datasetStationSchema }, async ({ auth: { scope }, params, body }, res) => {
+      res.json({ dataset: await datasets.assignStation(scope, params.catchmentId, params.datasetId, body.stationId) });
     });
 
     route.delete('/:datasetId', 'editCatchments', { params: datasetParams }, async ({ auth: { scope }, params }, res) => {

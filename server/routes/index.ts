@@ -12,6 +12,8 @@ import { catchmentDatasetRoutes } from './catchment-datasets';
 import { catchmentGeodataRoutes } from './catchment-geodata';
 import { catchmentUploadRoutes } from './catchment-uploads';
 import { catchmentRoutes } from './catchments';
+import { catchmentStationRoutes } from './catchment-stations';
+import { catchmentWaterRoutes } from './catchment-water';
 import { devInboxRoutes } from './dev-inbox';
 import { healthRoutes } from './health';
 import { invitationRoutes } from './invitations';
@@ -40,6 +42,8 @@ export function apiAreas(ctx: AppContext): ApiArea[] {
     catchmentDatasetRoutes(ctx),
     catchmentUploadRoutes(ctx),
     catchmentGeodataRoutes(ctx),
+    catchmentStationRoutes(ctx),
+    catchmentWaterRoutes(ctx),
     scenarioRoutes(ctx),
     runRoutes(ctx),
     labRoutes(ctx),

@@ -2,8 +2,10 @@ import { z } from 'zod';
 import {
   bandQuerySchema, calibrateRequestSchema, saveCalibrationSchema, skillRequestSchema, stakeSkillRequestSchema, sweepRequestSchema,
 } from '../../shared/schemas/lab';
+import { saveClosureSchema, waterBalanceRequestSchema } from '../../shared/schemas/water-balance';
 import { remoteSensingSkillRequestSchema } from '../../shared/schemas/lab-remote-sensing';
 import type { AppContext } from '../context';
+import { sendDownload } from './download';
 import { requireActiveSubscription } from '../middleware/require-active-subscription';
 import { idOf, memberArea, type ApiArea } from './route-table';
 
@@ -12,7 +14,7 @@ const jobParams = z.object({ jobId: idOf('Lab job') });
 
 /** /api/lab: surface response, reference models, skill, calibration and sweeps per catchment. */
 export function labRoutes(ctx: AppContext): ApiArea {
-  const { lab } = ctx;
+  const { lab, waterBalance } = ctx;
   // Sweeps and automatic calibrations are paid work, like runs; reading and scoring stay open.
   const paid = [requireActiveSubscription(ctx)];
   return memberArea('/lab', (route) => {
@@ -54,6 +56,23 @@ export function labRoutes(ctx: AppContext): ApiArea {
 
     route.post('/catchments/:catchmentId/calibrations', 'useLab', { params, before: paid, body: calibrateRequestSchema }, async ({ auth: { scope, user }, params, body }, res) => {
       res.status(202).json(await lab.startCalibration(scope, user, params.catchmentId, body));
+    });
+
+    route.post('/catchments/:catchmentId/water-balance', 'useLab', { params, before: paid, body: waterBalanceRequestSchema }, async ({ auth: { scope, user }, params, body }, res) => {
+      res.status(202).json(await waterBalance.start(scope, user, params.catchmentId, body));
+    });
+
+    route.get('/catchments/:catchmentId/water-balance', 'useLab', { params }, async ({ auth: { scope }, params }, res) => {
+      res.json(await waterBalance.history(scope, params.catchmentId));
+    });
+
+    // Kept closures change what scenarios with the water-balance precipitation run on, as saved calibrations do.
+    route.put('/catchments/:catchmentId/water-balance', 'useLab', { params, body: saveClosureSchema }, async ({ auth: { scope, user }, params, body }, res) => {
+      res.status(201).json(await waterBalance.save(scope, user, params.catchmentId, body.jobId, body.note));
+    });
+
+    route.get('/catchments/:catchmentId/water-balance.csv', 'useLab', { params }, async ({ auth: { scope }, params }, res) => {
+      sendDownload(res, await waterBalance.csvFile(scope, params.catchmentId));
     });
 
     route.get('/catchments/:catchmentId/jobs', 'useLab', { params }, async ({ auth: { scope }, params }, res) => {

@@ -37,6 +37,14 @@ export function runRoutes(ctx: AppContext): ApiArea {
       res.json({ results: await results.results(scope, params.catchmentId, params.id) });
     });
 
+    route.get('/:id/years', 'runScenarios', { params: runParams }, async ({ auth: { scope }, params }, res) => {
+      res.json({ results: await results.transient(scope, params.catchmentId, params.id) });
+    });
+
+    route.get('/:id/export/years.csv', 'runScenarios', { params: runParams }, async ({ auth: { scope }, params }, res) => {
+      sendDownload(res, await results.yearsCsv(scope, params.catchmentId, params.id));
+    });
+
     route.get('/:id/export/bands.csv', 'runScenarios', { params: runParams }, async ({ auth: { scope }, params }, res) => {
       sendDownload(res, await results.bandMonthCsv(scope, params.catchmentId, params.id));
     });

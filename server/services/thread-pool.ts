@@ -2,6 +2,7 @@ import type { MessagePort } from 'node:worker_threads';
 import { MessageChannel } from 'node:worker_threads';
 import { Piscina } from 'piscina';
 import type { TaskPriority, ThreadBudget } from './thread-budget';
+import { bundledWorker } from './worker-bundle';
 
 /** What a pooled worker receives: its task and a port for progress fractions (0 … 1). */
 export interface PooledTask<T> {
@@ -34,6 +35,8 @@ export class ThreadPool<TTask, TResult> {
     /** The budget this pool draws from, shared with every other pool of the context. */
     readonly budget: ThreadBudget,
     private readonly priority: TaskPriority,
+    /** Run the worker as one bundled file (engine work: see worker-bundle.ts); only for workers that read no files beside their sources. */
+    private readonly bundle = false,
   ) {}
 
   /** Threads this pool may use at once: the whole budget, shared with the other pools. */
@@ -50,7 +53,7 @@ export class ThreadPool<TTask, TResult> {
   private get pool(): Piscina {
     const execArgv = process.execArgv.some((a) => TSX_LOADER.test(a)) ? process.execArgv : [...process.execArgv, '--import', 'tsx'];
     this.piscina ??= new Piscina({
-      filename: this.worker.href, minThreads: this.warmed ? 1 : 0, maxThreads: this.budget.threads, idleTimeout: 60_000, execArgv,
+      filename: (this.bundle ? bundledWorker(this.worker) : this.worker).href, minThreads: this.warmed ? 1 : 0, maxThreads: this.budget.threads, idleTimeout: 60_000, execArgv,
     });
     return this.piscina;
   }

@@ -8,6 +8,7 @@ import type { DatedValue } from '../../shared/lab/paired-series';
 import { compareStakes, type StakeObservation } from '../../shared/lab/stake-balance';
 import { calibrateToStakes, readingsWithin } from '../../shared/lab/stake-calibration';
 import type { BandSite, LabSite, Period } from '../../shared/lab/site';
+import { closeWaterBalance, type ClosureTask } from '../../shared/lab/water-balance-closure';
 import { runRemoteSensing, type RemoteSensingTask } from './lab-remote-sensing';
 
 /** The lab's computations, each run in a worker thread so the API keeps answering. */
@@ -22,6 +23,7 @@ export type LabTask =
     kind: 'calibrate'; site: LabSite; observed: DatedValue[]; keys: CalibrationKey[]; start: CalibrationSet;
     period: Period; validationPeriod?: Period; maxEvaluations: number; seed: number;
   }
+  | { kind: 'waterBalance'; site: LabSite; task: ClosureTask; maxEvaluations: number }
   | {
     kind: 'calibrateStakes'; site: LabSite; observed: StakeObservation[]; keys: CalibrationKey[]; start: CalibrationSet;
     period: Period; validationPeriod?: Period; maxEvaluations: number; seed: number;
@@ -66,6 +68,9 @@ function run(task: LabTask, report: (fraction: number) => void): unknown {
         validation: { period: task.validationPeriod, before: outcome.validationBefore, after: outcome.validationAfter },
       };
     }
+    case 'waterBalance':
+      // An inversion takes a few dozen engine runs; progress by runs so far, never quite done until it is.
+      return closeWaterBalance(task.site, task.task, (count) => report(Math.min(0.95, count / task.maxEvaluations)));
     case 'snowCoverSkill':
     case 'geodeticSkill':
     case 'calibrateSnowCover':

@@ -22,9 +22,8 @@ export function scenarioForBand(changes: ScenarioChanges, meanElevationM: number
 }
 
 /**
- * Groups bands that share a scenario. The engine applies one scenario to all bands it is given,
- * and bands do not interact, so each group is simulated on its own and the results merged.
- * Returns null when every band has the same scenario.
+ * Groups bands that share a scenario; the engine then gives each band its group's impurity loads
+ * in one simulation (simulate-summary.ts). Returns null when every band has the same scenario.
  */
 export function groupBands(perBand: readonly Scenario[]): BandPart[] | null {
   const groups = new Map<string, BandPart>();

@@ -7,7 +7,7 @@ function summary(daily: number[]): SimulationSummary {
   const zeros = daily.map(() => 0);
   return {
     startDate: '2024-06-29', dayCount: daily.length, bands: [{ elevationM: 3000, areaM2: 2e6 }], months: [],
-    dailyM3: { snow: daily, ice: zeros, debrisIce: zeros, rain: zeros }, start: null, shortwaveSource: null,
+    dailyM3: { snow: daily, ice: zeros, debrisIce: zeros, rain: zeros }, routedDailyM3: null, start: null, shortwaveSource: null,
   };
 }
 

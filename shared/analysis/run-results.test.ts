@@ -12,7 +12,7 @@ const valley = inventedValley({ bandCount: 3, years: 1, timeStep: 'daily' });
 const elevations = valley.catchment.bands.map((b) => (b.lowerM + b.upperM) / 2);
 const period = { from: '2022-04-01', to: '2022-09-30' };
 
-const UNCALIBRATED: ResultContext = { calibration: calibrationStatus({}, 1, null), skill: null, iceDarkened: false };
+const UNCALIBRATED: ResultContext = { calibration: calibrationStatus({}, 1, null), skill: null, iceDarkened: false, waterSide: [] };
 
 function resultsOf(changes: object, baseline: object | null, attribution: boolean, ensembleSize = 0, context = UNCALIBRATED) {
   const plan = planRun({

@@ -10,7 +10,7 @@ import { termLabel } from './drivers';
 import { separateFactors, bitCount } from './factor-separation';
 import { band5to95, seriesBand5to95 } from './percentiles';
 import type { MemberKind } from './run-plan';
-import { dailyRunoffM3, type SimulationSummary } from './simulation-summary';
+import { dailyOutletM3, dailyRunoffM3, type SimulationSummary } from './simulation-summary';
 
 export interface ResultMember {
   kind: MemberKind;
@@ -81,6 +81,21 @@ function attributionOf(members: ResultMember[], drivers: readonly Driver[], base
   return { terms, fullChangeM3: values[full] - values[0] };
 }
 
+/** Snow gained or lost per band by redistribution over the period; null when nothing moved in either simulation. */
+function redistributionOf(baseline: SimulationSummary, variant: SimulationSummary) {
+  const perBand = (s: SimulationSummary) => {
+    const out = s.bands.map(() => ({ windDrift: 0, avalanche: 0 }));
+    for (const r of s.months) {
+      out[r.bandIndex].windDrift += r.windDriftMm;
+      out[r.bandIndex].avalanche += r.avalancheMm;
+    }
+    return out;
+  };
+  const result = { baseline: perBand(baseline), variant: perBand(variant) };
+  const moved = [...result.baseline, ...result.variant].some((b) => b.windDrift !== 0 || b.avalanche !== 0);
+  return moved ? result : null;
+}
+
 /** Catchment-mean water balance of one simulation over the period, mm w.e. */
 function waterBalanceOf(summary: SimulationSummary, areaM2: number): WaterBalance {
   const mean = (pick: (row: SimulationSummary['months'][number]) => number) =>
@@ -132,6 +147,8 @@ export interface ResultContext {
   calibration: CalibrationStatus;
   skill: RunSetUp['skill'];
   iceDarkened: boolean;
+  /** The run's water side in plain lines (waterSideLines). */
+  waterSide: RunSetUp['waterSide'];
 }
 
 function setUpOf(variant: SimulationSummary, context: ResultContext): RunSetUp {
@@ -140,6 +157,7 @@ function setUpOf(variant: SimulationSummary, context: ResultContext): RunSetUp {
     shortwaveSource: variant.shortwaveSource ? SHORTWAVE_SOURCE_LABELS[variant.shortwaveSource] : null,
     calibration: context.calibration,
     skill: context.skill,
+    waterSide: context.waterSide,
   };
 }
 
@@ -173,6 +191,8 @@ export function runResults(run: Run, catchmentName: string, members: ResultMembe
     setUp: setUpOf(variant, context),
     waterBalance: { baseline: waterBalanceOf(baseline, areaM2), variant: waterBalanceOf(variant, areaM2) },
     dischargeM3s: { baseline: toDischarge(base), variant: toDischarge(dailyRunoffM3(variant)) },
+    outletDischargeM3s: variant.routedDailyM3 && baseline.routedDailyM3 ? { baseline: toDischarge(dailyOutletM3(baseline)), variant: toDischarge(dailyOutletM3(variant)) } : null,
+    bandRedistributionMm: redistributionOf(baseline, variant),
     cumulativeAddedM3: dailyRunoffM3(variant).map((v, d) => (acc += v - base[d])),
     bandAddedMm: bandAddedMm(baseline, variant),
     months,

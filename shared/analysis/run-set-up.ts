@@ -74,7 +74,8 @@ export function skillText(skill: RunSetUp['skill']): string {
   if (!skill) return 'No observed discharge for the period.';
   const f = (v: number) => formatNumber(v, 2, { fixed: true });
   return `KGE ${f(skill.kge)} (r ${f(skill.r)}, variability ratio ${f(skill.alpha)}, bias ratio ${f(skill.beta)}), NSE ${f(skill.nse)}, `
-    + `bias ${formatNumber(skill.biasPercent, 1)} % over ${skill.days} days (${skill.from} to ${skill.to}) against ${skill.source}.`;
+    + `bias ${formatNumber(skill.biasPercent, 1)} % over ${skill.days} days (${skill.from} to ${skill.to}) against ${skill.source}`
+    + `${skill.routed ? ', with the discharge routed to the outlet' : ''}.`;
 }
 
 /** The set-up of a run as label–value lines, in the order exports and briefings print them. */
@@ -84,5 +85,6 @@ export function setUpLines(setUp: RunSetUp): [string, string][] {
     ['Start', setUp.start ? setUp.start.note : 'Not recorded (run made before engine 2.0).'],
     ['Incoming shortwave', setUp.shortwaveSource ?? 'Not recorded.'],
     ['Baseline against observed discharge', skillText(setUp.skill)],
+    ...setUp.waterSide.map((l): [string, string] => [l.label, l.value]),
   ];
 }

@@ -1,36 +1,42 @@
 import { simulate } from '../melt/simulate';
-import type { SimulationInput } from '../melt/schema';
-import { SOURCES } from '../melt/result';
+import type { BandImpurities, SimulationInput } from '../melt/schema';
+import { IMPURITY_FIELDS } from '../schemas/scenarios';
 import type { BandPart } from './band-parts';
 import { summariseSimulation, type SimulationSummary } from './simulation-summary';
+import { simulateTransient, type TransientMemberPlan, type TransientSummary } from './transient-member';
 
-/** An engine input, optionally split into band groups that each have their own scenario. */
-export type MemberInput = SimulationInput & { parts?: BandPart[] | null };
+/** An engine input, optionally with band groups that each have their own impurity loads, and the years of a multi-decade run. */
+export type MemberInput = SimulationInput & { parts?: BandPart[] | null; transient?: TransientMemberPlan | null };
 
-/** Puts the summaries of band groups back together in the catchment's band order. */
-export function mergeSummaries(parts: readonly BandPart[], summaries: readonly SimulationSummary[], bandCount: number): SimulationSummary {
-  const first = summaries[0];
-  const bands = new Array<SimulationSummary['bands'][number]>(bandCount);
-  const months: SimulationSummary['months'] = [];
-  const dailyM3 = Object.fromEntries(SOURCES.map((s) => [s, new Array<number>(first.dayCount).fill(0)])) as SimulationSummary['dailyM3'];
-  parts.forEach((part, k) => {
-    const summary = summaries[k];
-    part.bandIndices.forEach((b, i) => (bands[b] = summary.bands[i]));
-    for (const row of summary.months) months.push({ ...row, bandIndex: part.bandIndices[row.bandIndex] });
-    for (const s of SOURCES) summary.dailyM3[s].forEach((v, d) => (dailyM3[s][d] += v));
-  });
-  months.sort((a, b) => a.bandIndex - b.bandIndex || (a.month < b.month ? -1 : a.month > b.month ? 1 : 0));
-  return { startDate: first.startDate, dayCount: first.dayCount, bands, months, dailyM3, start: first.start, shortwaveSource: first.shortwaveSource };
+/** What one run member gives back: a season's summary or a multi-decade run's years. */
+export type MemberSummary = SimulationSummary | TransientSummary;
+
+export const isTransientSummary = (s: MemberSummary): s is TransientSummary => 'kind' in s && s.kind === 'transient';
+
+/**
+ * The engine's per-band loads from band groups: each band takes its group's impurity fields.
+ * All bands run in one simulation, so snow moved between bands keeps every band's own loads.
+ */
+export function impuritiesOfParts(parts: readonly BandPart[], bandCount: number): (BandImpurities | null)[] {
+  const out = new Array<BandImpurities | null>(bandCount).fill(null);
+  for (const part of parts) {
+    const loads = Object.fromEntries(IMPURITY_FIELDS.map((f) => [f, part.scenario[f]])) as BandImpurities;
+    for (const b of part.bandIndices) out[b] = loads;
+  }
+  return out;
 }
 
-/** Simulates one run member (all its band groups) and returns what a run stores. */
+function engineInputOf(input: MemberInput): SimulationInput {
+  const { parts, transient: _transient, ...engineInput } = input;
+  return parts ? { ...engineInput, impuritiesByBand: impuritiesOfParts(parts, engineInput.catchment.bands.length) } : engineInput;
+}
+
+/** Simulates one season member and returns what a run stores. */
 export function simulateSummary(input: MemberInput, onProgress?: (fraction: number) => void): SimulationSummary {
-  const { parts, ...engineInput } = input;
-  if (!parts) return summariseSimulation(simulate(engineInput, { onProgress: (p) => onProgress?.(p.fraction) }));
-  const bands = engineInput.catchment.bands;
-  const summaries = parts.map((part, k) => summariseSimulation(simulate(
-    { ...engineInput, scenario: part.scenario, catchment: { ...engineInput.catchment, bands: part.bandIndices.map((b) => bands[b]) } },
-    { onProgress: (p) => onProgress?.((k + p.fraction) / parts.length) },
-  )));
-  return mergeSummaries(parts, summaries, bands.length);
+  return summariseSimulation(simulate(engineInputOf(input), { onProgress: (p) => onProgress?.(p.fraction) }));
+}
+
+/** Simulates one run member, a season or a multi-decade run. */
+export function simulateMember(input: MemberInput, onProgress?: (fraction: number) => void): MemberSummary {
+  return input.transient ? simulateTransient({ ...engineInputOf(input), transient: input.transient }, onProgress) : simulateSummary(input, onProgress);
 }

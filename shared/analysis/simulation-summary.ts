@@ -9,6 +9,7 @@ export type BandMonthRow = Pick<
   BandMonthSummary,
   'bandIndex' | 'month' | 'days' | 'snowMeltMm' | 'iceMeltMm' | 'debrisIceMeltMm' | 'rainMm' | 'snowfallMm' | 'meanAlbedo'
   | 'rainfallMm' | 'surfaceMeltMm' | 'refrozenMm' | 'sublimationMm' | 'evaporationMm' | 'meanSnowCoverFraction'
+  | 'windDriftMm' | 'avalancheMm'
 > & {
   /** Daily means, W m⁻² (see SimulationResult.bandDay). */
   absorbedShortwaveWm2: number;
@@ -25,12 +26,16 @@ export interface SimulationSummary {
   bands: { elevationM: number; areaM2: number }[];
   months: BandMonthRow[];
   dailyM3: Record<Source, number[]>;
+  /** The same sources at the outlet, routed through the catchment's stores; null without routing (the outlet is then dailyM3). */
+  routedDailyM3: Record<Source, number[]> | null;
   /** How the engine started (spin-up or given state) and where its shortwave came from; null for runs stored before engine 2.0. */
   start: StartReport | null;
   shortwaveSource: ShortwaveSource | null;
 }
 
 const ENERGY_FIELDS = ['netShortwaveWm2', 'netLongwaveWm2', 'sensibleHeatWm2', 'latentHeatWm2'] as const;
+
+const bySource = (series: Record<Source, Float64Array>) => Object.fromEntries(SOURCES.map((s) => [s, Array.from(series[s])])) as Record<Source, number[]>;
 
 /** Reduces an engine result to what a run stores. */
 export function summariseSimulation(result: SimulationResult): SimulationSummary {
@@ -54,6 +59,7 @@ export function summariseSimulation(result: SimulationResult): SimulationSummary
       rainMm: row.rainMm, snowfallMm: row.snowfallMm, meanAlbedo: row.meanAlbedo,
       rainfallMm: row.rainfallMm, surfaceMeltMm: row.surfaceMeltMm, refrozenMm: row.refrozenMm,
       sublimationMm: row.sublimationMm, evaporationMm: row.evaporationMm, meanSnowCoverFraction: row.meanSnowCoverFraction,
+      windDriftMm: row.windDriftMm, avalancheMm: row.avalancheMm,
       absorbedShortwaveWm2: row.meanAbsorbedShortwaveWm2,
       netShortwaveWm2: sum.netShortwaveWm2 / row.days,
       netLongwaveWm2: sum.netLongwaveWm2 / row.days,
@@ -66,15 +72,24 @@ export function summariseSimulation(result: SimulationResult): SimulationSummary
     dayCount: nd,
     bands: Array.from(result.bands.areaM2, (areaM2, b) => ({ elevationM: result.bands.elevationM[b], areaM2 })),
     months,
-    dailyM3: Object.fromEntries(SOURCES.map((s) => [s, Array.from(result.catchmentDaily.volumeM3[s])])) as Record<Source, number[]>,
+    dailyM3: bySource(result.catchmentDaily.volumeM3),
+    routedDailyM3: result.catchmentDaily.routed ? bySource(result.catchmentDaily.routed.volumeM3) : null,
     start: result.start,
     shortwaveSource: result.shortwaveSource,
   };
 }
 
-/** Daily total runoff volume (m³): all melt plus rain. */
+/** Daily total runoff volume (m³) as it leaves the bands: all melt plus rain, unrouted. */
 export function dailyRunoffM3(summary: SimulationSummary): number[] {
-  const { snow, ice, debrisIce, rain } = summary.dailyM3;
+  return totalOf(summary.dailyM3);
+}
+
+/** Daily discharge volume at the outlet (m³): routed where the run routed its runoff, else the unrouted runoff. */
+export function dailyOutletM3(summary: SimulationSummary): number[] {
+  return totalOf(summary.routedDailyM3 ?? summary.dailyM3);
+}
+
+function totalOf({ snow, ice, debrisIce, rain }: Record<Source, number[]>): number[] {
   return snow.map((v, d) => v + ice[d] + debrisIce[d] + rain[d]);
 }
 

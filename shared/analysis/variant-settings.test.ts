@@ -23,7 +23,7 @@ describe('a variant inherits what it does not set from its baseline', () => {
 
   it('is its own settings for the baseline (no baseline to inherit from)', () => {
     expect(simulationSettings({ period: null, parameters: { rainSnowThresholdC: 1 } }, null))
-      .toEqual({ period: null, parameters: { rainSnowThresholdC: 1 }, physics: { stabilityCorrection: false } });
+      .toEqual({ period: null, parameters: { rainSnowThresholdC: 1 }, physics: { stabilityCorrection: false }, waterBalancePrecipitation: false });
   });
 
   it('takes the baseline\'s stability correction unless it sets its own', () => {
@@ -31,5 +31,11 @@ describe('a variant inherits what it does not set from its baseline', () => {
     expect(simulationSettings({ period: null, parameters: {}, stabilityCorrection: null }, baseline).physics).toEqual({ stabilityCorrection: true });
     expect(simulationSettings({ period: null, parameters: {}, stabilityCorrection: false }, baseline).physics).toEqual({ stabilityCorrection: false });
     expect(simulationSettings({ period: null, parameters: {} }, null).physics).toEqual({ stabilityCorrection: false });
+  });
+
+  it('takes the water-balance precipitation from the baseline unless it sets its own source', () => {
+    expect(simulationSettings({ precipitationSource: null }, { precipitationSource: 'water-balance' }).waterBalancePrecipitation).toBe(true);
+    expect(simulationSettings({ precipitationSource: 'station' }, { precipitationSource: 'water-balance' }).waterBalancePrecipitation).toBe(false);
+    expect(simulationSettings({}, null).waterBalancePrecipitation).toBe(false);
   });
 });

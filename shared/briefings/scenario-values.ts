@@ -23,6 +23,7 @@ export function scenarioValues(c: ScenarioChanges): { label: string; value: stri
     ['Debris extent change', c.debrisExtentChange, 0, '(fraction of clean glacier area)'],
   ];
   const out = rows.filter(([, v, zero]) => !isZero(v, zero)).map(([label, v, , unit, signed]) => ({ label, value: show(v, unit, signed) }));
+  if (c.precipitationSource !== null) out.push({ label: 'Precipitation from', value: c.precipitationSource === 'water-balance' ? 'the water-balance precipitation (closed against measured runoff)' : 'the station record' });
   if (c.stabilityCorrection !== null) out.push({ label: 'Stability correction of turbulent heat over snow and ice', value: c.stabilityCorrection ? 'on' : 'off' });
   if (c.warmingLevel) out.push({ label: 'Warming level preset', value: `${c.warmingLevel} °C global` });
   if (c.period) out.push({ label: 'Period', value: `${c.period.from} to ${c.period.to}` });

@@ -63,7 +63,8 @@ export function bandClimate(input: BandClimateInput): BandClimate {
     const z = bandMidM(bands[b]);
     for (let m = 0; m < MONTHS; m++) {
       const i = b * MONTHS + m;
-      const offset = (lapseRatesKPerKm[m] * (z - zRef)) / 1000;
+      // Written as the engine writes its own lapse-rate offset (Γ · Δz in km), so equal gradients give equal numbers.
+      const offset = lapseRatesKPerKm[m] * ((z - zRef) / 1000);
       out.temperatureOffsetK[i] = offset;
       out.precipitationMultiplier[i] = precipitationMultiplier(profiles[m], z, zRef);
       out.glacierTemperatureOffsetK[i] = offset;

@@ -16,6 +16,8 @@ export interface BoundedProblem {
   upper: readonly number[];
   start: readonly number[];
   maxEvaluations?: number;
+  /** Forward-difference step as a share of each parameter's range; default 10⁻⁴. Larger for models that are smooth only at a coarser scale. */
+  differenceStep?: number;
 }
 
 export interface BoundedSolution {
@@ -39,7 +41,7 @@ const halfSquares = (r: readonly number[]) => 0.5 * r.reduce((s, v) => s + v * v
  * @example solveBounded({ residuals: ([x]) => [x - 2], lower: [0], upper: [5], start: [1] }).x // ≈ [2]
  */
 export function solveBounded(problem: BoundedProblem): BoundedSolution {
-  const { lower, upper, start, maxEvaluations = 80 } = problem;
+  const { lower, upper, start, maxEvaluations = 80, differenceStep = DIFFERENCE_STEP } = problem;
   const n = start.length;
   const span = lower.map((lo, i) => upper[i] - lo);
   if (span.some((s) => !(s > 0))) throw new RangeError('solveBounded: every upper bound must exceed its lower bound');
@@ -60,7 +62,7 @@ export function solveBounded(problem: BoundedProblem): BoundedSolution {
   while (evaluations + n + 1 <= maxEvaluations && cost > 1e-24) {
     const jacobian = r.map(() => new Array<number>(n).fill(0));
     for (let j = 0; j < n; j++) {
-      const h = u[j] + DIFFERENCE_STEP <= 1 ? DIFFERENCE_STEP : -DIFFERENCE_STEP;
+      const h = u[j] + differenceStep <= 1 ? differenceStep : -differenceStep;
       const shifted = [...u];
       shifted[j] += h;
       const rj = evaluate(shifted);
@@ -88,7 +90,9 @@ export function solveBounded(problem: BoundedProblem): BoundedSolution {
         r = rTrial;
         cost = costTrial;
         lambda = Math.max(lambda / 3, 1e-9);
-        improved = gain > 1e-12 * Math.max(cost, 1e-12) && moved > 1e-9;
+        // Each evaluation is an engine run: stop once a step gains less than a millionth of the cost
+        // or moves less than a millionth of the box, far inside what the observations can resolve.
+        improved = gain > 1e-6 * Math.max(cost, 1e-12) && moved > 1e-6;
         stalled = !improved;
         break;
       }

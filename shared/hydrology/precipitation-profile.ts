@@ -41,7 +41,7 @@ function peakedShape(zp: number, gb: number, da: number, zRef: number, z: number
  */
 export function precipitationMultiplier(profile: PrecipitationProfile, z: number, referenceM: number): number {
   if (profile.kind === 'linear') {
-    const m = 1 + (profile.gradientPerKm * (z - referenceM)) / 1000;
+    const m = 1 + profile.gradientPerKm * ((z - referenceM) / 1000);
     return m > 0 ? m : 0;
   }
   const { peakElevationM: zp, gradientBelowPerKm: gb, decreaseAbovePerKm: da } = profile;

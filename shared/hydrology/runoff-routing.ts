@@ -1,5 +1,5 @@
 import type { ParameterSpec } from '../melt/parameters';
-import { SOURCES, type Source } from '../melt/index';
+import { SOURCES, type Source } from '../melt/result';
 import { HydrologyInputError, type HydrologyIssue } from './errors';
 import { checkParameters, defaultsOf, type ValuesOf } from './parameter-specs';
 import { reservoirCoefficients } from './linear-reservoir';

@@ -1,4 +1,4 @@
-import { SOURCES, type Source } from '../melt/index';
+import { SOURCES, type Source } from '../melt/result';
 import { refuse } from './errors';
 import { updateGlacier, type GlacierUpdateOptions } from './glacier-update';
 import { glacierVolumeOf, type GlacierBand, type GlacierState } from './glacier-volume';

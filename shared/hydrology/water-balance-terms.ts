@@ -1,4 +1,5 @@
 import { HydrologyInputError, refuse } from './errors';
+import type { ElevationBand } from './stations';
 
 /**
  * The terms of a catchment water balance and the measurements it is closed against
@@ -17,6 +18,8 @@ export interface ModelledBalance {
   snowStorageChangeMm: number;
   /** Change of glacier ice and firn storage (positive = gained), mm w.e. over the catchment area. */
   iceStorageChangeMm: number;
+  /** With runoff routing: change of the water held in the routing stores (soil, channels, groundwater), mm over the catchment area. */
+  storesChangeMm?: number;
   /** Glacier-wide mass balance, mm w.e. over the glacier area; needed when one is measured. */
   glacierMassBalanceMm?: number;
   /** Mass balance of the glacier part of each band, mm w.e. over that part; needed for band balances. */
@@ -47,7 +50,9 @@ export interface BalanceTerms {
   evaporationSublimationMm: number;
   snowStorageChangeMm: number;
   iceStorageChangeMm: number;
-  /** P − E − ΔS_snow − ΔS_ice − measured R: what the balance leaves open, mm. */
+  /** Change of the water in the routing stores (0 without routing). */
+  storesChangeMm: number;
+  /** P − E − ΔS_snow − ΔS_ice − ΔS_stores − measured R: what the balance leaves open, mm. */
   closureMm: number;
 }
 
@@ -59,12 +64,13 @@ export interface Observation {
 }
 
 /** The observations as one list, checked: each needs a number and a stated accuracy above 0. */
-export function observationList(obs: BalanceObservations, bandCount: number): Observation[] {
+export function observationList(obs: BalanceObservations, bands: readonly ElevationBand[]): Observation[] {
+  const bandCount = bands.length;
   const list: Observation[] = [{ label: 'runoff', path: 'observations.runoffMm', measured: obs.runoffMm, modelled: (m) => m.runoffMm }];
   if (obs.glacierMassBalanceMm) list.push({ label: 'glacier mass balance', path: 'observations.glacierMassBalanceMm', measured: obs.glacierMassBalanceMm, modelled: (m) => m.glacierMassBalanceMm });
   (obs.bandBalances ?? []).forEach((b, i) => {
     if (!(Number.isInteger(b.band) && b.band >= 0 && b.band < bandCount)) refuse(`observations.bandBalances[${i}].band`, `band ${b.band} does not exist (there are ${bandCount}).`);
-    list.push({ label: `glacier balance in band ${b.band + 1}`, path: `observations.bandBalances[${i}]`, measured: b, modelled: (m) => m.bandGlacierBalanceMm?.[b.band] });
+    list.push({ label: `glacier balance at ${bands[b.band].lowerM}–${bands[b.band].upperM} m`, path: `observations.bandBalances[${i}]`, measured: b, modelled: (m) => m.bandGlacierBalanceMm?.[b.band] });
   });
   const issues = list.flatMap((o) => [
     ...(Number.isFinite(o.measured.value) ? [] : [{ path: `${o.path}.value`, message: `the measured ${o.label} must be a number.` }]),
@@ -84,6 +90,7 @@ export function termsOf(m: ModelledBalance, measuredRunoffMm: number): BalanceTe
     evaporationSublimationMm: m.evaporationSublimationMm,
     snowStorageChangeMm: m.snowStorageChangeMm,
     iceStorageChangeMm: m.iceStorageChangeMm,
-    closureMm: m.precipitationMm - m.evaporationSublimationMm - m.snowStorageChangeMm - m.iceStorageChangeMm - measuredRunoffMm,
+    storesChangeMm: m.storesChangeMm ?? 0,
+    closureMm: m.precipitationMm - m.evaporationSublimationMm - m.snowStorageChangeMm - m.iceStorageChangeMm - (m.storesChangeMm ?? 0) - measuredRunoffMm,
   };
 }

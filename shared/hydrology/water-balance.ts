@@ -138,6 +138,13 @@ function notClosedIssues(observations: Observation[], model: ModelledBalance, un
   });
 }
 
+/**
+ * Derivatives are taken over 0.5 % of each unknown's range: a season of the engine responds
+ * smoothly to precipitation only at that scale (snow thresholds and the last snow patches make
+ * much smaller steps noisy), and the observations never resolve finer than that.
+ */
+const DIFFERENCE_STEP = 5e-3;
+
 function round(v: number): string {
   return Math.abs(v) >= 100 ? v.toFixed(0) : Math.abs(v) >= 1 ? v.toFixed(2) : v.toPrecision(3);
 }
@@ -149,7 +156,7 @@ function round(v: number): string {
  */
 export function invertWaterBalance(input: InversionInput): InversionResult {
   const { evaluate, station, unknowns, closureSigma = 2 } = input;
-  const observations = observationList(input.observations, input.bands.length);
+  const observations = observationList(input.observations, input.bands);
   checkUnknowns(input, observations.length);
   const bounds = unknowns.map((u) => boundsOf(u, input));
   let evaluations = 0;
@@ -171,6 +178,7 @@ export function invertWaterBalance(input: InversionInput): InversionResult {
     upper: bounds.map((b) => b[1]),
     start: from,
     maxEvaluations: input.maxEvaluations ?? 80,
+    differenceStep: DIFFERENCE_STEP,
   });
   const closes = (r: number[]) => r.every((v) => Math.abs(v) <= closureSigma);
   let solution = solve(start);
@@ -233,7 +241,7 @@ function propagate(x: number[], bounds: (readonly [number, number])[], model: (x
   const gradP = new Array<number>(n).fill(0);
   for (let j = 0; j < n; j++) {
     const span = bounds[j][1] - bounds[j][0];
-    const h = (x[j] + 1e-4 * span <= bounds[j][1] ? 1 : -1) * 1e-4 * span;
+    const h = (x[j] + DIFFERENCE_STEP * span <= bounds[j][1] ? 1 : -1) * DIFFERENCE_STEP * span;
     const shifted = [...x];
     shifted[j] += h;
     const m = model(shifted);

@@ -17,15 +17,15 @@ export interface DischargeEvaluation {
 }
 
 /**
- * Catchment discharge (m³ s⁻¹, daily mean of all melt and rain, no routing) over the period, after
- * the engine's spin-up through the record before it, so the snowpack is built before the scored
- * days begin.
+ * Catchment discharge at the outlet (m³ s⁻¹, daily mean) over the period, after the engine's
+ * spin-up through the record before it, so the snowpack is built before the scored days begin:
+ * routed through the catchment's stores where its routing is on, else the day's melt and rain.
  */
 export function simulateDischarge(site: LabSite, period: Period): { startDate: string; values: Float64Array } {
   const from = site.forcing.start > period.from ? site.forcing.start : period.from;
   const last = addDays(site.forcing.start, forcingDays(site.forcing) - 1);
   const result = simulate(catchmentInput(site, { from, to: period.to < last ? period.to : last }));
-  return { startDate: result.startDate, values: result.catchmentDaily.dischargeM3s.total };
+  return { startDate: result.startDate, values: (result.catchmentDaily.routed ?? result.catchmentDaily).dischargeM3s.total };
 }
 
 /** Daily and monthly skill of the simulated discharge over the period. */

@@ -1,6 +1,7 @@
 import type { Parameters, SimulationInput } from '../melt/index';
 import { PARAMETER_SPECS } from '../melt/parameters';
 import type { LabSite, Period } from './site';
+import { engineWaterSide, scaledFactor } from '../analysis/water-side-inputs';
 
 /** Parameters a scientist may adjust and the automatic search may vary. */
 export const CALIBRATION_KEYS = [
@@ -60,13 +61,20 @@ export function forcingDays(forcing: LabSite['forcing']): number {
   return forcing.timeStep === 'hourly' ? Math.floor(forcing.temperatureC.length / 24) : forcing.tMinC.length;
 }
 
-/** The whole catchment as the engine takes it, with the site's parameters and precipitation factor. */
+/**
+ * The whole catchment as the engine takes it, with the site's parameters and precipitation
+ * factor, and its water side (band climate, redistribution, routing) when the site has one.
+ */
 export function catchmentInput(site: LabSite, period: Period, scenario: SimulationInput['scenario'] = {}): SimulationInput {
+  const parameters = site.parameters ?? {};
+  const { precipitationScale, ...water } = site.water ? engineWaterSide(site.catchment, site.water, parameters, site.useClosure ?? false) : { precipitationScale: 1 };
+  const merged = { precipitationFactor: site.precipitationFactor ?? 1, ...scenario };
   return {
     catchment: site.catchment,
     forcing: site.forcing,
-    parameters: site.parameters ?? {},
-    scenario: { precipitationFactor: site.precipitationFactor ?? 1, ...scenario },
+    parameters,
+    scenario: { ...merged, precipitationFactor: scaledFactor(merged.precipitationFactor, precipitationScale) },
     period,
+    ...water,
   };
 }

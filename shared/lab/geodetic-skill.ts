@@ -24,8 +24,13 @@ export interface GeodeticComparison {
   periodsDiffer: boolean;
   rows: (GeodeticObservation & { simulatedMwePerYear: number })[];
   leftOut: number;
-  /** Glacier-area-weighted means over the compared bands. */
-  glacierWide: { observedMwePerYear: number; simulatedMwePerYear: number };
+  /**
+   * Glacier-area-weighted means over the compared bands: the like-for-like comparison, since ice
+   * flow moves mass between bands but integrates to zero over the glacier. Its σ is the
+   * area-weighted band σ, the bands' errors taken as fully correlated (density and datum errors
+   * are shared by every band; the cautious bound).
+   */
+  glacierWide: { observedMwePerYear: number; simulatedMwePerYear: number; sigmaMwePerYear: number };
   scores: SkillScores | null;
   meanError: number;
   rmse: number;
@@ -95,7 +100,7 @@ export function compareGeodetic(site: LabSite, observed: readonly GeodeticObserv
     periodsDiffer: period.from !== observed[0].fromDate || period.to !== observed[0].toDate,
     rows,
     leftOut: observed.length - rows.length,
-    glacierWide: { observedMwePerYear: wide((r) => r.balanceMwePerYear), simulatedMwePerYear: wide((r) => r.simulatedMwePerYear) },
+    glacierWide: { observedMwePerYear: wide((r) => r.balanceMwePerYear), simulatedMwePerYear: wide((r) => r.simulatedMwePerYear), sigmaMwePerYear: wide((r) => r.sigmaMwePerYear) },
     scores,
     meanError: errors.reduce((s, e) => s + e, 0) / n,
     rmse: Math.sqrt(errors.reduce((s, e) => s + e * e, 0) / n),

@@ -48,7 +48,9 @@ export function compareMeltModels(site: BandSite): ReferenceComparison {
   const start = site.forcing.start;
   const last = addDays(start, forcingDays(site.forcing) - 1);
   const to = site.period.to < last ? site.period.to : last;
-  const input = catchmentInput({ ...site, catchment: { ...site.catchment, bands: [band] } }, { from: start, to });
+  // One band on its own: its climate from the gradients, but no snow moved to or from neighbours.
+  const water = site.water && { ...site.water, redistribution: null };
+  const input = catchmentInput({ ...site, water, catchment: { ...site.catchment, bands: [band] } }, { from: start, to });
   const firstDay = Math.max(0, daysBetween(start, site.period.from));
   const models = MELT_MODELS.map(({ key, label, run }) => {
     const melt = bandMelt(run(input), firstDay);

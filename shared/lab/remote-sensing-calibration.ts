@@ -21,14 +21,18 @@ export function calibrateToSnowCover(site: LabSite, observed: readonly SnowCover
 }
 
 /**
- * Automatic calibration against the geodetic balance profile: the same search, minimising the mean
- * squared error weighted by each band's uncertainty, Σ((s − o)/σ)²/n (a χ² misfit, common practice
- * when observations carry their errors); σ is kept at least 0.05 m w.e. per year.
+ * Automatic calibration against the geodetic balance: the same search, minimising the misfit of
+ * the glacier-wide balance in units of its uncertainty, ((s − o)/σ)² with σ at least 0.05 m w.e.
+ * per year. Glacier-wide, not band by band: a band's elevation change is its surface balance plus
+ * the ice flow into or out of it (emergence below the equilibrium line, submergence above it;
+ * dh/dt = ḃ/ρ + w, Cuffey & Paterson 2010, ch. 8), which the engine does not model; the flow sums
+ * to zero over the glacier, so the glacier-wide balance is the comparison mass conservation allows
+ * (as regional calibrations to geodetic balances do, e.g. Rounce et al. 2020).
  */
 export function calibrateToGeodetic(site: LabSite, observed: readonly GeodeticObservation[], options: Options) {
   const misfit = (candidate: LabSite) => {
-    const { rows } = compareGeodetic(candidate, observed);
-    return -rows.reduce((s, r) => s + ((r.simulatedMwePerYear - r.balanceMwePerYear) / Math.max(0.05, r.sigmaMwePerYear)) ** 2, 0) / Math.max(1, rows.length);
+    const { observedMwePerYear, simulatedMwePerYear, sigmaMwePerYear } = compareGeodetic(candidate, observed).glacierWide;
+    return -(((simulatedMwePerYear - observedMwePerYear) / Math.max(0.05, sigmaMwePerYear)) ** 2);
   };
   const found = searchSet(site, misfit, options);
   return { target: 'geodetic' as const, ...found, start: compareGeodetic(siteWith(site, options.start), observed), result: compareGeodetic(siteWith(site, found.set), observed) };

@@ -61,5 +61,7 @@ describe('geodetic balance against the engine', () => {
     expect(c.scores?.count).toBe(glacierBands.length);
     expect(c.withinTwoSigma).toBeGreaterThanOrEqual(0);
     expect(c.withinTwoSigma).toBeLessThanOrEqual(1);
+    // every band's σ is 0.2: fully correlated errors leave the glacier-wide σ at 0.2
+    expect(c.glacierWide.sigmaMwePerYear).toBeCloseTo(0.2, 12);
   });
 });

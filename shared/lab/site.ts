@@ -1,4 +1,5 @@
 import type { Parameters, SimulationInput } from '../melt/index';
+import { engineWaterSide, type WaterInputs } from '../analysis/water-side-inputs';
 
 /** The catchment and its climate as the engine takes them. */
 export type CatchmentInput = SimulationInput['catchment'];
@@ -19,6 +20,10 @@ export interface LabSite {
   parameters?: Partial<Parameters>;
   /** Station precipitation multiplier in force (calibrated or 1). */
   precipitationFactor?: number;
+  /** The catchment's water side: gradients, closure, redistribution, routing; none: the engine's own behaviour. */
+  water?: WaterInputs;
+  /** Use the saved water-balance precipitation (closure) instead of the station's. */
+  useClosure?: boolean;
 }
 
 /** The band a surface-response curve is computed for, and when. */
@@ -45,12 +50,16 @@ export function withoutPrecipitation(forcing: ForcingInput): ForcingInput {
  */
 export function surfacesInput(site: BandSite, surfaces: Partial<BandInput>[], initialSweMm: number[], extra: Pick<SimulationInput, 'scenario'> = {}): SimulationInput {
   const band = selectedBand(site);
+  const catchment = { ...site.catchment, bands: surfaces.map((s) => ({ ...band, ...s })) };
+  // The surfaces are copies of one band, not neighbours: they share its climate but exchange no snow.
+  const { bandClimate } = site.water ? engineWaterSide(catchment, { ...site.water, redistribution: null, routing: null }, site.parameters ?? {}, false) : { bandClimate: undefined };
   return {
-    catchment: { ...site.catchment, bands: surfaces.map((s) => ({ ...band, ...s })) },
+    catchment,
     forcing: withoutPrecipitation(site.forcing),
     parameters: site.parameters ?? {},
     period: site.period,
     initialState: { sweMm: initialSweMm },
+    ...(bandClimate ? { bandClimate } : {}),
     ...extra,
   };
 }

@@ -101,10 +101,13 @@ export function cellInput(setup: SweepSetup, values: readonly number[]): Simulat
   const parameters: Partial<Parameters> = { ...site.parameters };
   plan.axes.forEach(({ variable }, k) => {
     if (!isScenarioKey(variable)) parameters[variable] = values[k];
-    else scenario[variable] = variable === 'precipitationFactor' ? values[k] * (site.precipitationFactor ?? 1) : values[k];
   });
   const last = addDays(site.forcing.start, forcingDays(site.forcing) - 1);
   const input = catchmentInput({ ...site, parameters }, { from: plan.period.from, to: plan.period.to < last ? plan.period.to : last });
+  plan.axes.forEach(({ variable }, k) => {
+    // The swept precipitation factor multiplies the one in force (with the water-balance correction, if used).
+    if (isScenarioKey(variable)) scenario[variable] = variable === 'precipitationFactor' ? values[k] * (input.scenario!.precipitationFactor as number) : values[k];
+  });
   return { ...input, scenario: { ...input.scenario, ...scenario }, start: setup.start };
 }
 

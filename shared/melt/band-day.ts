@@ -8,7 +8,7 @@ import { afterSnowStep, buryUnderSnowfall, IMPURITY_IN } from './impurities';
 import { SNOW, stepSnowFrom } from './snow-pack';
 import { STEP_IN } from './surface-flux';
 import { glacierHour } from './glacier-hour';
-import { ACC, type LoopContext } from './loop-context';
+import { ACC, AIR_OVER_GLACIER, type LoopContext } from './loop-context';
 
 /** Albedo of snow-free ground under thin snow outside the glacier (rock and soil 0.1–0.3; common practice). */
 export const GROUND_ALBEDO = 0.2;
@@ -47,7 +47,7 @@ export function snowCover(coverTable: Float64Array, swe: number, fresh: number, 
  * those hours (bandSurfaces). Adds the band's contributions to `c.acc`.
  */
 export function bandDay(c: LoopContext, b: number, d: number, month: number): void {
-  bandWeather(c, b, d);
+  bandWeather(c, b, d, month);
   bandSurfaces(c, b, d, month);
 }
 
@@ -58,7 +58,7 @@ export function bandDay(c: LoopContext, b: number, d: number, month: number): vo
  * it is worked out for the day before any surface is touched. What all bands share for an hour
  * comes from the per-hour arrays; the band's constants are read once for the day.
  */
-export function bandWeather(c: LoopContext, b: number, d: number): void {
+export function bandWeather(c: LoopContext, b: number, d: number, month: number): void {
   const run = c.run;
   const g = run.geometry;
   const p = run.params;
@@ -67,8 +67,10 @@ export function bandWeather(c: LoopContext, b: number, d: number): void {
   const sw = c.shortwave;
   const a = c.acc;
   const w = c.hours;
-  const temperatureOffset = g.temperatureOffsetC[b];
-  const precipitationFactor = g.precipitationFactor[b];
+  const i = b * 12 + month;
+  const temperatureOffset = g.temperatureOffsetK[i];
+  const precipitationFactor = g.precipitationMultiplier[i];
+  const glacierDelta = g.cleanIceShare[b] > 0 || g.debrisShare[b] > 0 ? g.glacierTemperatureDeltaK[i] : 0;
   const pressureKPa = g.pressureKPa[b];
   const vapourFactor = g.vapourFactor[b];
   const cosSlope = g.cosSlope[b];
@@ -78,8 +80,6 @@ export function bandWeather(c: LoopContext, b: number, d: number): void {
   const groundView = g.groundView[b];
   const reflected = p.terrainAlbedo * groundView;
   const horizonOffset = g.hasHorizon[b] ? b * g.horizonSectors : -1;
-  const sensibleScale = g.pressurePa[b] * c.cpOverRd * p.exchangeCoefficient;
-  const vapourScale = c.vapourOverRd * p.exchangeCoefficient;
   const width = p.rainSnowTransitionK;
   const snowTop = p.rainSnowThresholdC + width / 2;
   const inverseWidth = width > 0 ? 1 / width : 0;
@@ -117,24 +117,43 @@ export function bandWeather(c: LoopContext, b: number, d: number): void {
       }
       global = direct + diffuse * skyView + reflected * horizontal;
     }
-    const tk = airC + ZERO_CELSIUS_K;
-    const tk2 = tk * tk;
-    const inverseTk = 1 / tk;
-    // The terrain a band sees emits as a black body at air temperature (assumption).
-    const position = tablePosition(run.airVapour, airC);
-    const skyEmissivity = readAt(run.emissivity, oneGrid ? position : tablePosition(run.emissivity, airC)) * c.clearSkyEmissivityScale[h] + c.overcastEmissivity[h];
-    const wind = f.windMs[h];
-    w.airC[k] = airC;
-    w.airK[k] = tk;
     w.rainMm[k] = rain;
     w.snowMm[k] = snow;
     w.globalWm2[k] = global;
-    w.longInWm2[k] = (skyEmissivity * skyView + groundView) * STEFAN_BOLTZMANN * tk2 * tk2;
-    w.vapourPa[k] = f.relativeHumidity[h] * readAt(run.airVapour, position);
-    w.windMs[k] = wind;
-    w.sensibleCoefficient[k] = sensibleScale * inverseTk * wind;
-    w.vapourCoefficient[k] = vapourScale * inverseTk * wind;
+    w.windMs[k] = f.windMs[h];
+    w.airC[k] = airC;
+    airAt(c, b, h, k, oneGrid);
+    if (glacierDelta !== 0) {
+      w.airC[AIR_OVER_GLACIER + k] = airC + glacierDelta;
+      airAt(c, b, h, AIR_OVER_GLACIER + k, oneGrid);
+    }
   }
+}
+
+/**
+ * The air of band b in hour h whose temperature is in slot `slot` of c.hours' air arrays: its
+ * kelvin value, the incoming longwave on the band (the sky's over the sky view plus the terrain's,
+ * which emits as a black body at air temperature; assumption), vapour pressure at the hour's
+ * relative humidity and the turbulent coefficients, into the same slot. Integer arguments only:
+ * where V8 does not inline a call it boxes each floating-point argument (shared/melt/README.md, Speed).
+ */
+function airAt(c: LoopContext, b: number, h: number, slot: number, oneGrid: boolean): void {
+  const run = c.run;
+  const g = run.geometry;
+  const w = c.hours;
+  const airC = w.airC[slot];
+  const tk = airC + ZERO_CELSIUS_K;
+  const tk2 = tk * tk;
+  const inverseTk = 1 / tk;
+  const wind = run.forcing.windMs[h];
+  const exchange = run.params.exchangeCoefficient;
+  const position = tablePosition(run.airVapour, airC);
+  const skyEmissivity = readAt(run.emissivity, oneGrid ? position : tablePosition(run.emissivity, airC)) * c.clearSkyEmissivityScale[h] + c.overcastEmissivity[h];
+  w.airK[slot] = tk;
+  w.longInWm2[slot] = (skyEmissivity * g.skyView[b] + g.groundView[b]) * STEFAN_BOLTZMANN * tk2 * tk2;
+  w.vapourPa[slot] = run.forcing.relativeHumidity[h] * readAt(run.airVapour, position);
+  w.sensibleCoefficient[slot] = g.pressurePa[b] * c.cpOverRd * exchange * inverseTk * wind;
+  w.vapourCoefficient[slot] = c.vapourOverRd * exchange * inverseTk * wind;
 }
 
 /**
@@ -172,7 +191,8 @@ export function bandSurfaces(c: LoopContext, b: number, d: number, month: number
   const thinBelow = 8 * thinDepth;
   // Deeper than this (with a margin far beyond rounding), the depth is past thinBelow without dividing.
   const thinSolid = thinBelow * density * (1 + 1e-9);
-  const ice = t.iceAlbedo[month];
+  const i = b * 12 + month;
+  const ice = t.iceAlbedo[i];
   const patch = g.debrisPatchShare[b];
   const glacier = g.cleanIceShare[b] + g.debrisShare[b];
   // What thin snow lets show through: clean ice, debris patches and the ice between them, ground.
@@ -186,11 +206,11 @@ export function bandSurfaces(c: LoopContext, b: number, d: number, month: number
   impurityIn[IMPURITY_IN.layerMass] = layerMm;
   impurityIn[IMPURITY_IN.scavengingBlackCarbon] = p.scavengingBlackCarbon;
   impurityIn[IMPURITY_IN.scavengingDust] = p.scavengingDust;
-  impurityIn[IMPURITY_IN.freshBlackCarbon] = t.freshBlackCarbonNgG[month];
-  impurityIn[IMPURITY_IN.freshDust] = t.freshDustUgG[month];
-  impurityIn[IMPURITY_IN.depositBlackCarbon] = t.blackCarbonDepositionNgM2Hour[month];
-  impurityIn[IMPURITY_IN.depositDust] = t.dustDepositionUgM2Hour[month];
-  const deposits = t.blackCarbonDepositionNgM2Hour[month] > 0 || t.dustDepositionUgM2Hour[month] > 0;
+  impurityIn[IMPURITY_IN.freshBlackCarbon] = t.freshBlackCarbonNgG[i];
+  impurityIn[IMPURITY_IN.freshDust] = t.freshDustUgG[i];
+  impurityIn[IMPURITY_IN.depositBlackCarbon] = t.blackCarbonDepositionNgM2Hour[i];
+  impurityIn[IMPURITY_IN.depositDust] = t.dustDepositionUgM2Hour[i];
+  const deposits = t.blackCarbonDepositionNgM2Hour[i] > 0 || t.dustDepositionUgM2Hour[i] > 0;
   const maxGrain = p.maxGrainRadiusUm;
   const snowIn = c.snowInput;
   snowIn[STEP_IN.drag] = c.snowIceDrag;

@@ -1,7 +1,7 @@
 import { DEG } from './constants';
 import { precipitableWaterFactor } from './clear-sky';
 import { pressureAt } from './pressure';
-import type { Band, Scenario } from './schema';
+import type { Band, ParsedInput, Scenario } from './schema';
 import type { Parameters } from './parameters';
 
 /** Per-band constants of a run, one entry per band, computed once before the hour loop. */
@@ -10,10 +10,17 @@ export interface BandGeometry {
   /** Mean elevation (lowerM + upperM)/2, m. */
   elevationM: Float64Array;
   areaM2: Float64Array;
-  /** Lapse-rate offset from the station, K. */
-  temperatureOffsetC: Float64Array;
-  /** Precipitation relative to the station, 1 + gradient·Δz, never below 0. */
-  precipitationFactor: Float64Array;
+  /**
+   * Per band and month (band-major, b·12 + m): air temperature at the band minus the station's, K
+   * (the lapse rate × Δz, or the band climate of fitted gradients), and precipitation relative to
+   * the station (1 + gradient·Δz, never below 0, or the band climate's multiplier).
+   */
+  temperatureOffsetK: Float64Array;
+  precipitationMultiplier: Float64Array;
+  /** Over the snow-free glacier: how much cooler (negative) the katabatic layer keeps the air than the free air, K; b·12 + m. */
+  glacierTemperatureDeltaK: Float64Array;
+  /** 1 where any month has a glacier temperature delta (so the hour loop computes a second air state). */
+  hasGlacierDelta: Uint8Array;
   pressurePa: Float64Array;
   /** Pressure in kPa, for the clear-sky beam exponent (ASCE-EWRI 2005). */
   pressureKPa: Float64Array;
@@ -46,12 +53,14 @@ export interface BandGeometry {
  * lies in patches of that thickness covering mean/threshold of the debris area, with bare ice
  * between them: the rising limb of the Østrem curve (see parameters.ts for the sources).
  */
-export function buildBandGeometry(bands: Band[], stationElevationM: number, scenario: Scenario, params: Parameters): BandGeometry {
+export function buildBandGeometry(bands: Band[], stationElevationM: number, scenario: Scenario, params: Parameters, climate?: ParsedInput['bandClimate']): BandGeometry {
   const n = bands.length;
   const f64 = () => new Float64Array(n);
+  const monthly = () => new Float64Array(n * 12);
   const sectors = bands.find((b) => b.horizonDeg)?.horizonDeg?.length ?? 0;
   const g: BandGeometry = {
-    count: n, elevationM: f64(), areaM2: f64(), temperatureOffsetC: f64(), precipitationFactor: f64(), pressurePa: f64(),
+    count: n, elevationM: f64(), areaM2: f64(), pressurePa: f64(),
+    temperatureOffsetK: monthly(), precipitationMultiplier: monthly(), glacierTemperatureDeltaK: monthly(), hasGlacierDelta: new Uint8Array(n),
     pressureKPa: f64(), vapourFactor: f64(), cosSlope: f64(), sinSlopeCosAspect: f64(), sinSlopeSinAspect: f64(),
     skyView: f64(), groundView: f64(), hasHorizon: new Uint8Array(n), horizonDeg: new Float64Array(n * sectors * 5), horizonSectors: sectors,
     cleanIceShare: f64(), debrisShare: f64(), debrisThicknessM: f64(), debrisColumnM: f64(), debrisPatchShare: f64(),
@@ -66,8 +75,13 @@ export function buildBandGeometry(bands: Band[], stationElevationM: number, scen
     const thickness = Math.max(0, baseThickness + scenario.debrisThicknessChangeM);
     g.elevationM[b] = z;
     g.areaM2[b] = band.areaKm2 * 1e6;
-    g.temperatureOffsetC[b] = params.lapseRateCPerKm * dzKm;
-    g.precipitationFactor[b] = Math.max(0, 1 + params.precipitationGradientPerKm * dzKm);
+    for (let m = 0; m < 12; m++) {
+      const i = b * 12 + m;
+      g.temperatureOffsetK[i] = climate ? climate.temperatureOffsetK[i] : params.lapseRateCPerKm * dzKm;
+      g.precipitationMultiplier[i] = climate ? climate.precipitationMultiplier[i] : Math.max(0, 1 + params.precipitationGradientPerKm * dzKm);
+      g.glacierTemperatureDeltaK[i] = climate ? climate.glacierTemperatureOffsetK[i] - climate.temperatureOffsetK[i] : 0;
+      if (g.glacierTemperatureDeltaK[i] !== 0) g.hasGlacierDelta[b] = 1;
+    }
     g.pressurePa[b] = pressureAt(z);
     g.pressureKPa[b] = g.pressurePa[b] / 1000;
     g.vapourFactor[b] = precipitableWaterFactor(z, stationElevationM);

@@ -19,12 +19,17 @@ export function compareRuns(baseline: SimulationResult, variant: SimulationResul
     );
   }
   const keys = [...SOURCES, 'total'] as const;
+  const differences = (a: Record<(typeof keys)[number], Float64Array>, b: Record<(typeof keys)[number], Float64Array>) =>
+    Object.fromEntries(keys.map((k) => [k, difference(a[k], b[k])])) as SimulationResult['catchmentDaily']['volumeM3'];
+  const routedA = baseline.catchmentDaily.routed;
+  const routedB = variant.catchmentDaily.routed;
   return {
     ...variant,
     bandDay: Object.fromEntries(BAND_DAY_FIELDS.map((k) => [k, difference(baseline.bandDay[k], variant.bandDay[k])])) as SimulationResult['bandDay'],
     catchmentDaily: {
-      volumeM3: Object.fromEntries(keys.map((k) => [k, difference(baseline.catchmentDaily.volumeM3[k], variant.catchmentDaily.volumeM3[k])])) as SimulationResult['catchmentDaily']['volumeM3'],
-      dischargeM3s: Object.fromEntries(keys.map((k) => [k, difference(baseline.catchmentDaily.dischargeM3s[k], variant.catchmentDaily.dischargeM3s[k])])) as SimulationResult['catchmentDaily']['dischargeM3s'],
+      volumeM3: differences(baseline.catchmentDaily.volumeM3, variant.catchmentDaily.volumeM3),
+      dischargeM3s: differences(baseline.catchmentDaily.dischargeM3s, variant.catchmentDaily.dischargeM3s),
+      routed: routedA && routedB ? { volumeM3: differences(routedA.volumeM3, routedB.volumeM3), dischargeM3s: differences(routedA.dischargeM3s, routedB.dischargeM3s) } : null,
     },
     bandTotals: Object.fromEntries(BAND_TOTAL_FIELDS.map((k) => [k, difference(baseline.bandTotals[k], variant.bandTotals[k])])) as SimulationResult['bandTotals'],
   };

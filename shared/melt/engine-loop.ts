@@ -1,6 +1,7 @@
 import { ACC, type LoopContext } from './loop-context';
 import { bandDay } from './band-day';
 import { packWaterMm } from './state';
+import { redistributeDay } from './redistribution';
 import type { SimulationResult } from './result';
 
 export interface Progress {
@@ -18,7 +19,9 @@ export type ProgressCallback = (progress: Progress) => void;
  * Bands exchange neither mass nor energy, so each band runs through a day's 24 hours in turn,
  * and per band-hour the only transcendental calls are the clear-sky beam's exponential and, in
  * daylight over snow, the snow-albedo cloud term; albedo, emissivity and vapour pressure come
- * from tables. Only days of recorded segments are written to the result.
+ * from tables. Only days of recorded segments are written to the result. Bands exchange snow
+ * only once a day, after every band has run through it (redistribution.ts); with routing on, the
+ * day's runoff by source is kept for every simulated day, spin-up included, for routing after the loop.
  *
  * @returns the pack water per band at the start of the period (for the result's totals)
  */
@@ -27,6 +30,10 @@ export function runSegments(c: LoopContext, result: SimulationResult, onProgress
   const nb = run.geometry.count;
   const total = run.segments.reduce((n, s) => n + s.lastDay - s.firstDay + 1, 0);
   const sweStart = new Float64Array(nb);
+  const r = c.redistribution;
+  const volumes = c.stepVolumesM3;
+  const area = run.geometry.areaM2;
+  const a = c.acc;
   let done = 0;
   for (const segment of run.segments) {
     if (segment.record) for (let b = 0; b < nb; b++) sweStart[b] = packWaterMm(run.state, b);
@@ -34,15 +41,39 @@ export function runSegments(c: LoopContext, result: SimulationResult, onProgress
       const month = run.timeline.months[d];
       const recordDay = segment.record ? d - run.recordFirstDay : -1;
       for (let b = 0; b < nb; b++) {
-        c.acc.fill(0);
+        a.fill(0);
         bandDay(c, b, d, month);
         if (recordDay >= 0) writeBandDay(c, result, b, recordDay);
+        if (r) r.snowfallMm[b] = a[ACC.snowfall];
+        if (volumes) {
+          const m3PerMm = area[b] / 1000;
+          volumes.snow[done] += a[ACC.snowRunoff] * m3PerMm;
+          volumes.ice[done] += a[ACC.iceMelt] * m3PerMm;
+          volumes.debrisIce[done] += a[ACC.debrisMelt] * m3PerMm;
+          volumes.rain[done] += a[ACC.rainRunoff] * m3PerMm;
+        }
+      }
+      if (r) {
+        redistributeDay(r, run.state);
+        if (recordDay >= 0) writeRedistribution(c, result, recordDay);
       }
       done++;
       if (onProgress && (done === total || run.timeline.months[d + 1] !== month)) onProgress({ day: done, dayCount: total, fraction: done / total });
     }
   }
   return sweStart;
+}
+
+/** The day's snow gained or lost per band, and the SWE after the move. */
+function writeRedistribution(c: LoopContext, result: SimulationResult, d: number): void {
+  const r = c.redistribution!;
+  const out = result.bandDay;
+  for (let b = 0; b < result.bandCount; b++) {
+    const i = b * result.dayCount + d;
+    out.windDriftMm[i] = r.wind ? r.windNetMm[b] : 0;
+    out.avalancheMm[i] = r.avalanche ? r.avalancheNetMm[b] : 0;
+    out.sweMm[i] = packWaterMm(c.run.state, b);
+  }
 }
 
 function writeBandDay(c: LoopContext, result: SimulationResult, b: number, d: number): void {

@@ -228,3 +228,28 @@ describe('simulate', () => {
     expect(r.dayCount).toBe(30);
   });
 });
+
+describe('property: more precipitation never lowers runoff (ice-free bands, a year after its spin-up)', () => {
+  // Without glacier ice a wetter year can only add water where the snow melts out every year. Where
+  // snow outlasts the summer, more snow keeps the band white longer and is carried over instead, so
+  // there the property is the water the band gives or keeps: runoff plus the change in its snow.
+  // (On glaciers more snow may also shield the ice and lower melt within a season.)
+  const iceFree = inventedValley({ years: 2, bandCount: 5, timeStep: 'daily', seed: 11 });
+  const input = { ...iceFree, catchment: { ...iceFree.catchment, bands: iceFree.catchment.bands.map((b) => ({ ...b, glacierFraction: 0, debrisFraction: 0 })) }, period: { from: '2022-10-01', to: '2023-09-30' } };
+  const runs = [0.5, 0.8, 1, 1.3, 2].map((f) => simulate(withScenario(input, { precipitationFactor: f })));
+  const seasonal = [0, 1, 2, 3, 4].filter((b) => runs.every((r) => r.bandTotals.sweStartMm[b] === 0 && r.bandTotals.sweEndMm[b] === 0));
+  it('in every band whose snow melts out every year', () => {
+    expect(seasonal.length).toBeGreaterThan(0);
+    for (let i = 1; i < runs.length; i++) for (const b of seasonal) expect(runs[i].bandTotals.runoffMm[b]).toBeGreaterThan(runs[i - 1].bandTotals.runoffMm[b]);
+  });
+  it('counting the snow a band keeps, in every band', () => {
+    const given = (r: SimulationResult, b: number) => r.bandTotals.runoffMm[b] + r.bandTotals.sweEndMm[b] - r.bandTotals.sweStartMm[b];
+    for (let i = 1; i < runs.length; i++) for (let b = 0; b < 5; b++) expect(given(runs[i], b)).toBeGreaterThan(given(runs[i - 1], b));
+  });
+  it('with snow moved between bands and routed to the outlet, for the outlet and the snow left in the catchment', () => {
+    const moved = [0.5, 0.8, 1, 1.3].map((f) => simulate({ ...withScenario(input, { precipitationFactor: f }), redistribution: { avalanche: { parameters: {} }, windDrift: { factors: [0.8, 1, 1.2, 1, 0.9] } }, routing: { parameters: {} } }));
+    const kept = (r: SimulationResult) => r.bands.areaM2.reduce((s, a, b) => s + (a * (r.bandTotals.sweEndMm[b] - r.bandTotals.sweStartMm[b])) / 1000, 0);
+    const outlet = (r: SimulationResult) => r.catchmentDaily.routed!.volumeM3.total.reduce((s, v) => s + v, 0);
+    for (let i = 1; i < moved.length; i++) expect(outlet(moved[i]) + kept(moved[i])).toBeGreaterThan(outlet(moved[i - 1]) + kept(moved[i - 1]));
+  });
+});

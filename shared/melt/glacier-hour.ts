@@ -1,7 +1,7 @@
 import { ICE, stepIce } from './ice-surface';
 import { DEBRIS, DEBRIS_IN, stepDebrisFrom } from './debris-layers';
 import { STEP_IN } from './surface-flux';
-import { ACC, type LoopContext } from './loop-context';
+import { ACC, AIR_OVER_GLACIER, type LoopContext } from './loop-context';
 
 /**
  * Hour k of band b's snow-free glacier (the share 1 − cover > 0 of the band's glacier, with the
@@ -23,12 +23,22 @@ export function glacierHour(c: LoopContext, b: number, k: number, month: number)
   const out = c.scratch;
   const clean = g.cleanIceShare[b];
   const debris = g.debrisShare[b];
+  const i = b * 12 + month;
   const exposed = 1 - w.cover[k];
   const global = w.globalWm2[k];
-  const longIn = w.longInWm2[k];
-  const airC = w.airC[k];
+  // Where the band climate damps the air over snow-free ice, the glacier has an air of its own.
+  const slot = g.glacierTemperatureDeltaK[i] === 0 ? k : AIR_OVER_GLACIER + k;
+  const longIn = w.longInWm2[slot];
+  const airC = w.airC[slot];
+  if (slot !== k) {
+    const air = c.air;
+    air.airC = airC;
+    air.vapourPa = w.vapourPa[slot];
+    air.sensibleCoefficient = w.sensibleCoefficient[slot];
+    air.vapourCoefficient = w.vapourCoefficient[slot];
+  }
   const patch = g.debrisPatchShare[b];
-  const iceAlbedo = run.tables.iceAlbedo[month];
+  const iceAlbedo = run.tables.iceAlbedo[i];
   const bareShare = clean + (c.model === 0 ? debris * (1 - patch) : 0);
   if (bareShare > 0 || (c.model !== 0 && debris > 0)) {
     const absorbed = global * (1 - iceAlbedo);
@@ -72,7 +82,7 @@ export function glacierHour(c: LoopContext, b: number, k: number, month: number)
     const absorbed = global * (1 - p.debrisAlbedo);
     const column = c.columns[b];
     const input = c.debrisInput;
-    column.sensibleCoefficient = (g.pressurePa[b] / w.airK[k]) * c.cpOverRd * c.debrisExchange * w.windMs[k];
+    column.sensibleCoefficient = (g.pressurePa[b] / w.airK[slot]) * c.cpOverRd * c.debrisExchange * w.windMs[k];
     input[DEBRIS_IN.absorbed] = absorbed;
     input[DEBRIS_IN.longIn] = p.debrisEmissivity * longIn;
     input[DEBRIS_IN.airC] = airC;

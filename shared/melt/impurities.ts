@@ -29,7 +29,7 @@ const MAX_DUST_UG_G = 5_000;
  * mass Ms and the scavenging shares (set once), the pack's solid mass (kg m⁻² of snow-covered
  * ground) before the step and after it, new snow (kg m⁻²) and its loads (ng g⁻¹, µg g⁻¹), the
  * mass lost to melt and to the air (kg m⁻²), and dry deposition this hour (ng m⁻², µg m⁻²); the
- * released… slots carry a buried horizon's load to the surface within enrichOnLoss.
+ * released… slots carry a buried horizon's load to the surface within afterSnowStep.
  */
 export const IMPURITY_IN = {
   layerMass: 0, scavengingBlackCarbon: 1, scavengingDust: 2, solid: 3, snow: 4, freshBlackCarbon: 5, freshDust: 6,

@@ -9,7 +9,8 @@ import type { PreparedRun } from './prepare';
 import type { ShortwaveForcing } from './shortwave-forcing';
 import type { SunTrack } from './sun-track';
 import { STEP_IN_SIZE, type TurbulentAir } from './surface-flux';
-import type { MeltModel } from './result';
+import { SOURCES, type MeltModel, type Source } from './result';
+import { planRedistribution, type Redistribution } from './redistribution';
 
 /** Slots of the per band-day accumulators the hour step adds to. */
 export const ACC = {
@@ -21,7 +22,10 @@ export const ACC_SIZE = 22;
 
 /**
  * The weather of the band being simulated through one day, hour by hour (band-day.ts: worked out
- * by bandWeather, used by bandSurfaces and glacierHour).
+ * by bandWeather, used by bandSurfaces and glacierHour). The air's own arrays (temperature,
+ * longwave, vapour pressure, turbulent coefficients) hold two days' length: hours 24–47 are the
+ * air over the band's snow-free glacier where the band climate damps it (katabatic cooling,
+ * BandGeometry.glacierTemperatureDeltaK ≠ 0), filled only then (AIR_OVER_GLACIER).
  */
 export interface BandHours {
   airC: Float64Array;
@@ -40,11 +44,15 @@ export interface BandHours {
   cover: Float64Array;
 }
 
+/** Offset of the damped air over snow-free glacier in BandHours' air arrays. */
+export const AIR_OVER_GLACIER = 24;
+
 function allocateBandHours(): BandHours {
   const day = () => new Float64Array(24);
+  const air = () => new Float64Array(24 + AIR_OVER_GLACIER);
   return {
-    airC: day(), airK: day(), rainMm: day(), snowMm: day(), globalWm2: day(), longInWm2: day(),
-    vapourPa: day(), windMs: day(), sensibleCoefficient: day(), vapourCoefficient: day(), cover: day(),
+    airC: air(), airK: air(), rainMm: day(), snowMm: day(), globalWm2: day(), longInWm2: air(),
+    vapourPa: air(), windMs: day(), sensibleCoefficient: air(), vapourCoefficient: air(), cover: day(),
   };
 }
 
@@ -82,6 +90,10 @@ export interface LoopContext {
   iceInput: Float64Array;
   debrisInput: Float64Array;
   impurityInput: Float64Array;
+  /** Snow moved between bands at the end of each day; null when the run does not redistribute. */
+  redistribution: Redistribution | null;
+  /** With routing on: the catchment's runoff volume by source for every simulated day in order (spin-up first), m³. */
+  stepVolumesM3: Record<Source, Float64Array> | null;
 }
 
 /** µm of radius growth per hour, times r², from a grain volume growth in mm³ per day: dr = dV/(4πr²). */
@@ -132,5 +144,12 @@ export function buildLoopContext(run: PreparedRun, sun: SunTrack, shortwave: Sho
     iceInput: new Float64Array(STEP_IN_SIZE),
     debrisInput: new Float64Array(DEBRIS_IN_SIZE),
     impurityInput: new Float64Array(IMPURITY_IN_SIZE),
+    redistribution: planRedistribution(run.input, run.input.catchment.bands),
+    stepVolumesM3: run.input.routing ? stepVolumes(run) : null,
   };
+}
+
+function stepVolumes(run: PreparedRun): Record<Source, Float64Array> {
+  const steps = run.segments.reduce((n, s) => n + s.lastDay - s.firstDay + 1, 0);
+  return Object.fromEntries(SOURCES.map((source) => [source, new Float64Array(steps)])) as Record<Source, Float64Array>;
 }

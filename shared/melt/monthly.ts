@@ -31,9 +31,12 @@ export interface BandMonthSummary {
   evaporationMm: number;
   /** Mean snow-covered share of the band. */
   meanSnowCoverFraction: number;
+  /** Snow the band gained (+) or lost (−) by wind drift and by avalanching (0 when off). */
+  windDriftMm: number;
+  avalancheMm: number;
 }
 
-const SUMMED = ['snowMeltMm', 'iceMeltMm', 'debrisIceMeltMm', 'rainMm', 'snowfallMm', 'rainfallMm', 'surfaceMeltMm', 'refrozenMm', 'sublimationMm', 'evaporationMm'] as const;
+const SUMMED = ['snowMeltMm', 'iceMeltMm', 'debrisIceMeltMm', 'rainMm', 'snowfallMm', 'rainfallMm', 'surfaceMeltMm', 'refrozenMm', 'sublimationMm', 'evaporationMm', 'windDriftMm', 'avalancheMm'] as const;
 
 /**
  * Per band × calendar month totals by source, with mean albedo, absorbed shortwave and snow
@@ -60,7 +63,7 @@ export function summariseByMonth(result: SimulationResult): BandMonthSummary[] {
         row = {
           bandIndex: b, month: monthOf[d], days: 0, snowMeltMm: 0, iceMeltMm: 0, debrisIceMeltMm: 0, rainMm: 0, snowfallMm: 0,
           runoffMm: 0, snowMeltM3: 0, iceMeltM3: 0, debrisIceMeltM3: 0, rainM3: 0, runoffM3: 0, meanAlbedo: null, meanAbsorbedShortwaveWm2: 0,
-          rainfallMm: 0, surfaceMeltMm: 0, refrozenMm: 0, sublimationMm: 0, evaporationMm: 0, meanSnowCoverFraction: 0,
+          rainfallMm: 0, surfaceMeltMm: 0, refrozenMm: 0, sublimationMm: 0, evaporationMm: 0, meanSnowCoverFraction: 0, windDriftMm: 0, avalancheMm: 0,
         };
         albedoWeight = 0;
         albedoSum = 0;

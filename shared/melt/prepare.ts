@@ -74,12 +74,13 @@ export function prepareRun(raw: unknown): PreparedRun {
   const timeline = buildTimeline(forcing.start, days, catchment.timeZone, { from: addDays(forcing.start, spanFirst), to: addDays(forcing.start, spanLast) });
   const segments = plan.segments.map((s) => ({ ...s, firstDay: s.firstDay - spanFirst, lastDay: s.lastDay - spanFirst }));
   const background = { blackCarbonSnowNgG: catchment.background?.blackCarbonSnowNgG ?? 0, dustSnowUgG: catchment.background?.dustSnowUgG ?? 0 };
-  const tables = buildSurfaceTables(scenario, params, background);
-  const firstMonth = timeline.months[0];
   const bandCount = catchment.bands.length;
+  const tables = buildSurfaceTables(scenario, params, background, bandCount, input.impuritiesByBand);
+  const firstMonth = timeline.months[0];
+  const freshLoad = (table: Float64Array) => Float64Array.from({ length: bandCount }, (_, b) => table[b * 12 + firstMonth]);
   const state = start.method === 'state'
     ? stateFromJson(start.state)
-    : initialState(start.method === 'initial-swe' ? start.sweMm : new Float64Array(bandCount), params.freshGrainRadiusUm, tables.freshBlackCarbonNgG[firstMonth], tables.freshDustUgG[firstMonth]);
+    : initialState(start.method === 'initial-swe' ? start.sweMm : new Float64Array(bandCount), params.freshGrainRadiusUm, freshLoad(tables.freshBlackCarbonNgG), freshLoad(tables.freshDustUgG));
   if (state.sweMm.length !== bandCount) {
     const path = start.method === 'state' ? 'start.state' : 'start.sweMm';
     throw new SimulationInputError([{ path, message: `has ${state.sweMm.length} bands; one per band (${bandCount}) expected` }]);
@@ -88,7 +89,7 @@ export function prepareRun(raw: unknown): PreparedRun {
     input, params, timeline, segments, startReport: plan.report,
     recordFirstDay: daysBetween(timeline.startDate, period.from), recordDays: daysBetween(period.from, period.to) + 1, recordStartDate: period.from,
     forcing: expandForcing(forcing, scenario, params, timeline.months, timeline.firstDay, timeline.dayCount),
-    geometry: buildBandGeometry(catchment.bands, catchment.stationElevationM, scenario, params),
+    geometry: buildBandGeometry(catchment.bands, catchment.stationElevationM, scenario, params, input.bandClimate),
     tables,
     emissivity: buildEmissivityTable(),
     airVapour: buildAirVapourTable(),

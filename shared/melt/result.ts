@@ -15,12 +15,14 @@ import type { ShortwaveSource } from './schema';
  * of band; albedo shortwave-weighted. snowCoverFraction is the daily mean snow-covered share of
  * the band; debrisSurfaceMaxC the day's highest debris surface temperature (0 when no debris was
  * exposed); airTemperatureC the day's mean air temperature at the band's mean elevation.
+ * Redistribution: windDriftMm and avalancheMm, the snow the band gained (+) or lost (−) that day by
+ * wind drift and by avalanching (0 when off); area-weighted they sum to 0 over the catchment.
  */
 export const BAND_DAY_FIELDS = [
   'snowMeltMm', 'iceMeltMm', 'debrisIceMeltMm', 'rainMm', 'snowfallMm', 'sweMm', 'albedo',
   'incomingShortwaveWm2', 'netShortwaveWm2', 'absorbedShortwaveWm2', 'netLongwaveWm2', 'sensibleHeatWm2',
   'rainfallMm', 'liquidWaterMm', 'surfaceMeltMm', 'refrozenMm', 'sublimationMm', 'evaporationMm', 'iceVapourLossMm',
-  'latentHeatWm2', 'snowCoverFraction', 'debrisSurfaceMaxC', 'airTemperatureC',
+  'latentHeatWm2', 'snowCoverFraction', 'debrisSurfaceMaxC', 'airTemperatureC', 'windDriftMm', 'avalancheMm',
 ] as const;
 export type BandDayField = (typeof BAND_DAY_FIELDS)[number];
 
@@ -33,11 +35,11 @@ export const SOURCE_FIELD: Record<Source, BandDayField> = {
 
 export const BAND_TOTAL_FIELDS = [
   'snowMeltMm', 'iceMeltMm', 'debrisIceMeltMm', 'rainMm', 'snowfallMm', 'runoffMm', 'sweStartMm', 'sweEndMm',
-  'rainfallMm', 'surfaceMeltMm', 'refrozenMm', 'sublimationMm', 'evaporationMm', 'iceVapourLossMm',
+  'rainfallMm', 'surfaceMeltMm', 'refrozenMm', 'sublimationMm', 'evaporationMm', 'iceVapourLossMm', 'windDriftMm', 'avalancheMm',
 ] as const;
 
 /** Band totals summed from the per-day field of the same name. */
-const SUMMED_FIELDS = ['snowfallMm', 'rainfallMm', 'surfaceMeltMm', 'refrozenMm', 'sublimationMm', 'evaporationMm', 'iceVapourLossMm'] as const;
+const SUMMED_FIELDS = ['snowfallMm', 'rainfallMm', 'surfaceMeltMm', 'refrozenMm', 'sublimationMm', 'evaporationMm', 'iceVapourLossMm', 'windDriftMm', 'avalancheMm'] as const;
 export type BandTotalField = (typeof BAND_TOTAL_FIELDS)[number];
 
 export type MeltModel = 'energy-balance' | 'degree-day' | 'enhanced-temperature-index';
@@ -65,10 +67,16 @@ export interface SimulationResult {
    * albedo is the shortwave-weighted mean of the snow and ice surfaces (0 when there are none).
    */
   bandDay: Record<BandDayField, Float64Array>;
-  /** Catchment daily volume (m³) and mean discharge (m³ s⁻¹) by source and in total. */
+  /**
+   * Catchment daily volume (m³) and mean discharge (m³ s⁻¹) by source and in total: the runoff as
+   * it leaves the snow, ice and ground surface of the bands (unrouted). With routing on, `routed`
+   * is the outlet's: the same sources after the linear reservoirs (from the start of the spin-up);
+   * null without routing, when the outlet discharge is the unrouted total.
+   */
   catchmentDaily: {
     volumeM3: Record<Source | 'total', Float64Array>;
     dischargeM3s: Record<Source | 'total', Float64Array>;
+    routed: { volumeM3: Record<Source | 'total', Float64Array>; dischargeM3s: Record<Source | 'total', Float64Array> } | null;
   };
   /** Per band totals over the run, mm w.e. over the band area; runoff = all melt + rain. */
   bandTotals: Record<BandTotalField, Float64Array>;
@@ -96,7 +104,7 @@ export function allocateResult(model: MeltModel, engineVersion: string, startDat
   return {
     engineVersion, model, startDate, dayCount, bandCount, layout: 'band-major',
     bandDay: record(BAND_DAY_FIELDS, bandCount * dayCount),
-    catchmentDaily: { volumeM3: record(totalKeys, dayCount), dischargeM3s: record(totalKeys, dayCount) },
+    catchmentDaily: { volumeM3: record(totalKeys, dayCount), dischargeM3s: record(totalKeys, dayCount), routed: null },
     bandTotals: record(BAND_TOTAL_FIELDS, bandCount),
     bands,
     start: description.start,

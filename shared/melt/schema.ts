@@ -3,6 +3,7 @@ import { PARAMETER_NAMES, PARAMETER_SPECS, type ParameterName } from './paramete
 import { isIsoDate, isTimeZone } from './calendar';
 import { checkForcing } from './forcing-checks';
 import { engineStateSchema } from './state-schema';
+import { bandClimateSchema, checkWaterSide, redistributionSchema, routingSchema } from './water-side-schema';
 
 const isoDate = z.string().refine(isIsoDate, { message: 'must be a real date written YYYY-MM-DD' });
 
@@ -103,7 +104,8 @@ export const parametersSchema = z.object(
 
 export const scenarioSchema = z.object({
   temperatureDeltaC: monthly(-15, 15).default(0),
-  precipitationFactor: monthly(0, 5).default(1),
+  // Up to 20: a water-balance correction (up to 6, shared/hydrology) times a scenario's change.
+  precipitationFactor: monthly(0, 20).default(1),
   blackCarbonSnowNgG: monthly(0, 50_000).default(0),
   blackCarbonIceNgG: monthly(0, 50_000).default(0),
   dustSnowUgG: monthly(0, 5_000).default(0),
@@ -116,6 +118,17 @@ export const scenarioSchema = z.object({
   debrisThicknessChangeM: z.number().min(-10).max(10).default(0),
   /** Fraction of each band's clean glacier area that becomes debris-covered. */
   debrisExtentChange: z.number().min(0).max(1).default(0),
+}).strict();
+
+/**
+ * Impurity loads of one band where they differ from the scenario's (e.g. a dirtier tongue): each
+ * field replaces the scenario's for that band; deposition rates stay catchment-wide.
+ */
+export const bandImpuritiesSchema = z.object({
+  blackCarbonSnowNgG: monthly(0, 50_000).optional(),
+  blackCarbonIceNgG: monthly(0, 50_000).optional(),
+  dustSnowUgG: monthly(0, 5_000).optional(),
+  dustIceUgG: monthly(0, 5_000).optional(),
 }).strict();
 
 /**
@@ -158,7 +171,18 @@ export const simulationInputSchema = z.object({
      */
     stabilityCorrection: z.boolean().default(false),
   }).default({ stabilityCorrection: false }),
-}).superRefine(checkForcing);
+  /** Per band: impurity loads that replace the scenario's (null: the scenario's). */
+  impuritiesByBand: z.array(bandImpuritiesSchema.nullable()).optional(),
+  /** Band temperature and precipitation from fitted vertical gradients (water-side-schema.ts). */
+  bandClimate: bandClimateSchema.optional(),
+  /** Snow redistribution between bands, once a day (water-side-schema.ts). */
+  redistribution: redistributionSchema.optional(),
+  /** Routing of the runoff to the outlet (water-side-schema.ts); absent: outlet discharge = the day's runoff. */
+  routing: routingSchema.nullable().optional(),
+}).superRefine((input, ctx) => {
+  checkForcing(input, ctx);
+  checkWaterSide(input, ctx);
+});
 
 export type SimulationInput = z.input<typeof simulationInputSchema>;
 export type ParsedInput = z.output<typeof simulationInputSchema>;
@@ -166,3 +190,4 @@ export type Band = z.output<typeof bandSchema>;
 export type Scenario = z.output<typeof scenarioSchema>;
 export type Forcing = z.output<typeof forcingSchema>;
 export type Start = z.output<typeof startSchema>;
+export type BandImpurities = z.output<typeof bandImpuritiesSchema>;

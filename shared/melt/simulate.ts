@@ -5,6 +5,7 @@ import { buildLoopContext } from './loop-context';
 import { runSegments, type ProgressCallback } from './engine-loop';
 import { allocateResult, summarise, type MeltModel, type SimulationResult } from './result';
 import { stateToJson } from './state';
+import { routeResult } from './routing';
 import { ENGINE_VERSION } from './version';
 
 export interface SimulateOptions {
@@ -29,9 +30,11 @@ function runModel(raw: unknown, model: MeltModel, options: SimulateOptions): Sim
   const sun = buildSunTrack(run.timeline, catchment.latitudeDeg, catchment.longitudeDeg);
   const shortwave = buildShortwaveForcing(run.timeline, sun, run.forcing, run.params, run.stationPressurePa, run.input.shortwaveSource);
   const result = allocateResult(model, ENGINE_VERSION, run.recordStartDate, run.recordDays, bandInfo(run), { start: run.startReport, shortwaveSource: shortwave.source });
-  const sweStart = runSegments(buildLoopContext(run, sun, shortwave, model), result, options.onProgress);
+  const context = buildLoopContext(run, sun, shortwave, model);
+  const sweStart = runSegments(context, result, options.onProgress);
   summarise(result, sweStart);
   result.endState = stateToJson(run.state);
+  if (context.stepVolumesM3) result.endState.routing = routeResult(run.input, context.stepVolumesM3, result);
   return result;
 }
 

@@ -22,17 +22,17 @@ export function allocateState(bandCount: number): BandState {
   return Object.fromEntries(STATE_FIELDS.map((f) => [f, new Float64Array(bandCount)])) as BandState;
 }
 
-/** A fresh state: the given SWE (with fresh grains and the background loads), everything at 0 °C. */
-export function initialState(sweMm: ArrayLike<number>, freshGrainUm: number, blackCarbonNgG: number, dustUgG: number): BandState {
+/** A fresh state: the given SWE (with fresh grains and each band's loads of fresh snow), everything at 0 °C. */
+export function initialState(sweMm: ArrayLike<number>, freshGrainUm: number, blackCarbonNgG: ArrayLike<number>, dustUgG: ArrayLike<number>): BandState {
   const s = allocateState(sweMm.length);
   for (let b = 0; b < sweMm.length; b++) {
     s.sweMm[b] = sweMm[b];
     s.peakSweMm[b] = sweMm[b];
     s.grainRadiusUm[b] = freshGrainUm;
-    s.surfaceBlackCarbonNgG[b] = blackCarbonNgG;
-    s.packBlackCarbonNgG[b] = blackCarbonNgG;
-    s.surfaceDustUgG[b] = dustUgG;
-    s.packDustUgG[b] = dustUgG;
+    s.surfaceBlackCarbonNgG[b] = blackCarbonNgG[b];
+    s.packBlackCarbonNgG[b] = blackCarbonNgG[b];
+    s.surfaceDustUgG[b] = dustUgG[b];
+    s.packDustUgG[b] = dustUgG[b];
   }
   return s;
 }
@@ -42,7 +42,7 @@ export function stateFromJson(state: EngineState): BandState {
 }
 
 export function stateToJson(state: BandState): EngineState {
-  return Object.fromEntries(STATE_FIELDS.map((f) => [f, Array.from(state[f])])) as EngineState;
+  return Object.fromEntries(STATE_FIELDS.map((f) => [f, Array.from(state[f])])) as Record<StateField, number[]>;
 }
 
 /** Total water in a band's pack, solid plus liquid, mm w.e. over the band. */

@@ -1,9 +1,12 @@
 import { iceAlbedo } from './ice-albedo';
 import { monthValue } from './hourly-forcing';
-import type { Scenario } from './schema';
+import type { BandImpurities, Scenario } from './schema';
 import type { Parameters } from './parameters';
 
-/** Month-by-month inputs of the surfaces (loads may change month by month), January first. */
+/**
+ * Month-by-month inputs of the surfaces of each band (loads may change month by month and differ
+ * between bands), band-major: band b, month m (January = 0) at b·12 + m.
+ */
 export interface SurfaceTables {
   /** Bare-ice albedo with the scenario's added loads (user-set rule, ice-albedo.ts). */
   iceAlbedo: Float64Array;
@@ -15,21 +18,34 @@ export interface SurfaceTables {
   dustDepositionUgM2Hour: Float64Array;
 }
 
-export function buildSurfaceTables(scenario: Scenario, params: Parameters, background: { blackCarbonSnowNgG: number; dustSnowUgG: number }): SurfaceTables {
+/**
+ * The tables for every band: the scenario's loads, replaced field by field where the band has
+ * loads of its own (`impuritiesByBand`, e.g. a dirtier tongue than the accumulation area).
+ */
+export function buildSurfaceTables(
+  scenario: Scenario, params: Parameters, background: { blackCarbonSnowNgG: number; dustSnowUgG: number },
+  bandCount: number, impuritiesByBand?: readonly (BandImpurities | null)[],
+): SurfaceTables {
+  const size = bandCount * 12;
   const t: SurfaceTables = {
-    iceAlbedo: new Float64Array(12), freshBlackCarbonNgG: new Float64Array(12), freshDustUgG: new Float64Array(12),
-    blackCarbonDepositionNgM2Hour: new Float64Array(12), dustDepositionUgM2Hour: new Float64Array(12),
+    iceAlbedo: new Float64Array(size), freshBlackCarbonNgG: new Float64Array(size), freshDustUgG: new Float64Array(size),
+    blackCarbonDepositionNgM2Hour: new Float64Array(size), dustDepositionUgM2Hour: new Float64Array(size),
   };
-  for (let m = 0; m < 12; m++) {
-    t.iceAlbedo[m] = iceAlbedo(params.iceAlbedo, monthValue(scenario.blackCarbonIceNgG, m), monthValue(scenario.dustIceUgG, m), {
-      blackCarbonSlope: params.iceAlbedoBlackCarbonSlope,
-      dustSlope: params.iceAlbedoDustSlope,
-      floor: params.iceAlbedoFloor,
-    });
-    t.freshBlackCarbonNgG[m] = background.blackCarbonSnowNgG + monthValue(scenario.blackCarbonSnowNgG, m);
-    t.freshDustUgG[m] = background.dustSnowUgG + monthValue(scenario.dustSnowUgG, m);
-    t.blackCarbonDepositionNgM2Hour[m] = (monthValue(scenario.blackCarbonDepositionUgM2Day, m) * 1000) / 24;
-    t.dustDepositionUgM2Hour[m] = (monthValue(scenario.dustDepositionMgM2Day, m) * 1000) / 24;
+  for (let b = 0; b < bandCount; b++) {
+    const own = impuritiesByBand?.[b];
+    const loads = own ? { ...scenario, ...own } : scenario;
+    for (let m = 0; m < 12; m++) {
+      const i = b * 12 + m;
+      t.iceAlbedo[i] = iceAlbedo(params.iceAlbedo, monthValue(loads.blackCarbonIceNgG, m), monthValue(loads.dustIceUgG, m), {
+        blackCarbonSlope: params.iceAlbedoBlackCarbonSlope,
+        dustSlope: params.iceAlbedoDustSlope,
+        floor: params.iceAlbedoFloor,
+      });
+      t.freshBlackCarbonNgG[i] = background.blackCarbonSnowNgG + monthValue(loads.blackCarbonSnowNgG, m);
+      t.freshDustUgG[i] = background.dustSnowUgG + monthValue(loads.dustSnowUgG, m);
+      t.blackCarbonDepositionNgM2Hour[i] = (monthValue(scenario.blackCarbonDepositionUgM2Day, m) * 1000) / 24;
+      t.dustDepositionUgM2Hour[i] = (monthValue(scenario.dustDepositionMgM2Day, m) * 1000) / 24;
+    }
   }
   return t;
 }

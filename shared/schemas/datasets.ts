@@ -15,6 +15,8 @@ export const datasetUploadFieldsSchema = z.object({
   timeZone: z.string().trim().min(1, 'is required').refine(isTimeZone, { message: 'is not a known IANA time zone (e.g. Asia/Kathmandu)' }),
   source: z.string().trim().min(1, 'is required (who measured it, which station or product)').max(300),
   accuracy: z.string().trim().max(200).default(''),
+  /** The station that recorded the series; empty: the catchment's reference station for climate series, none for observations. */
+  stationId: z.union([z.coerce.number().int().positive(), z.literal('')]).optional().transform((v) => (v === '' ? undefined : v)),
 });
 export type DatasetUploadFields = z.input<typeof datasetUploadFieldsSchema>;
 
@@ -60,6 +62,9 @@ export type UploadPreview = z.infer<typeof uploadPreviewSchema>;
 export const datasetSchema = z.object({
   id: z.number().int(),
   catchmentId: z.number().int(),
+  /** The station that recorded it; null for observations that belong to no station (e.g. the outlet gauge). */
+  stationId: z.number().int().nullable(),
+  stationName: z.string().nullable(),
   variable: variableSchema,
   kind: z.enum(['climate', 'observation']),
   unit: z.string(),

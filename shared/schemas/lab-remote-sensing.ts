@@ -23,7 +23,7 @@ export const geodeticComparisonSchema = z.object({
     balanceMwePerYear: z.number(), sigmaMwePerYear: z.number(), simulatedMwePerYear: z.number(),
   })),
   leftOut: z.number(),
-  glacierWide: z.object({ observedMwePerYear: z.number(), simulatedMwePerYear: z.number() }),
+  glacierWide: z.object({ observedMwePerYear: z.number(), simulatedMwePerYear: z.number(), sigmaMwePerYear: z.number() }),
   scores: skillScoresSchema.nullable(),
   meanError: z.number(),
   rmse: z.number(),

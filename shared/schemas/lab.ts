@@ -174,7 +174,7 @@ export const calibrationResultSchema = z.discriminatedUnion('target', [
 ]);
 export type CalibrationResultReply = z.infer<typeof calibrationResultSchema>;
 
-export const LAB_JOB_KINDS = ['sweep', 'calibration'] as const;
+export const LAB_JOB_KINDS = ['sweep', 'calibration', 'water-balance'] as const;
 export const LAB_JOB_STATUSES = ['queued', 'running', 'done', 'failed', 'cancelled'] as const;
 export const labJobSchema = z.object({
   id: z.number().int(),

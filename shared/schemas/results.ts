@@ -32,7 +32,11 @@ export const runSetUpSchema = z.object({
   skill: z.object({
     kge: z.number(), r: z.number(), alpha: z.number(), beta: z.number(), nse: z.number(), biasPercent: z.number(),
     days: z.number().int(), from: z.string(), to: z.string(), source: z.string(),
+    /** Whether the scored discharge was routed to the outlet (else the day's melt and rain). */
+    routed: z.boolean().default(false),
   }).nullable(),
+  /** The catchment's water side the run was simulated with (runs made before it was recorded have none). */
+  waterSide: z.array(z.object({ label: z.string(), value: z.string() })).default([]),
 });
 export type RunSetUp = z.infer<typeof runSetUpSchema>;
 
@@ -55,8 +59,15 @@ export const runResultsSchema = z.object({
   totals: totalsSchema,
   setUp: runSetUpSchema,
   waterBalance: z.object({ baseline: waterBalanceSchema, variant: waterBalanceSchema }),
-  /** Daily mean discharge, m³ s⁻¹. */
+  /** Daily mean runoff as it leaves the bands (all melt and rain, unrouted), m³ s⁻¹. */
   dischargeM3s: z.object({ baseline: numbers, variant: numbers }),
+  /** Daily mean discharge at the outlet, routed through the catchment's stores; null when the run did not route. */
+  outletDischargeM3s: z.object({ baseline: numbers, variant: numbers }).nullable().default(null),
+  /** Snow each band gained (+) or lost (−) over the period by wind drift and avalanching, mm w.e. over the band; null when neither was on. */
+  bandRedistributionMm: z.object({
+    baseline: z.array(z.object({ windDrift: z.number(), avalanche: z.number() })),
+    variant: z.array(z.object({ windDrift: z.number(), avalanche: z.number() })),
+  }).nullable().default(null),
   /** Cumulative added runoff volume through the period, m³. */
   cumulativeAddedM3: numbers,
   /** Added melt over the period per band by source, mm w.e. over the band. */

@@ -25,9 +25,34 @@ export const runStartSchema = z.discriminatedUnion('method', [
 export type RunStart = z.output<typeof runStartSchema>;
 export const DEFAULT_RUN_START: RunStart = { method: 'spin-up', years: 1 };
 
+const wholeYear = (what: string) => z.number({ message: `must be a year (${what})` }).int('must be a whole year').min(1950, 'must be 1950 or later').max(2300, 'must be 2300 or earlier');
+
+/**
+ * A multi-decade (transient) run: the record's years repeated or resampled one after another,
+ * warmed along a path that reaches a global warming level (°C above 1850–1900, as IPCC AR6 counts
+ * them) by a chosen year and holds it, with a precipitation change reached in step; the glacier
+ * shrinks or grows each year by its simulated balance (Δh-parameterisation, Huss et al. 2010).
+ */
+export const transientOptionsSchema = z.object({
+  fromYear: wholeYear('first year'),
+  years: z.number({ message: 'must be a whole number of years' }).int('must be a whole number of years').min(11, 'must be at least 11 years (peak water is an 11-year mean)').max(100, 'must be at most 100 years'),
+  warmingLevelC: z.number({ message: 'must be a number (°C above 1850–1900)' }).min(1, 'must be at least 1 °C above 1850–1900').max(6, 'must be at most 6 °C above 1850–1900'),
+  targetYear: wholeYear('year the warming level is reached'),
+  /** Local warming per degree of global warming. */
+  regionalFactor: z.number({ message: 'must be a number' }).min(0.5, 'must be at least 0.5').max(3, 'must be at most 3').default(1),
+  /** Precipitation change when the warming level is reached, %. */
+  precipitationChangePercent: z.number({ message: 'must be a number (%)' }).min(-50, 'must be at least −50 %').max(50, 'must be at most +50 %').default(0),
+  /** The record's complete years in order, or drawn with replacement (seeded). */
+  recordYears: z.enum(['repeat', 'resample'], { message: 'choose repeat or resample' }).default('repeat'),
+  seed: z.number().int().min(1).max(2 ** 31 - 1).default(1),
+}).strict().refine((t) => t.targetYear > t.fromYear, { path: ['targetYear'], message: 'must come after the first year' })
+  .refine((t) => t.targetYear <= t.fromYear + t.years - 1 + 100, { path: ['targetYear'], message: 'must be within 100 years of the run' });
+export type TransientOptions = z.output<typeof transientOptionsSchema>;
+export type TransientOptionsInput = z.input<typeof transientOptionsSchema>;
+
 /** What "start a run" asks for. */
-export const startRunSchema = z.object({
-  scenarioId: z.number({ message: 'choose a scenario' }).int().positive(),
+/** A run's options besides its scenario, before the checks across them (a study shares these). */
+export const runOptionsSchema = z.object({
   /** Split the added melt among its drivers with factor separation. */
   attribution: z.boolean().default(false),
   /** Latin hypercube ensemble members; 0 for none. */
@@ -35,7 +60,18 @@ export const startRunSchema = z.object({
     .min(0, 'must be 0 (no ensemble) or more').max(MAX_ENSEMBLE_SIZE, `must be at most ${MAX_ENSEMBLE_SIZE}`).default(0),
   ensembleSeed: z.number().int().min(1).max(2 ** 31 - 1).default(1),
   start: runStartSchema.default(DEFAULT_RUN_START),
+  /** A multi-decade run instead of the scenario's period; null: the season run. */
+  transient: transientOptionsSchema.nullable().default(null),
 }).strict();
+
+export const startRunSchema = runOptionsSchema.extend({
+  scenarioId: z.number({ message: 'choose a scenario' }).int().positive(),
+}).strict().superRefine((r, ctx) => {
+  if (!r.transient) return;
+  if (r.attribution) ctx.addIssue({ code: 'custom', path: ['attribution'], message: 'a multi-decade run has no attribution; run a season for it' });
+  if (r.ensembleSize > 0) ctx.addIssue({ code: 'custom', path: ['ensembleSize'], message: 'a multi-decade run has no ensemble; run a season for it' });
+  if (r.start.method !== 'spin-up') ctx.addIssue({ code: 'custom', path: ['start'], message: 'a multi-decade run spins up through its first year' });
+});
 export type StartRun = z.input<typeof startRunSchema>;
 export type StartRunRequest = z.output<typeof startRunSchema>;
 
@@ -57,6 +93,8 @@ export const runSchema = z.object({
   period: z.object({ from: z.string(), to: z.string() }).nullable(),
   /** As requested; runs made before engine 2.0 have none. */
   start: runStartSchema.nullable(),
+  /** The warming path and record years of a multi-decade run; null for a season run. */
+  transient: transientOptionsSchema.nullable(),
   queuedAt: z.string(),
   startedAt: z.string().nullable(),
   finishedAt: z.string().nullable(),

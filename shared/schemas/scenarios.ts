@@ -66,6 +66,12 @@ export const scenarioChangesSchema = z.object({
   /** The global warming level preset the temperature change started from, if any. */
   warmingLevel: z.enum(WARMING_LEVELS).nullable().default(null),
   precipitationFactor: monthly('precipitation factor', 0, 5, '').default(1),
+  /**
+   * Where precipitation comes from: the station record (× the factor above), or the catchment's
+   * saved water-balance closure (its factor and profile, × the factor above as a change); null:
+   * as the baseline (the baseline's null is the station's).
+   */
+  precipitationSource: z.enum(['station', 'water-balance'], { message: 'choose the station record or the water-balance precipitation' }).nullable().default(null),
   /** Added to the catchment's background black carbon in fresh snow, ng/g. */
   blackCarbonSnowNgG: monthly('black carbon in snow', 0, 50_000, 'ng/g').default(0),
   /** Added black carbon on bare ice, ng/g (the user-set ice darkening rule applies). */
@@ -144,6 +150,10 @@ export const scenarioSetupSchema = z.object({
   }).nullable(),
   /** The catchment's background loads in fresh snow, which a scenario's snow loads add to. */
   background: z.object({ blackCarbonSnowNgG: z.number(), dustSnowUgG: z.number() }),
+  /** The kept water-balance closure a scenario may take its precipitation from; null when none is kept. */
+  waterBalance: z.object({
+    precipitationFactor: z.number(), ratio: z.number(), period: z.object({ from: z.string(), to: z.string() }), savedBy: z.string(), savedAt: z.string(),
+  }).nullable().default(null),
 });
 export type ScenarioSetup = z.infer<typeof scenarioSetupSchema>;
 

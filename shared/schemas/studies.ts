@@ -1,12 +1,12 @@
 import { z } from 'zod';
 import { catchmentFormSchema } from './catchments';
-import { startRunSchema } from './runs';
+import { runOptionsSchema } from './runs';
 import { isReservedScenarioName, scenarioChangesSchema, BASELINE_NAME } from './scenarios';
 
 const name = z.string().trim().min(1, 'is required').max(80, 'must be at most 80 characters');
 
-/** What every run of a study shares: a single run's options without its scenario. */
-export const studyOptionsSchema = startRunSchema.omit({ scenarioId: true });
+/** What every run of a study shares: a single season run's options without its scenario (a study's regional totals add season runs). */
+export const studyOptionsSchema = runOptionsSchema.omit({ transient: true });
 export type StudyOptions = z.output<typeof studyOptionsSchema>;
 
 /** The values a template may set differently for one catchment (catchment-wide numbers). */

@@ -3,6 +3,7 @@ import {
   calibrationHistorySchema, labJobSchema, referenceModelsSchema, savedCalibrationSchema, skillReplySchema, stakeSkillReplySchema, surfaceResponseSchema,
   type CalibrateRequest, type CalibrationSetInput, type LabPeriod, type SweepRequest,
 } from '@shared/schemas/lab';
+import { closureHistorySchema, savedClosureSchema, type WaterBalanceRequestInput } from '@shared/schemas/water-balance';
 import { geodeticSkillReplySchema, snowCoverSkillReplySchema } from '@shared/schemas/lab-remote-sensing';
 import { api } from './http';
 
@@ -27,4 +28,8 @@ export const labApi = {
   job: (jobId: number, signal?: AbortSignal) => api.get(`/api/lab/jobs/${jobId}`, labJobSchema, { quiet: true, signal }),
   cancelJob: (jobId: number) => api.post(`/api/lab/jobs/${jobId}/cancel`, undefined, { schema: labJobSchema }),
   jobs: (id: number) => api.get(`${base(id)}/jobs`, z.object({ jobs: z.array(labJobSchema) })),
+  startWaterBalance: (id: number, request: WaterBalanceRequestInput) => api.post(`${base(id)}/water-balance`, request, { schema: labJobSchema, quiet: true }),
+  closures: (id: number) => api.get(`${base(id)}/water-balance`, closureHistorySchema),
+  keepClosure: (id: number, jobId: number, note: string) => api.put(`${base(id)}/water-balance`, { jobId, note }, { schema: savedClosureSchema }),
+  closureCsvUrl: (id: number) => `${base(id)}/water-balance.csv`,
 };

@@ -4,12 +4,14 @@ import {
 } from '@shared/schemas/scenarios';
 import { runListSchema, runReplySchema, type StartRun } from '@shared/schemas/runs';
 import { runResultsReplySchema } from '@shared/schemas/results';
+import { transientResultsReplySchema } from '@shared/schemas/transient-results';
+import { waterInputsSchema } from '@shared/schemas/water-inputs';
 import { api } from './http';
 
 const base = (catchmentId: number) => `/api/catchments/${catchmentId}`;
 
-/** Stored catchment and forcing for the builder's preview; the engine validates them when it runs. */
-const previewInputSchema = z.object({ catchment: z.record(z.string(), z.unknown()), forcing: z.record(z.string(), z.unknown()) });
+/** Stored catchment, forcing and water side for the builder's preview; the engine validates them when it runs. */
+const previewInputSchema = z.object({ catchment: z.record(z.string(), z.unknown()), forcing: z.record(z.string(), z.unknown()), water: waterInputsSchema });
 export type PreviewInput = z.infer<typeof previewInputSchema>;
 
 /** Typed calls for scenarios, runs and results of one catchment. */
@@ -28,5 +30,6 @@ export const runsApi = {
   startRun: (catchmentId: number, body: StartRun) => api.post(`${base(catchmentId)}/runs`, body, { schema: runReplySchema }),
   cancelRun: (catchmentId: number, id: number) => api.post(`${base(catchmentId)}/runs/${id}/cancel`, undefined, { schema: runReplySchema }),
   results: (catchmentId: number, id: number) => api.get(`${base(catchmentId)}/runs/${id}/results`, runResultsReplySchema),
-  exportUrl: (catchmentId: number, id: number, file: 'bands.csv' | 'daily.csv') => `${base(catchmentId)}/runs/${id}/export/${file}`,
+  years: (catchmentId: number, id: number) => api.get(`${base(catchmentId)}/runs/${id}/years`, transientResultsReplySchema),
+  exportUrl: (catchmentId: number, id: number, file: 'bands.csv' | 'daily.csv' | 'years.csv') => `${base(catchmentId)}/runs/${id}/export/${file}`,
 };

@@ -49,6 +49,12 @@ export const routes: RouteRecordRaw[] = [
         meta: { access: 'runScenarios', title: 'Results' },
       },
       {
+        path: 'catchments/:id(\\d+)/runs/:runId(\\d+)/years',
+        name: 'transient-results',
+        component: () => import('src/pages/TransientResultsPage.vue'),
+        meta: { access: 'runScenarios', title: 'Multi-decade results' },
+      },
+      {
         path: 'lab',
         name: 'lab',
         component: () => import('src/pages/LabPage.vue'),

@@ -5,7 +5,8 @@ import { createOrganisation, signedInAgent, unique, type TestOrg } from '../supp
 import { createDemoCatchment } from '../support/lab-catchment';
 import { grantActivePlan } from '../support/paid-plan';
 import { waitForRun } from '../support/runs';
-import { calibrationHistorySchema, labJobSchema, skillReplySchema, stakeSkillReplySchema, surfaceResponseSchema, sweepResultSchema, calibrationResultSchema, type LabJob } from '../../shared/schemas/lab';
+import { waitForJob } from '../support/lab-jobs';
+import { calibrationHistorySchema, skillReplySchema, stakeSkillReplySchema, surfaceResponseSchema, sweepResultSchema, calibrationResultSchema } from '../../shared/schemas/lab';
 import { nse } from '../../shared/melt/index';
 
 let t: TestApp;
@@ -16,17 +17,6 @@ let catchmentId: number;
 let otherCatchmentId: number;
 const season = { from: '2022-06-01', to: '2022-08-31' };
 const query = `band=6&from=${season.from}&to=${season.to}`;
-
-/** Waits up to two minutes: a calibration simulates whole spun-up seasons, searched and then sampled for behavioural ranges. */
-async function waitForJob(agent: Awaited<ReturnType<typeof signedInAgent>>, id: number): Promise<LabJob> {
-  for (let i = 0; i < 1200; i++) {
-    const res = await agent.get(`/api/lab/jobs/${id}`);
-    const job = labJobSchema.parse(res.body);
-    if (job.status !== 'running' && job.status !== 'queued') return job;
-    await new Promise((r) => setTimeout(r, 100));
-  }
-  throw new Error('job did not finish');
-}
 
 beforeAll(async () => {
   t = createTestApp({ WORKER_THREADS: "1" });

@@ -266,7 +266,7 @@ describe('run lifecycle', () => {
       expect(again.status).toBe(422);
       expect(again.body.error.message).toMatch(/elevation bands|precipitation|temperature/);
       const setup = await agent.get(`/api/catchments/${id}/scenario-setup`);
-      expect(setup.body).toEqual({ record: null, defaultPeriod: null, calibration: null, background: { blackCarbonSnowNgG: 30, dustSnowUgG: 10 } });
+      expect(setup.body).toEqual({ record: null, defaultPeriod: null, calibration: null, background: { blackCarbonSnowNgG: 30, dustSnowUgG: 10 }, waterBalance: null });
     } finally {
       await plain.close();
     }

@@ -5,7 +5,7 @@ import { DEFAULT_RUN_START } from '../../shared/schemas/runs';
 import type { AppContext } from '../../server/context';
 import type { JobPriority } from '../../server/queue/jobs';
 import { insertBaseline } from '../../server/services/catchments/baseline-scenario';
-import { saveRunInputs, type RunInputs } from '../../server/services/runs/run-inputs';
+import { saveRunInputs, seasonRunInputs, type RunInputs } from '../../server/services/runs/run-inputs';
 import { TenantScope } from '../../server/services/tenant-scope';
 import { unique } from './factories';
 import { SEASON } from './runs';
@@ -17,7 +17,7 @@ export function valleyRunInputs(options: { ensembleSize?: number; blackCarbonSno
   const changes = scenarioChangesSchema.parse({ period: SEASON, blackCarbonSnowNgG: options.blackCarbonSnowNgG ?? 300 });
   const plan = planRun({ changes, baselineChanges: baseline, attribution: false, ensembleSize: options.ensembleSize ?? 0, ensembleSeed: 7 },
     catchment.bands.map((b) => (b.lowerM + b.upperM) / 2));
-  return { stored: { catchment, forcing }, start: DEFAULT_RUN_START, plans: plan.members };
+  return seasonRunInputs({ catchment, forcing }, DEFAULT_RUN_START, plan.members);
 }
 
 /**

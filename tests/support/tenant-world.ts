@@ -2,6 +2,7 @@ import { gzipSync } from 'node:zlib';
 import type { Knex } from 'knex';
 import { insertBandTable } from '../../server/services/catchments/band-tables';
 import { insertBaseline } from '../../server/services/catchments/baseline-scenario';
+import { insertReferenceStation } from '../../server/services/stations/reference-station';
 import { cellsName, hillshadeName } from '../../server/services/geodata/derivation-service';
 import { GeodataStore } from '../../server/services/geodata/geodata-store';
 import { encodeGreyAlphaPng } from '../../server/services/geodata/png';
@@ -14,7 +15,7 @@ export interface TenantWorld extends TestOrg {
   marker: string;
   ids: {
     catchment: number; dataset: number; scenario: number; run: number; labJob: number; briefing: number; member: number; invited: number; sharedClient: number;
-    geodataUpload: number; derivation: number; study: number;
+    geodataUpload: number; derivation: number; station: number; study: number;
   };
   uploadToken: string;
 }
@@ -34,6 +35,10 @@ export async function createTenantWorld(db: Knex, geodataDir: string): Promise<T
     station_name: `${marker} camp`, station_elevation_m: 3000, outlet_description: '',
   });
   await insertBaseline(new TenantScope(db, organisation_id), catchment!, null);
+  const reference = await insertReferenceStation(new TenantScope(db, organisation_id), catchment!, `${marker} camp`, 3000);
+  const [station] = await db('stations').insert({
+    organisation_id, catchment_id: catchment, name: `${marker} pass`, network: marker, elevation_m: 3150, accuracy: '[]', is_reference: false,
+  });
   const scenario = (await db('scenarios').where({ catchment_id: catchment }).first('id')).id as number;
   await insertBandTable(new TenantScope(db, organisation_id), catchment!, [
     { lowerM: 3000, upperM: 3200, areaKm2: 2, slopeDeg: 10, aspectDeg: 180, glacierFraction: 0.5, debrisFraction: 0, debrisThicknessM: 0 },
@@ -63,7 +68,7 @@ export async function createTenantWorld(db: Knex, geodataDir: string): Promise<T
     map: JSON.stringify(map), stored_prefix: storedPrefix, seconds: 0, created_by: org.users.consultant.id,
   });
   const [dataset] = await db('datasets').insert({
-    organisation_id, catchment_id: catchment, variable: 'temperature', kind: 'climate', unit: '°C', original_unit: '°C', time_step: 'hourly',
+    organisation_id, catchment_id: catchment, station_id: reference, variable: 'temperature', kind: 'climate', unit: '°C', original_unit: '°C', time_step: 'hourly',
     time_zone: 'Asia/Kolkata', source: marker, accuracy: '', file_name: `${marker}.csv`, uploaded_by_name: marker,
     first_at: '2024-01-01 00:00', last_at: '2024-01-01 00:00', value_count: 1,
   });
@@ -97,7 +102,7 @@ export async function createTenantWorld(db: Knex, geodataDir: string): Promise<T
     ...org, marker, uploadToken,
     ids: {
       catchment: catchment!, dataset: dataset!, scenario, run: run!, labJob: labJob!, briefing: briefing!, member: org.users.scientist.id, invited: invited!,
-      sharedClient: org.users.client.id, geodataUpload: geodataUpload!, derivation: derivation!, study: study!,
+      sharedClient: org.users.client.id, geodataUpload: geodataUpload!, derivation: derivation!, station: station!, study: study!,
     },
   };
 }
@@ -117,6 +122,7 @@ export function pathIn(world: TenantWorld, path: string): string {
       if (param === 'userId') return ids.sharedClient;
       if (param === 'uploadId') return ids.geodataUpload;
       if (param === 'derivationId') return ids.derivation;
+      if (param === 'stationId') return ids.station;
       const bySegment: Record<string, number> = { scenarios: ids.scenario, runs: ids.run, briefings: ids.briefing, members: ids.member, invitations: ids.invited, studies: ids.study };
       if (bySegment[segment] !== undefined) return bySegment[segment];
       throw new Error(`no record for :${param} after /${segment} in ${path}`);
@@ -127,7 +133,7 @@ export function pathIn(world: TenantWorld, path: string): string {
 
 /** Every row of the world's organisation in the tables routes can change, to prove a foreign caller changed none. */
 export async function snapshotOf(db: Knex, world: TenantWorld): Promise<string> {
-  const tables = ['catchments', 'band_tables', 'elevation_bands', 'geodata_uploads', 'band_derivations', 'datasets', 'pending_uploads', 'scenarios', 'runs', 'lab_jobs', 'briefings', 'briefing_versions', 'briefing_shares', 'briefing_comments', 'briefing_events', 'studies', 'study_catchments', 'study_scenarios', 'study_scenario_values', 'study_runs', 'users'];
+  const tables = ['catchments', 'band_tables', 'elevation_bands', 'geodata_uploads', 'band_derivations', 'stations', 'catchment_water_settings', 'water_balance_closures', 'datasets', 'pending_uploads', 'scenarios', 'runs', 'run_years', 'lab_jobs', 'briefings', 'briefing_versions', 'briefing_shares', 'briefing_comments', 'briefing_events', 'studies', 'study_catchments', 'study_scenarios', 'study_scenario_values', 'study_runs', 'users'];
   const rows = await Promise.all(tables.map((table) => db(table).where({ organisation_id: world.organisationId }).orderBy('id').select()));
   const values = await db('dataset_values').where({ organisation_id: world.organisationId }).orderBy(['dataset_id', 't']).select();
   return JSON.stringify([...rows, values]);

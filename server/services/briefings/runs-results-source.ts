@@ -10,7 +10,7 @@ import { readChanges } from '../runs/scenario-service';
 import type { TenantScope } from '../tenant-scope';
 import type { BriefingResultsSource, ComparisonForBriefing } from './comparison';
 
-interface DatasetRow { variable: string; kind: string; source: string; accuracy: string; file_name: string }
+interface DatasetRow { variable: string; kind: string; source: string; accuracy: string; file_name: string; station_name: string | null }
 
 /** Briefing numbers from finished runs, through the results service (so briefings and results screens agree). */
 export class RunsResultsSource implements BriefingResultsSource {
@@ -27,6 +27,9 @@ export class RunsResultsSource implements BriefingResultsSource {
       const row = await scope.from('runs').where({ id: runId, catchment_id: catchmentId }).first() as RunRow | undefined;
       if (!row) throw validationFailed(`Run #${runId} is not a run of this catchment.`, field);
       if (row.status !== 'done') throw validationFailed(`Run #${runId} is ${row.status}; only finished runs can be reported.`, field);
+      if (row.transient_options) {
+        throw validationFailed(`Run #${runId} is a multi-decade run; a briefing compares season runs (its results and CSV are on its own page).`, field);
+      }
       if (row.is_baseline || !row.baseline_changes) {
         throw validationFailed(`Run #${runId} is a baseline run; choose variant runs (each carries its baseline).`, field);
       }
@@ -48,8 +51,9 @@ export class RunsResultsSource implements BriefingResultsSource {
         'selection.runIds',
       );
     }
-    const datasets = (await scope.from('datasets').where({ catchment_id: catchmentId }).orderBy(['kind', 'variable'])
-      .select('variable', 'kind', 'source', 'accuracy', 'file_name')) as DatasetRow[];
+    const datasets = (await scope.from('datasets').leftJoin('stations', 'stations.id', 'datasets.station_id').where('datasets.catchment_id', catchmentId)
+      .orderBy(['datasets.kind', 'datasets.variable', 'stations.elevation_m'])
+      .select('datasets.variable', 'datasets.kind', 'datasets.source', 'datasets.accuracy', 'datasets.file_name', 'stations.name as station_name')) as DatasetRow[];
     const firstChanges = readChanges(first.row.changes);
     return {
       baselineName: BASELINE_NAME,
@@ -57,7 +61,7 @@ export class RunsResultsSource implements BriefingResultsSource {
       runs: picked.map((p) => ({ results: p.results, scenarioValues: scenarioValues(readChanges(p.row.changes)) })),
       parameters: parameterValues(firstChanges.parameters),
       dataSources: datasets.map((d) => ({
-        name: d.file_name || variableSpec(d.variable as Variable).label,
+        name: `${d.station_name ? `${d.station_name}: ` : ''}${d.file_name || variableSpec(d.variable as Variable).label}`,
         variables: `${variableSpec(d.variable as Variable).label} (${d.kind})`,
         source: d.source,
         accuracy: d.accuracy || 'not stated',

@@ -4,6 +4,7 @@ import type { z } from 'zod';
 import { conflict, notFound } from '../../errors';
 import type { TenantScope } from '../tenant-scope';
 import { insertBaseline } from './baseline-scenario';
+import { insertReferenceStation, syncReferenceStation } from '../stations/reference-station';
 
 export interface CatchmentRow {
   id: number;
@@ -97,12 +98,13 @@ export class CatchmentService {
     return { catchments: rows.map(toCatchment), total: Number(total), page: query.page, perPage: query.perPage };
   }
 
-  /** A new catchment with its baseline scenario, in one transaction. */
+  /** A new catchment with its baseline scenario and its reference station, in one transaction. */
   async create(scope: TenantScope, fields: CatchmentFields, userId: number): Promise<Catchment> {
     await this.assertNameFree(scope, fields.name);
     const id = await scope.transaction(async (s) => {
       const catchmentId = await s.insert('catchments', { ...toColumns(fields), created_by: userId });
       await insertBaseline(s, catchmentId, userId);
+      await insertReferenceStation(s, catchmentId, fields.stationName, fields.stationElevationM);
       return catchmentId;
     });
     return this.get(scope, id);
@@ -111,7 +113,11 @@ export class CatchmentService {
   async update(scope: TenantScope, id: number, fields: CatchmentFields): Promise<Catchment> {
     await scope.findOr404('catchments', id, 'Catchment');
     await this.assertNameFree(scope, fields.name, id);
-    await scope.from('catchments').where('id', id).update({ ...toColumns(fields), updated_at: scope.db.fn.now() });
+    await this.assertStationNameFree(scope, id, fields.stationName);
+    await scope.transaction(async (s) => {
+      await s.from('catchments').where('id', id).update({ ...toColumns(fields), updated_at: s.db.fn.now() });
+      await syncReferenceStation(s, id, fields.stationName, fields.stationElevationM);
+    });
     return this.get(scope, id);
   }
 
@@ -130,6 +136,12 @@ export class CatchmentService {
     await scope.findOr404('catchments', id, 'Catchment');
     await scope.from('catchments').where('id', id).update({ archived_at: archived ? scope.db.fn.now() : null });
     return this.get(scope, id);
+  }
+
+  /** The reference station's new name must not be another station's of the catchment. */
+  private async assertStationNameFree(scope: TenantScope, catchmentId: number, name: string): Promise<void> {
+    const clash = await scope.from('stations').where({ catchment_id: catchmentId, name, is_reference: false }).first('id');
+    if (clash) throw conflict('Another station of this catchment has this name.', 'stationName');
   }
 
   private async assertNameFree(scope: TenantScope, name: string, exceptId?: number): Promise<void> {

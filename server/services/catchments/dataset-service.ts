@@ -1,7 +1,8 @@
 import { STAKE_VARIABLE, variableSpec, type Variable } from '../../../shared/schemas/dataset-variables';
 import type { StakeReading } from '../../../shared/schemas/stakes';
 import type { Dataset, MonthlySummary, Series } from '../../../shared/schemas/datasets';
-import { notFound } from '../../errors';
+import { notFound, validationFailed } from '../../errors';
+import { stationOfCatchment } from '../stations/station-rows';
 import { csvDocument } from '../../../shared/csv/csv-writing';
 import { roundTo } from '../../../shared/text/numbers';
 import { csvFile, type DownloadFile } from '../download-file';
@@ -14,6 +15,10 @@ export interface DatasetRow {
   id: number;
   organisation_id: number;
   catchment_id: number;
+  station_id: number | null;
+  /** From the stations join (datasetsWithStations). */
+  station_name?: string | null;
+  station_network?: string | null;
   variable: Variable;
   kind: 'climate' | 'observation';
   unit: string;
@@ -37,6 +42,8 @@ export function toDataset(row: DatasetRow): Dataset {
   return {
     id: row.id,
     catchmentId: row.catchment_id,
+    stationId: row.station_id ?? null,
+    stationName: row.station_name ?? null,
     variable: row.variable,
     kind: row.kind,
     unit: row.unit,
@@ -55,19 +62,36 @@ export function toDataset(row: DatasetRow): Dataset {
   };
 }
 
-/** Stored series of a catchment: list, values on a regular grid, monthly summary, CSV, delete. */
+/** The organisation's datasets with the name of the station each belongs to. */
+export function datasetsWithStations(scope: TenantScope) {
+  return scope.from<DatasetRow>('datasets').leftJoin('stations', 'stations.id', 'datasets.station_id').select('datasets.*', 'stations.name as station_name', 'stations.network as station_network');
+}
+
+/** Stored series of a catchment: list, values on a regular grid, monthly summary, CSV, station, delete. */
 export class DatasetService {
   async list(scope: TenantScope, catchmentId: number): Promise<Dataset[]> {
     await scope.findOr404('catchments', catchmentId, 'Catchment');
-    const rows = await scope.from<DatasetRow>('datasets').where('catchment_id', catchmentId).orderBy(['kind', 'variable', 'id']);
+    const rows = await datasetsWithStations(scope).where('datasets.catchment_id', catchmentId).orderBy(['datasets.kind', 'datasets.variable', 'datasets.id']);
     return rows.map(toDataset);
   }
 
   async row(scope: TenantScope, catchmentId: number, datasetId: number): Promise<DatasetRow> {
     await scope.findOr404('catchments', catchmentId, 'Catchment');
-    const row = await scope.findOr404<DatasetRow>('datasets', datasetId, 'Dataset');
-    if (row.catchment_id !== catchmentId) throw notFound('Dataset');
+    const row = await datasetsWithStations(scope).where('datasets.id', datasetId).first();
+    if (!row || row.catchment_id !== catchmentId) throw notFound('Dataset');
     return row;
+  }
+
+  /**
+   * Moves a dataset to another station of the catchment (a series uploaded under the wrong one).
+   * Climate series always belong to a station; observations may belong to none.
+   */
+  async assignStation(scope: TenantScope, catchmentId: number, datasetId: number, stationId: number | null): Promise<Dataset> {
+    const row = await this.row(scope, catchmentId, datasetId);
+    if (stationId === null && row.kind === 'climate') throw validationFailed('A climate series belongs to the station that recorded it; choose one.', 'stationId');
+    if (stationId !== null) await stationOfCatchment(scope, catchmentId, stationId);
+    await scope.from('datasets').where('id', datasetId).update({ station_id: stationId });
+    return toDataset(await this.row(scope, catchmentId, datasetId));
   }
 
   async series(scope: TenantScope, catchmentId: number, datasetId: number): Promise<Series> {
@@ -128,7 +152,7 @@ export class DatasetService {
   }
 }
 
-function monthsBetween(first: string, last: string): string[] {
+export function monthsBetween(first: string, last: string): string[] {
   const months: string[] = [];
   let [y, m] = first.slice(0, 7).split('-').map(Number);
   const end = last.slice(0, 7);
@@ -141,7 +165,7 @@ function monthsBetween(first: string, last: string): string[] {
   }
 }
 
-function expectedStepsInMonth(month: string, first: string, last: string, step: 'hourly' | 'daily'): number {
+export function expectedStepsInMonth(month: string, first: string, last: string, step: 'hourly' | 'daily'): number {
   const [y, m] = month.split('-').map(Number);
   const size = STEP_MINUTES[step];
   const monthStart = Date.UTC(y, m - 1, 1) / 60_000;

@@ -13,6 +13,7 @@ import type { DatasetRow } from './dataset-service';
 import { readDatasetValues } from './dataset-values';
 import { valuesOnGrid } from './series-grid';
 import { climateRecord } from '../runs/climate-record';
+import { drivingDatasets } from '../stations/station-rows';
 import type { TenantScope } from '../tenant-scope';
 
 const isoDate = z.string().refine(isIsoDate, { message: 'must be a real date written YYYY-MM-DD' });
@@ -102,7 +103,7 @@ async function spinUpFrom(scope: TenantScope, catchmentId: number, periodFrom: s
 async function assemble(scope: TenantScope, bands: BandService, catchment: CatchmentRow, p: z.output<typeof simulationPeriodSchema>, from: string): Promise<AssembledInputs> {
   const catchmentId = catchment.id;
   const bandRows = await bands.list(scope, catchmentId, { terrain: true });
-  const rows: DatasetRow[] = await scope.from<DatasetRow>('datasets').where('catchment_id', catchmentId).orderBy('id', 'desc');
+  const rows: DatasetRow[] = await drivingDatasets(scope, catchmentId).orderBy('datasets.id', 'desc');
   const newest = (variable: Variable, step?: TimeStep) => rows.find((r) => r.variable === variable && (!step || r.time_step === step));
 
   const missing: AssembledInputs['missing'] = [];

@@ -6,7 +6,8 @@ import { datasetUploadFieldsSchema, type Dataset, type UploadPreview } from '../
 import type { z } from 'zod';
 import { AppError, conflict, notFound, validationFailed } from '../../errors';
 import type { ReadUpload } from './csv/read-upload';
-import { toDataset, type DatasetRow } from './dataset-service';
+import { datasetsWithStations, toDataset, type DatasetRow } from './dataset-service';
+import { referenceStation, stationOfCatchment } from '../stations/station-rows';
 import { insertDatasetValues, insertStakeReadings } from './dataset-values';
 import type { TenantScope } from '../tenant-scope';
 import type { UploadPool } from './upload-pool';
@@ -53,6 +54,7 @@ export class UploadService {
 
   async preview(scope: TenantScope, catchmentId: number, file: UploadedFile, fields: UploadFields, user: Uploader): Promise<UploadPreview> {
     await scope.findOr404('catchments', catchmentId, 'Catchment');
+    if (fields.stationId !== undefined) await stationOfCatchment(scope, catchmentId, fields.stationId);
     const read = await this.pool.read(file.buffer, fields);
     await scope.from('pending_uploads').where('expires_at', '<', new Date()).delete();
     const token = randomBytes(24).toString('base64url');
@@ -80,6 +82,8 @@ export class UploadService {
       throw validationFailed('The file has problems that must be fixed before it can be stored; nothing was stored.', 'file', { problems: read.preview.problems });
     }
     const spec = variableSpec(fields.variable);
+    // A climate series without a named station is the reference station's, as before stations existed.
+    const stationId = fields.stationId ?? (spec.kind === 'climate' ? (await referenceStation(scope, catchmentId)).id : null);
     const datasetId = await scope.transaction(async (s) => {
       // The claim: only the confirm that marks the pending row goes on (the others wait on its row lock, then
       // find it marked); the mark goes if this transaction fails. What was read is no longer needed.
@@ -87,6 +91,7 @@ export class UploadService {
       if (claimed !== 1) throw alreadyStored();
       const id = await s.insert('datasets', {
         catchment_id: catchmentId,
+        station_id: stationId,
         variable: fields.variable,
         kind: spec.kind,
         unit: spec.storedUnit,
@@ -107,8 +112,8 @@ export class UploadService {
       else await insertDatasetValues(s.db, ids, read.times, read.values);
       return id;
     });
-    const row = await scope.findOr404<DatasetRow>('datasets', datasetId, 'Dataset');
-    return toDataset(row);
+    const row = await datasetsWithStations(scope).where('datasets.id', datasetId).first();
+    return toDataset(row as DatasetRow);
   }
 
   async discard(scope: TenantScope, catchmentId: number, token: string): Promise<void> {

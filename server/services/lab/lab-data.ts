@@ -8,14 +8,16 @@ import type { DatasetRow } from '../catchments/dataset-service';
 import { readDatasetValues, readStakeReadings } from '../catchments/dataset-values';
 import { buildSimulationInputs, requireReadyInputs } from '../catchments/simulation-inputs';
 import type { TenantScope } from '../tenant-scope';
+import { drivingDatasets } from '../stations/station-rows';
+import type { WaterInputSource } from '../water/water-inputs';
 
 /** Stored data the lab computes from: the climate forcing with a spin-up, and observed discharge. */
 export class LabData {
-  constructor(private readonly bands: BandService) {}
+  constructor(private readonly bands: BandService, private readonly water: WaterInputSource) {}
 
   /** First and last dates on which both temperature and precipitation are recorded, or null without them. */
   async recordRange(scope: TenantScope, catchmentId: number): Promise<Period | null> {
-    const rows: DatasetRow[] = await scope.from<DatasetRow>('datasets').where({ catchment_id: catchmentId, kind: 'climate' }).orderBy('id', 'desc');
+    const rows: DatasetRow[] = await drivingDatasets(scope, catchmentId).orderBy('datasets.id', 'desc');
     const newest = (variables: string[]) => rows.find((r) => variables.includes(r.variable) && r.first_at && r.last_at);
     const temperature = newest(['temperature', 'temperatureMin']);
     const precipitation = newest(['precipitation']);
@@ -32,7 +34,9 @@ export class LabData {
       throw validationFailed(`The period starts on ${period.from}, before the climate record begins (${start}).`, 'from');
     }
     const input = requireReadyInputs(await buildSimulationInputs(scope, this.bands, catchmentId, period, { spinUpYears: 1 }));
-    return { catchment: input.catchment, forcing: input.forcing, parameters: set.parameters, precipitationFactor: set.precipitationFactor };
+    // The lab simulates as runs do: with the catchment's gradients, redistribution and routing, on the station precipitation.
+    const water = await this.water.inputs(scope, catchmentId);
+    return { catchment: input.catchment, forcing: input.forcing, parameters: set.parameters, precipitationFactor: set.precipitationFactor, water };
   }
 
   /** Stake readings of the newest stake dataset. */

@@ -8,6 +8,6 @@ import type { ThreadBudget } from '../thread-budget';
  */
 export class LabPool extends ThreadPool<LabTask, unknown> {
   constructor(budget: ThreadBudget) {
-    super(new URL('../../workers/lab-worker.ts', import.meta.url), budget, 'interactive');
+    super(new URL('../../workers/lab-worker.ts', import.meta.url), budget, 'interactive', true);
   }
 }

@@ -16,6 +16,7 @@ import type { BandService } from '../catchments/band-service';
 import type { TenantScope } from '../tenant-scope';
 import type { CalibrationStore } from './calibration-store';
 import { LabData } from './lab-data';
+import type { WaterServices } from '../water';
 import { LabJobs } from './lab-jobs';
 import { RemoteSensingLab } from './remote-sensing-lab';
 import type { LabRunner } from './lab-queue';
@@ -30,8 +31,8 @@ export class LabService {
   /** Snow-cover maps and the geodetic balance as calibration targets. */
   readonly remoteSensing: RemoteSensingLab;
 
-  constructor(db: Knex, bands: BandService, readonly pool: LabRunner, readonly calibrations: CalibrationStore) {
-    this.data = new LabData(bands);
+  constructor(db: Knex, bands: BandService, readonly pool: LabRunner, readonly calibrations: CalibrationStore, water: WaterServices) {
+    this.data = new LabData(bands, water.waterInputs);
     this.jobs = new LabJobs(db);
     this.remoteSensing = new RemoteSensingLab(this.data, pool, (scope, catchmentId) => this.calibratedParameters(scope, catchmentId));
   }

@@ -7,6 +7,7 @@ import { conflict, notFound, validationFailed } from '../../errors';
 import type { CalibrationStore } from '../lab/calibration-store';
 import type { TenantScope } from '../tenant-scope';
 import { climateRecord } from './climate-record';
+import type { ClosureStore } from '../water/closure-store';
 import { defaultSeason } from '../../../shared/analysis/default-season';
 import { RETIRED_PARAMETER_NAMES } from '../../../shared/melt/parameters';
 
@@ -53,7 +54,7 @@ function toScenario(row: ScenarioRow): ScenarioRecord {
 
 /** Scenarios of a catchment: its baseline (made with the catchment) and any number of variants. */
 export class ScenarioService {
-  constructor(private readonly calibrations: CalibrationStore) {}
+  constructor(private readonly calibrations: CalibrationStore, private readonly closures: ClosureStore) {}
 
   async list(scope: TenantScope, catchmentId: number, includeArchived: boolean): Promise<ScenarioRecord[]> {
     await scope.findOr404('catchments', catchmentId, 'Catchment');
@@ -87,8 +88,13 @@ export class ScenarioService {
     const calibration = saved
       ? { parameters: saved.set.parameters, precipitationFactor: saved.set.precipitationFactor, savedBy: saved.savedBy, savedAt: saved.savedAt }
       : null;
+    const closure = await this.closures.current(scope, catchmentId);
+    const waterBalance = closure ? {
+      precipitationFactor: closure.closure.candidate.precipitationFactor, ratio: closure.closure.precipitationRatio.value,
+      period: closure.closure.period, savedBy: closure.savedBy, savedAt: closure.savedAt,
+    } : null;
     return {
-      record, defaultPeriod: record ? defaultSeason(record, catchment.latitude_deg) : null, calibration,
+      record, defaultPeriod: record ? defaultSeason(record, catchment.latitude_deg) : null, calibration, waterBalance,
       background: { blackCarbonSnowNgG: catchment.background_black_carbon_ng_g, dustSnowUgG: catchment.background_dust_ug_g },
     };
   }

@@ -39,14 +39,25 @@ export interface DemoValley {
   elevationChange: { dhdt: Raster; fromDate: string; toDate: string };
 }
 
+/** The glacier's surface elevation change to draw on the thinning map, m per year, by band (band mid-points, interpolated between). */
+export interface DemoThinningBand {
+  lowerM: number;
+  upperM: number;
+  dhdtMPerYear: number;
+}
+
 export interface DemoValleyOptions {
   latitudeDeg: number;
   longitudeDeg: number;
+  /** What the thinning map shows on the glacier, band by band (the seeds derive it from the demo's hidden "true" run). */
+  thinning: DemoThinningBand[];
   seed?: number;
   cellSizeM?: number;
 }
 
 const MARGIN_M = 3000;
+/** The survey dates of the demo thinning map. */
+export const DEMO_THINNING_PERIOD = { fromDate: '2000-09-15', toDate: '2020-09-15' } as const;
 const SNOW_CODES: SnowClassCodes = { snow: [1], noSnow: [0], cloud: [2], nodata: [255] };
 /** Dates and regional snow-line elevations (m) of the demo snow maps: spring retreat, late-summer minimum, first autumn snow. */
 const SNOW_DATES: [string, number, number][] = [
@@ -105,7 +116,7 @@ export function generateDemoValley(targets: DemoBandTarget[], options: DemoValle
     debrisThickness: { ...grid, values: thickness, crs: utm },
     snowMaps: snowMaps(dem, seed),
     snowClassCodes: SNOW_CODES,
-    elevationChange: { dhdt: thinningMap(dem, glacier, debris, seed), fromDate: '2000-09-15', toDate: '2020-09-15' },
+    elevationChange: { dhdt: thinningMap(dem, glacier, options.thinning, seed), ...DEMO_THINNING_PERIOD },
   };
 }
 
@@ -225,8 +236,15 @@ function snowMaps(dem: Raster, seed: number): { date: string; raster: Raster }[]
   });
 }
 
-/** Thinning strongest at the snout, fading to balance near 6000 m, damped under debris; noisy ice-free ground; voids on steep walls. */
-function thinningMap(dem: Raster, glacier: Uint8Array, debris: Uint8Array, seed: number): Raster {
+/** The given glacier elevation change, interpolated linearly in elevation between band mid-points, plus noise; noisy ice-free ground; voids on steep walls. */
+function thinningMap(dem: Raster, glacier: Uint8Array, thinning: DemoThinningBand[], seed: number): Raster {
+  const mid = thinning.map((b) => (b.lowerM + b.upperM) / 2);
+  const rateAt = (z: number) => {
+    const k = mid.findIndex((m) => m >= z);
+    if (k <= 0) return thinning[k === 0 ? 0 : thinning.length - 1].dhdtMPerYear;
+    const w = (z - mid[k - 1]) / (mid[k] - mid[k - 1]);
+    return (1 - w) * thinning[k - 1].dhdtMPerYear + w * thinning[k].dhdtMPerYear;
+  };
   const factor = 2;
   const grid: GridGeometry = { x0: dem.x0, y0: dem.y0, dx: dem.dx * factor, dy: dem.dy * factor, width: Math.floor(dem.width / factor), height: Math.floor(dem.height / factor) };
   const noise = valueNoise(seed + 61, 800, 3);
@@ -240,8 +258,7 @@ function thinningMap(dem: Raster, glacier: Uint8Array, debris: Uint8Array, seed:
       const z = dem.values[k];
       let v: number;
       if (glacier[k]) {
-        const rate = -2.4 + 2.5 * Math.min(1, Math.max(0, (z - 3800) / 2200));
-        v = rate * (debris[k] ? 0.75 : 1) + 0.25 * noise(x, y);
+        v = rateAt(z) + 0.25 * noise(x, y);
       } else {
         v = 0.03 + 0.3 * noise(x, y);
       }
