@@ -3,6 +3,8 @@ import { catchmentTableCatchmentSchema } from '../../../shared/schemas/studies';
 import { conflict, validationFailed } from '../../errors';
 import { insertBandTable } from '../catchments/band-tables';
 import { insertBaseline } from '../catchments/baseline-scenario';
+import { insertReferenceStation } from '../stations/reference-station';
+import { drivingDatasets } from '../stations/station-rows';
 import type { TenantScope } from '../tenant-scope';
 
 const CATCHMENT_COLUMNS = { name: 'name', latitudeDeg: 'latitude_deg', longitudeDeg: 'longitude_deg', timeZone: 'time_zone', stationName: 'station_name', stationElevationM: 'station_elevation_m' } as const;
@@ -45,7 +47,8 @@ export function readCatchmentTable(rows: Record<string, unknown>[]): TableCatchm
 
 /**
  * Makes the table's catchments in one transaction: each with its baseline, its band table, and the
- * station record of `climateFromCatchmentId` copied in (the region's station), set-based.
+ * reference station, and the reference station's record of `climateFromCatchmentId` copied to it
+ * (the region's station), set-based.
  */
 export async function createTableCatchments(scope: TenantScope, catchments: TableCatchment[], climateFromCatchmentId: number, userId: number): Promise<{ id: number; name: string }[]> {
   const source = await scope.findOr404<{ background_black_carbon_ng_g: number; background_dust_ug_g: number }>('catchments', climateFromCatchmentId, 'Catchment');
@@ -60,21 +63,22 @@ export async function createTableCatchments(scope: TenantScope, catchments: Tabl
         background_black_carbon_ng_g: source.background_black_carbon_ng_g, background_dust_ug_g: source.background_dust_ug_g, created_by: userId,
       });
       await insertBaseline(s, id, userId);
+      const stationId = await insertReferenceStation(s, id, String(c.fields.stationName), Number(c.fields.stationElevationM));
       await insertBandTable(s, id, c.bands, { userId });
-      await copyClimate(s, climateFromCatchmentId, id);
+      await copyClimate(s, climateFromCatchmentId, id, stationId);
       created.push({ id, name: String(c.fields.name) });
     }
     return created;
   });
 }
 
-/** Copies a catchment's climate datasets with their values to another catchment of the organisation. */
-async function copyClimate(s: TenantScope, fromId: number, toId: number): Promise<void> {
-  const datasets: { id: number }[] = await s.from('datasets').where({ catchment_id: fromId, kind: 'climate' }).select('id');
+/** Copies the series of a catchment's reference station with their values to another catchment's reference station (same organisation). */
+async function copyClimate(s: TenantScope, fromId: number, toId: number, toStationId: number): Promise<void> {
+  const datasets: { id: number }[] = await drivingDatasets(s, fromId);
   const columns = 'variable, kind, unit, original_unit, time_step, time_zone, source, accuracy, file_name, uploaded_by, uploaded_by_name, first_at, last_at, value_count';
   for (const d of datasets) {
-    await s.db.raw(`INSERT INTO datasets (organisation_id, catchment_id, ${columns}) SELECT organisation_id, ?, ${columns} FROM datasets WHERE id = ? AND organisation_id = ?`,
-      [toId, d.id, s.organisationId]);
+    await s.db.raw(`INSERT INTO datasets (organisation_id, catchment_id, station_id, ${columns}) SELECT organisation_id, ?, ?, ${columns} FROM datasets WHERE id = ? AND organisation_id = ?`,
+      [toId, toStationId, d.id, s.organisationId]);
     const [[{ id: newId }]] = (await s.db.raw('SELECT LAST_INSERT_ID() AS id')) as [[{ id: number }]];
     await s.db.raw('INSERT INTO dataset_values (dataset_id, organisation_id, t, value) SELECT ?, organisation_id, t, value FROM dataset_values WHERE dataset_id = ? AND organisation_id = ?',
       [newId, d.id, s.organisationId]);
