@@ -4,7 +4,7 @@
  * black-carbon variant, then a 50-member Latin hypercube ensemble of the same variant, then a
  * 50-year multi-decade run of baseline and variant (warming to 3 °C above 1850–1900 by 2070, the
  * glacier updated every year), each end to end (start request → results read). Meanwhile it asks GET /api/health every 25 ms and reports the slowest answer, to show the
- * API is not blocked while the worker threads simulate.
+ * API is not blocked while the worker process simulates.
  *
  * Runs against the database in the environment (DB_* variables, as the server), inside a
  * throw-away organisation that is removed afterwards. The runs are simulated by the worker process
@@ -123,7 +123,7 @@ async function main(): Promise<void> {
   const loop = await api.stop();
 
   const days = single.results.dayCount;
-  console.log(`Demo catchment, ${DEMO_BANDS.length} bands, ${days} days hourly (${SEASON.from} … ${SEASON.to}), ${api.threads} worker thread(s):`);
+  console.log(`Demo catchment, ${DEMO_BANDS.length} bands, ${days} days hourly (${SEASON.from} … ${SEASON.to}), ${config.workerThreads} thread(s) in the worker process:`);
   console.log(`  one season, baseline + variant (${single.run.simulationCount} simulations): ${single.seconds.toFixed(2)} s end to end (target under 2 s)`);
   console.log(`  50-member ensemble (${ensemble.run.simulationCount} simulations): ${ensemble.seconds.toFixed(2)} s end to end`);
   console.log(`  added melt: ${single.results.totals.addedVolumeMillionM3.toFixed(3)} million m³; ensemble 5–95 %: ` +
