@@ -21,7 +21,8 @@ export default defineConfig({
           name: 'unit',
           include: ['shared/**/*.test.ts', 'server/**/*.test.ts', 'stripe-fake/**/*.test.ts', 'seeds/**/*.test.ts', 'scripts/**/*.test.ts'],
           environment: 'node',
-          // Whole seasons, PDF layout and DEM derivations take seconds, more on a busy machine: a guard against hangs, not a speed check.
+          // Whole seasons, PDF layout and DEM derivations take seconds, more while the suite's projects and
+          // worker processes share the machine's cores: a guard against hangs, not a speed check.
           testTimeout: 30_000,
         },
       },
@@ -42,6 +43,7 @@ export default defineConfig({
           include: ['tests/api/**/*.test.ts'],
           environment: 'node',
           setupFiles: ['tests/setup/api-log.ts'],
+          globalSetup: ['tests/setup/worker-process.ts'],
           fileParallelism: false,
           testTimeout: 30_000,
           hookTimeout: 60_000,
@@ -53,6 +55,7 @@ export default defineConfig({
           name: 'e2e',
           include: ['tests/e2e/**/*.test.ts'],
           environment: 'node',
+          globalSetup: ['tests/setup/worker-process.ts'],
           fileParallelism: false,
           testTimeout: 90_000,
           hookTimeout: 120_000,

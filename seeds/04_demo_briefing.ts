@@ -7,7 +7,10 @@ import { TenantScope } from '../server/services/tenant-scope';
 import { DEMO_ACCOUNTS, DEMO_ORGANISATION } from './data/demo-accounts';
 import { DEMO_BRIEFING, DEMO_VARIANT_SCENARIO } from './data/demo-briefing';
 import { DEMO_CATCHMENT } from './data/demo-catchment';
-import { inProcessSimulator } from './data/in-process-simulations';
+import { withWorkerProcess } from '../server/queue/worker-process';
+
+/** How long the seed waits for the demo run (a season of three bands takes seconds). */
+const DEMO_RUN_WAIT_MS = 5 * 60_000;
 
 const accountOf = (role: 'consultant' | 'client') => DEMO_ACCOUNTS.find((a) => a.role === role)!;
 
@@ -27,10 +30,10 @@ export async function seed(knex: Knex): Promise<void> {
   const consultant = await scope.from<UserRow>('users').where({ email: accountOf('consultant').email }).first();
   if (!consultant) throw new Error('The demo consultant is missing; seed the demo organisation first.');
 
-  // The API's own services, with the simulations on this thread.
-  const ctx = createContext(loadConfig(), knex, { simulator: inProcessSimulator });
+  // The API's own services; the run goes through the queue to a worker process like any other.
+  const ctx = createContext(loadConfig(), knex);
   try {
-    await runAndPublish(ctx, scope, catchment.id, scenario.id, consultant);
+    await withWorkerProcess(ctx.queues, () => runAndPublish(ctx, scope, catchment.id, scenario.id, consultant));
   } finally {
     await ctx.close();
   }
@@ -39,10 +42,9 @@ export async function seed(knex: Knex): Promise<void> {
 async function runAndPublish(ctx: AppContext, scope: TenantScope, catchmentId: number, scenarioId: number, consultant: UserRow): Promise<void> {
   const { runs, briefings, briefingSharing: sharing } = ctx;
   const { run } = await runs.start(scope, catchmentId, startRunSchema.parse({ scenarioId }), consultant.id);
-  await ctx.runExecutor.idle();
-  const finished = await runs.get(scope, catchmentId, run.id);
+  const finished = await runs.finished(scope, catchmentId, run.id, DEMO_RUN_WAIT_MS);
   if (finished.status !== 'done') {
-    // Left queued or running by an interrupted process; the server marks it failed on start-up and the next seed runs it afresh.
+    // Still queued after the wait (the workers are busy) or failed: the server's worker finishes it, and the next seed publishes.
     console.warn(`Demo briefing skipped: run #${finished.id} is ${finished.status}${finished.errorMessage ? ` (${finished.errorMessage})` : ''}.`);
     return;
   }

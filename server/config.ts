@@ -52,8 +52,20 @@ const envSchema = z.object({
    * (at least 1), keeping a core for the API.
    */
   WORKER_THREADS: z.coerce.number().int().min(0).max(64).default(0),
-  /** Runs simulated at the same time; their simulations share the worker threads. */
-  RUN_CONCURRENCY: z.coerce.number().int().min(1).max(16).default(2),
+  /** The Redis the job queue lives on (every API and worker process of one installation points at the same). */
+  REDIS_HOST: z.string().min(1).default('127.0.0.1'),
+  REDIS_PORT: z.coerce.number().int().min(1).max(65535).default(6379),
+  REDIS_PASSWORD: z.string().optional(),
+  REDIS_DB: z.coerce.number().int().min(0).max(15).default(0),
+  /** Prefix of every queue key, so installations (or test files) can share one Redis. */
+  QUEUE_PREFIX: z.string().regex(/^[a-z0-9-]+$/).default('tarnish'),
+  /**
+   * How long a worker's hold on a job lasts without being renewed: a worker that dies (killed, machine
+   * lost) gives its jobs back to the queue after about this long, and another worker takes them.
+   */
+  QUEUE_LOCK_SECONDS: z.coerce.number().positive().max(600).default(30),
+  /** Simulations one organisation may have running at once across every worker; the rest wait (fairness). */
+  ORGANISATION_CONCURRENCY: z.coerce.number().int().min(1).max(1000).default(8),
   /** Folder for uploaded geodata files and the maps drawn from them (one subfolder per organisation). */
   GEODATA_DIR: z.string().min(1).default('.local/geodata'),
   /** Uploads (file reads and stores) one organisation may have in progress at once; more answer 429. */
@@ -99,7 +111,12 @@ export interface AppConfig {
   };
   /** Worker threads all pools share (see server/services/thread-budget.ts). */
   workerThreads: number;
-  runs: { concurrency: number };
+  queue: {
+    redis: { host: string; port: number; password?: string; db: number };
+    prefix: string;
+    lockMs: number;
+    organisationConcurrency: number;
+  };
   geodata: { dir: string };
   uploads: { perOrganisation: number };
   shutdownGraceMs: number;
@@ -165,7 +182,12 @@ export function parseConfig(env: Record<string, string | undefined>): AppConfig 
       perAddressPerHour: e.MAILS_PER_ADDRESS_PER_HOUR,
     },
     workerThreads: e.WORKER_THREADS || defaultThreadCount(),
-    runs: { concurrency: e.RUN_CONCURRENCY },
+    queue: {
+      redis: { host: e.REDIS_HOST, port: e.REDIS_PORT, password: e.REDIS_PASSWORD, db: e.REDIS_DB },
+      prefix: e.QUEUE_PREFIX,
+      lockMs: e.QUEUE_LOCK_SECONDS * 1000,
+      organisationConcurrency: e.ORGANISATION_CONCURRENCY,
+    },
     geodata: { dir: path.resolve(e.GEODATA_DIR) },
     uploads: { perOrganisation: e.UPLOADS_PER_ORGANISATION },
     shutdownGraceMs: e.SHUTDOWN_GRACE_SECONDS * 1000,

@@ -16,10 +16,10 @@ describe('the composition root', () => {
     expect(() => parseConfig({ NODE_ENV: 'test', WORKER_THREADS: '-1' })).toThrow(/WORKER_THREADS/);
   });
 
-  it('gives the run, lab and PDF pools that one budget, so together they never use more threads', async () => {
+  it('gives the PDF, upload and geodata pools that one budget, so together they never use more threads', async () => {
     const ctx = createContext(config, db, { bcryptCost: 4 });
     expect(ctx.threads.threads).toBe(2);
-    for (const pool of [ctx.simulationPool, ctx.lab.pool, ctx.pdfPool]) expect(pool.budget).toBe(ctx.threads);
+    for (const pool of [ctx.pdfPool, ctx.uploads.pool, ctx.geodata.pool]) expect(pool.budget).toBe(ctx.threads);
     await ctx.close();
   });
 });

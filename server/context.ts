@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
 import type { AppConfig } from './config';
-import { createLogger, type Logger } from './logger';
+import { createLogger, safeError, type Logger } from './logger';
 import { createAuthServices, type AuthServices } from './services/auth';
 import { createBillingServices, type BillingServices } from './services/billing';
 import { createBriefingServices, type BriefingServices } from './services/briefings';
@@ -11,28 +11,34 @@ import { createLabServices, type LabServices } from './services/lab';
 import { createMailServices, type MailServices } from './services/mail';
 import type { MailInbox } from './services/mail/mail-catcher';
 import { createMemberServices, type MemberServices } from './services/members';
+import { JobQueues } from './queue/job-queues';
 import { createRunServices, type RunServices } from './services/runs';
 import { createStationServices, type StationServices } from './services/stations';
+import { createStudyServices, type StudyServices } from './services/studies';
 import { createWaterServices, type WaterServices } from './services/water';
 import type { CatchmentInputSource } from './services/runs/catchment-inputs';
-import type { Simulator } from './services/runs/simulator';
 import { ThreadBudget } from './services/thread-budget';
 
 /** Everything the routes need, built once per app by `createContext` (tests and seeds build their own). */
 export interface AppContext
-  extends AuthServices, MailServices, BillingServices, MemberServices, CatchmentServices, GeodataServices, StationServices, WaterServices, LabServices, RunServices, BriefingServices {
+  extends AuthServices, MailServices, BillingServices, MemberServices, CatchmentServices, GeodataServices, StationServices, WaterServices, LabServices, RunServices, StudyServices, BriefingServices {
   config: AppConfig;
   db: Knex;
   /** The structured log; requests, errors and background failures, never values (server/logger.ts). */
   logger: Logger;
-  /** The worker threads the run, lab and PDF pools share (`config.workerThreads`). */
+  /** The worker threads the PDF, upload and geodata pools share (`config.workerThreads`). */
   threads: ThreadBudget;
-  /** Marks work an earlier process left unfinished as failed and starts a thread per pool (server start). */
+  /** The job queues in Redis that worker processes (server/worker.ts) take simulations from. */
+  queues: JobQueues;
+  /**
+   * At server start: queues again the jobs of runs still open (idempotent), marks lab jobs an
+   * earlier process left running as failed and starts a thread per pool.
+   */
   start(): Promise<void>;
   /**
-   * Waits for runs and lab jobs under way (at most `graceMs`, after which those left end failed with
-   * the restart message; without it, until they end), then stops the worker threads and the mail
-   * transport. The database stays open.
+   * Waits for lab jobs under way (at most `graceMs`, after which those left end failed with the
+   * restart message; without it, until they end), then stops the worker threads, the queue
+   * connections and the mail transport. Runs stay queued: the workers go on with them. The database stays open.
    */
   close(graceMs?: number): Promise<void>;
 }
@@ -40,8 +46,6 @@ export interface AppContext
 export interface ContextOptions {
   /** bcrypt work factor; 12 in production, 10 elsewhere, lower in tests to keep them quick. */
   bcryptCost?: number;
-  /** Simulates run members (`{ threads; simulate() }`); the worker pool unless given. */
-  simulator?: Simulator;
   /** Where run engine inputs come from; the catchment's stored data unless given. */
   catchmentInputs?: CatchmentInputSource;
   /** Where briefing numbers come from; finished runs unless given. */
@@ -61,22 +65,24 @@ export function createContext(config: AppConfig, db: Knex, options: ContextOptio
   const memberServices = createMemberServices({ config, db, logger, auth: authServices.auth, mail: mailServices.mail });
   const catchmentServices = createCatchmentServices({ threads, uploadsPerOrganisation: config.uploads.perOrganisation });
   const geodataServices = createGeodataServices({ config, bands: catchmentServices.bands, threads });
+  const queues = new JobQueues(config.queue, (error) => logger.warn({ err: safeError(error) }, 'job queue unreachable'));
   const waterServices = createWaterServices({ bands: catchmentServices.bands });
-  const labServices = createLabServices({ db, bands: catchmentServices.bands, threads, water: waterServices });
+  const labServices = createLabServices({ db, bands: catchmentServices.bands, queues, workerThreads: config.workerThreads, water: waterServices });
   const runServices = createRunServices({
-    config, db, bands: catchmentServices.bands, calibrations: labServices.lab.calibrations, threads, water: waterServices,
-    simulator: options.simulator, catchmentInputs: options.catchmentInputs,
+    db, bands: catchmentServices.bands, calibrations: labServices.lab.calibrations, queues, water: waterServices, catchmentInputs: options.catchmentInputs,
   });
+  const studyServices = createStudyServices(runServices);
   const briefingServices = createBriefingServices({
-    results: runServices.results, invitations: memberServices.invitations, mail: mailServices.mail, publicUrl: () => config.publicUrl,
+    results: runServices.results, studyResults: studyServices.studyResults, invitations: memberServices.invitations, mail: mailServices.mail, publicUrl: () => config.publicUrl,
     threads, briefingResults: options.briefingResults,
   });
-  const pools = [runServices.simulationPool, labServices.lab.pool, briefingServices.pdfPool, catchmentServices.uploads.pool];
+  const pools = [briefingServices.pdfPool, catchmentServices.uploads.pool];
   return {
     config,
     db,
     logger,
     threads,
+    queues,
     ...authServices,
     ...mailServices,
     ...createBillingServices({ config, db, logger }),
@@ -87,23 +93,21 @@ export function createContext(config: AppConfig, db: Knex, options: ContextOptio
     ...waterServices,
     ...labServices,
     ...runServices,
+    ...studyServices,
     ...briefingServices,
     async start() {
-      // Runs and lab jobs left running cannot resume: their inputs were in the earlier process's memory.
-      await runServices.runExecutor.recover();
+      // Runs live in the database and the queue: their jobs are added again where one was lost.
+      await runServices.runQueue.recover();
+      // A lab job's steps are driven from the process that started it: one left running cannot resume.
       await labServices.lab.jobs.recover();
       for (const pool of pools) pool.warm();
     },
     async close(graceMs?: number) {
-      if (graceMs === undefined) {
-        await runServices.runExecutor.idle();
-        await labServices.lab.jobs.idle();
-      } else {
-        // One deadline for both: they wait side by side.
-        await Promise.all([runServices.runExecutor.stop(graceMs), labServices.lab.jobs.stop(graceMs)]);
-      }
+      if (graceMs === undefined) await labServices.lab.jobs.idle();
+      else await labServices.lab.jobs.stop(graceMs);
       // The geodata pool is not warmed: its threads start with the first upload.
       await Promise.all([...pools, geodataServices.geodata.pool].map((pool) => pool.close()));
+      await queues.close();
       mailServices.mail.close();
     },
   };

@@ -11,6 +11,8 @@ import { monitorEventLoopDelay } from 'node:perf_hooks';
 import bcrypt from 'bcryptjs';
 import { createApp } from '../../server/app';
 import { loadConfig } from '../../server/config';
+import { JobQueues } from '../../server/queue/job-queues';
+import { withWorkerProcess } from '../../server/queue/worker-process';
 import { createContext } from '../../server/context';
 import { createDb } from '../../server/db';
 import { createDemoCatchment } from '../../tests/support/lab-catchment';
@@ -23,7 +25,6 @@ async function main(): Promise<void> {
   const config = loadConfig();
   const db = createDb(config.db);
   const ctx = createContext(config, db);
-  ctx.lab.pool.warm(); // as the server does at start
   const server = createApp(ctx, {}).listen(0, '127.0.0.1');
   await new Promise((resolve) => server.once('listening', resolve));
   const base = `http://127.0.0.1:${(server.address() as AddressInfo).port}/api`;
@@ -95,4 +96,7 @@ async function main(): Promise<void> {
   }
 }
 
-await main();
+// The computations run on a worker process: the one of `npm start`, or one started for the benchmark.
+const queues = new JobQueues(loadConfig().queue);
+await withWorkerProcess(queues, main);
+await queues.close();

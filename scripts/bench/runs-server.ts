@@ -13,16 +13,13 @@ import { createDb } from '../../server/db';
 const config = loadConfig();
 const db = createDb(config.db);
 const ctx = createContext(config, db);
-ctx.simulationPool.warm();
-// As at server start: the worker threads load the engine before the first run arrives.
-await new Promise((r) => setTimeout(r, 3000));
 const server = createApp(ctx).listen(0, '127.0.0.1');
 await new Promise<void>((resolve) => server.once('listening', () => resolve()));
 
 const loopDelay = monitorEventLoopDelay({ resolution: 10 });
 loopDelay.enable();
 const utilisationAtStart = performance.eventLoopUtilization();
-console.log(JSON.stringify({ port: (server.address() as AddressInfo).port, threads: ctx.simulationPool.threads }));
+console.log(JSON.stringify({ port: (server.address() as AddressInfo).port, workers: (await ctx.queues.health()).workers }));
 
 process.once('SIGTERM', () => {
   loopDelay.disable();

@@ -4,11 +4,11 @@
  * black-carbon variant, then a 50-member Latin hypercube ensemble of the same variant, then a
  * 50-year multi-decade run of baseline and variant (warming to 3 °C above 1850–1900 by 2070, the
  * glacier updated every year), each end to end (start request → results read). Meanwhile it asks GET /api/health every 25 ms and reports the slowest answer, to show the
- * API is not blocked while the worker threads simulate.
+ * API is not blocked while the worker process simulates.
  *
  * Runs against the database in the environment (DB_* variables, as the server), inside a
- * throw-away organisation that is removed afterwards. The worker threads are started and given a
- * moment to load the engine first, as they are when the server starts. The API runs in a process
+ * throw-away organisation that is removed afterwards. The runs are simulated by the worker process
+ * of `npm start` when one is connected, otherwise by one started for the benchmark. The API runs in a process
  * of its own (scripts/bench/runs-server.ts) so this client does not share its event loop. Each
  * invocation varies the variant's black carbon by a fraction of a ng/g so an earlier identical run
  * is never reused.
@@ -16,6 +16,8 @@
 import bcrypt from 'bcryptjs';
 import { availableParallelism, loadavg } from 'node:os';
 import { loadConfig } from '../../server/config';
+import { JobQueues } from '../../server/queue/job-queues';
+import { withWorkerProcess } from '../../server/queue/worker-process';
 import { createDb } from '../../server/db';
 import { insertBandTable } from '../../server/services/catchments/band-tables';
 import { insertBaseline } from '../../server/services/catchments/baseline-scenario';
@@ -121,7 +123,7 @@ async function main(): Promise<void> {
   const loop = await api.stop();
 
   const days = single.results.dayCount;
-  console.log(`Demo catchment, ${DEMO_BANDS.length} bands, ${days} days hourly (${SEASON.from} … ${SEASON.to}), ${api.threads} worker thread(s):`);
+  console.log(`Demo catchment, ${DEMO_BANDS.length} bands, ${days} days hourly (${SEASON.from} … ${SEASON.to}), ${config.workerThreads} thread(s) in the worker process:`);
   console.log(`  one season, baseline + variant (${single.run.simulationCount} simulations): ${single.seconds.toFixed(2)} s end to end (target under 2 s)`);
   console.log(`  50-member ensemble (${ensemble.run.simulationCount} simulations): ${ensemble.seconds.toFixed(2)} s end to end`);
   console.log(`  added melt: ${single.results.totals.addedVolumeMillionM3.toFixed(3)} million m³; ensemble 5–95 %: ` +
@@ -136,9 +138,12 @@ async function main(): Promise<void> {
   }));
 }
 
+// The runs go to a worker process: the one of `npm start`, or one started for the benchmark.
+const queues = new JobQueues(config.queue);
 try {
-  await main();
+  await withWorkerProcess(queues, main);
 } finally {
+  await queues.close();
   await db('organisations').where('id', organisationId).delete();
   await db.destroy();
 }

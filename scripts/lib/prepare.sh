@@ -1,6 +1,7 @@
 # Shared preparation for `npm start`, `npm test` and `npm run dev`: install what is
-# missing (npm packages, Debian's MariaDB, Chromium for browser tests, GDAL's tools for the
-# geodata tests) and run a private MariaDB server on loopback. Sourced by the scripts beside it.
+# missing (npm packages, Debian's MariaDB and Redis, Chromium for browser tests, GDAL's tools for
+# the geodata tests) and run a private MariaDB server and a private Redis on loopback. Sourced by
+# the scripts beside it.
 
 log() { printf '\033[1;34m[tarnish]\033[0m %s\n' "$*"; }
 
@@ -103,13 +104,62 @@ GRANT ALL PRIVILEGES ON \`$db\`.* TO '$user'@'localhost';
 SQL
 }
 
+# stop_by_pidfile PIDFILE NAME: SIGTERM to the pid in PIDFILE, then waits (up to 10 s) for it to exit.
+stop_by_pidfile() {
+  [ -f "$1" ] || return 0
+  local pid; pid=$(cat "$1")
+  kill -TERM "$pid" 2>/dev/null || return 0
+  for _ in $(seq 1 100); do kill -0 "$pid" 2>/dev/null || break; sleep 0.1; done
+  log "$2 stopped"
+}
+
 # Stops the server we started, by its pid, and waits for it to exit.
 mariadb_stop() {
   [ "${MARIADB_OWNED:-0}" = 1 ] || return 0
-  local pidfile="$MARIADB_DIR/mariadbd.pid"
-  [ -f "$pidfile" ] || return 0
-  local pid; pid=$(cat "$pidfile")
-  kill -TERM "$pid" 2>/dev/null || return 0
-  for _ in $(seq 1 100); do kill -0 "$pid" 2>/dev/null || break; sleep 0.1; done
-  log "MariaDB stopped"
+  stop_by_pidfile "$MARIADB_DIR/mariadbd.pid" MariaDB
 }
+
+ensure_redis_installed() {
+  if ! command -v redis-server >/dev/null 2>&1; then
+    log "Installing Debian's redis-server"
+    apt_install redis-server
+  fi
+}
+
+# redis_start DIR PORT [fresh]
+# Starts redis-server on 127.0.0.1:PORT with its data (append-only file on, so a restart
+# loses nothing queued) in DIR, and waits until it answers. With "fresh" the data is
+# removed first (tests start from an empty queue). A server from an earlier run still
+# alive in DIR is reused and left running.
+redis_start() {
+  local dir port fresh
+  dir=$(realpath -m "$1"); port=$2; fresh=${3:-}
+  REDIS_DIR=$dir
+  if [ -f "$dir/redis.pid" ] && kill -0 "$(cat "$dir/redis.pid")" 2>/dev/null; then
+    log "Redis already running from $dir (pid $(cat "$dir/redis.pid"))"
+    REDIS_OWNED=0
+    [ "$fresh" = fresh ] && redis-cli -h 127.0.0.1 -p "$port" flushall >/dev/null
+    return 0
+  fi
+  [ "$fresh" = fresh ] && rm -rf "$dir"
+  mkdir -p "$dir"
+  redis-server --bind 127.0.0.1 --port "$port" --dir "$dir" --appendonly yes --appendfsync everysec \
+    --save "" --pidfile "$dir/redis.pid" --logfile "$dir/redis.log" --daemonize yes
+  REDIS_OWNED=1
+  local tries=0
+  until redis-cli -h 127.0.0.1 -p "$port" ping >/dev/null 2>&1; do
+    tries=$((tries + 1))
+    if [ $tries -gt 100 ]; then log "Redis did not answer; see $dir/redis.log"; tail -20 "$dir/redis.log"; return 1; fi
+    sleep 0.1
+  done
+  log "Redis listening on 127.0.0.1:$port (pid $(cat "$dir/redis.pid"))"
+}
+
+# Stops the Redis we started, by its pid (it writes its append-only file first).
+redis_stop() {
+  [ "${REDIS_OWNED:-0}" = 1 ] || return 0
+  stop_by_pidfile "$REDIS_DIR/redis.pid" Redis
+}
+
+# Both local servers, for the EXIT trap of the scripts beside this one.
+local_servers_stop() { redis_stop; mariadb_stop; }

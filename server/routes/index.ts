@@ -21,8 +21,10 @@ import { labRoutes } from './lab';
 import { memberRoutes } from './members';
 import { passwordResetRoutes } from './password-reset';
 import { areaRouter, fullPath, type ApiArea, type Method, type RouteAccess } from './route-table';
+import { queueRoutes } from './queue';
 import { runRoutes } from './runs';
 import { scenarioRoutes } from './scenarios';
+import { studyRoutes } from './studies';
 
 /** Every /api area, in mounting order. */
 export function apiAreas(ctx: AppContext): ApiArea[] {
@@ -45,7 +47,9 @@ export function apiAreas(ctx: AppContext): ApiArea[] {
     scenarioRoutes(ctx),
     runRoutes(ctx),
     labRoutes(ctx),
+    studyRoutes(ctx),
     briefingRoutes(ctx),
+    queueRoutes(ctx),
   ];
 }
 

@@ -23,6 +23,8 @@ export const CAPABILITIES = {
   manageMembers: ['admin'],
   /** Buy, resize and cancel the seat plan; invoices. */
   manageSeats: ['admin'],
+  /** The job queue's page: waiting, running and failed work of the organisation, and failure messages. */
+  watchQueue: ['admin'],
   /** Members who take one paid seat. */
   takeSeat: ['admin', 'consultant', 'scientist'],
 } as const satisfies Record<string, readonly Role[]>;

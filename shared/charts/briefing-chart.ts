@@ -21,15 +21,21 @@ export function briefingChartOption(chart: ChartData, options: { animation?: boo
     }
   });
   const legend = wrappingLegend(series.map((s) => String(s.name)), 480, 40);
+  // Every bar is named (ECharts would drop labels that crowd); long names, such as catchments', are slanted to fit.
+  const named = chart.type === 'bar';
+  const slanted = named && chart.categories.some((c) => String(c).length > 12);
   return {
     // Left out unless asked for, so the page's own setting (none in browser tests) applies.
     ...(options.animation === undefined ? {} : { animation: options.animation }),
     color: [...SERIES_COLOURS],
     // Wraps for as many series as the briefing has; the PDF draws the chart at about this width.
-    grid: { left: 64, right: 16, top: legend.top, bottom: 48 },
+    grid: { left: 64, right: 16, top: legend.top, bottom: slanted ? 110 : 48 },
     legend: legend.legend,
     tooltip: TOOLTIP,
-    xAxis: { type: 'category', name: chart.xName, nameLocation: 'middle', nameGap: 30, data: chart.categories },
+    xAxis: {
+      type: 'category', name: chart.xName, nameLocation: 'middle', nameGap: slanted ? 90 : 30, data: chart.categories,
+      ...(named ? { axisLabel: { interval: 0, ...(slanted ? { rotate: 25 } : {}) } } : {}),
+    },
     yAxis: { type: 'value', name: chart.unit ? `${chart.yName} (${chart.unit})` : chart.yName, nameLocation: 'middle', nameGap: 48 },
     series,
   };

@@ -1,15 +1,21 @@
 import { z } from 'zod';
 import { emailSchema } from './auth';
 
-/** What a briefing section holds: a result chart, a result table, or narrative text. */
-export const SECTION_KINDS = ['chart', 'table', 'text'] as const;
+/** What a briefing section holds: a result chart, a result table, narrative text, or a regional study's result. */
+export const SECTION_KINDS = ['chart', 'table', 'text', 'regional'] as const;
 export const sectionKindSchema = z.enum(SECTION_KINDS);
 export type SectionKind = z.infer<typeof sectionKindSchema>;
 
 /** The result charts and tables a section can show, with their plain names. */
 export const CHART_KEYS = ['monthly-added-melt', 'daily-discharge', 'band-added-melt', 'surface-split'] as const;
 export const TABLE_KEYS = ['totals', 'monthly-added-melt', 'band-added-melt'] as const;
+/** What a regional section shows of its study (published as a chart or a table). */
+export const REGIONAL_KEYS = ['regional-by-catchment', 'regional-by-month', 'regional-table'] as const;
+export type RegionalKey = (typeof REGIONAL_KEYS)[number];
 export const CONTENT_LABELS: Record<string, string> = {
+  'regional-by-catchment': 'Regional study: added runoff by catchment (chart)',
+  'regional-by-month': 'Regional study: added runoff of the region by month (chart)',
+  'regional-table': 'Regional study: added runoff by catchment and for the region (table)',
   'monthly-added-melt': 'Added runoff by month',
   'daily-discharge': 'Daily discharge, baseline and variants',
   'band-added-melt': 'Added melt by elevation band',
@@ -26,6 +32,11 @@ export const draftSectionSchema = z.discriminatedUnion('kind', [
   z.object({ kind: z.literal('chart'), heading, caption, contentKey: z.enum(CHART_KEYS, { error: 'Choose one of the result charts.' }) }),
   z.object({ kind: z.literal('table'), heading, caption, contentKey: z.enum(TABLE_KEYS, { error: 'Choose one of the result tables.' }) }),
   z.object({ kind: z.literal('text'), heading, bodyMarkdown: z.string().max(20_000, { error: 'Keep the text under 20,000 characters.' }) }),
+  z.object({
+    kind: z.literal('regional'), heading, caption,
+    studyId: z.number({ error: 'Choose one of your regional studies.' }).int().positive({ error: 'Choose one of your regional studies.' }),
+    contentKey: z.enum(REGIONAL_KEYS, { error: 'Choose what the section shows of the study.' }),
+  }),
 ]);
 export type DraftSection = z.infer<typeof draftSectionSchema>;
 

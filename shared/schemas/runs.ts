@@ -51,8 +51,8 @@ export type TransientOptions = z.output<typeof transientOptionsSchema>;
 export type TransientOptionsInput = z.input<typeof transientOptionsSchema>;
 
 /** What "start a run" asks for. */
-export const startRunSchema = z.object({
-  scenarioId: z.number({ message: 'choose a scenario' }).int().positive(),
+/** A run's options besides its scenario, before the checks across them (a study shares these). */
+export const runOptionsSchema = z.object({
   /** Split the added melt among its drivers with factor separation. */
   attribution: z.boolean().default(false),
   /** Latin hypercube ensemble members; 0 for none. */
@@ -62,6 +62,10 @@ export const startRunSchema = z.object({
   start: runStartSchema.default(DEFAULT_RUN_START),
   /** A multi-decade run instead of the scenario's period; null: the season run. */
   transient: transientOptionsSchema.nullable().default(null),
+}).strict();
+
+export const startRunSchema = runOptionsSchema.extend({
+  scenarioId: z.number({ message: 'choose a scenario' }).int().positive(),
 }).strict().superRefine((r, ctx) => {
   if (!r.transient) return;
   if (r.attribution) ctx.addIssue({ code: 'custom', path: ['attribution'], message: 'a multi-decade run has no attribution; run a season for it' });

@@ -18,6 +18,8 @@ const NEW_SECTION: Record<SectionKind, () => DraftSection> = {
   chart: () => ({ kind: 'chart', heading: 'Added runoff by month', caption: '', contentKey: 'monthly-added-melt' }),
   table: () => ({ kind: 'table', heading: 'Totals per variant', caption: '', contentKey: 'totals' }),
   text: () => ({ kind: 'text', heading: 'What this means', bodyMarkdown: '' }),
+  // The study is chosen in the section (0: none chosen yet, which the form refuses).
+  regional: () => ({ kind: 'regional', heading: 'Added runoff across the region', caption: '', studyId: 0, contentKey: 'regional-by-catchment' }),
 };
 
 /** The editable copy of a briefing draft: ordered sections added, moved and removed in place. */

@@ -61,6 +61,18 @@ export const routes: RouteRecordRaw[] = [
         meta: { access: 'useLab', nav: { label: 'Lab', icon: 'science', caption: 'Surface response, calibration' }, title: 'Lab' },
       },
       {
+        path: 'studies',
+        name: 'studies',
+        component: () => import('src/pages/StudiesPage.vue'),
+        meta: { access: 'runScenarios', nav: { label: 'Regional studies', icon: 'hub', caption: 'Many catchments, one result' }, title: 'Regional studies' },
+      },
+      {
+        path: 'studies/:id(\\d+)',
+        name: 'study',
+        component: () => import('src/pages/StudyPage.vue'),
+        meta: { access: 'runScenarios', title: 'Regional study' },
+      },
+      {
         path: 'briefings',
         name: 'briefings',
         component: () => import('src/pages/BriefingsPage.vue'),
@@ -77,6 +89,12 @@ export const routes: RouteRecordRaw[] = [
         name: 'briefing-read',
         component: () => import('src/pages/BriefingReadingPage.vue'),
         meta: { access: 'readBriefings', title: 'Briefing' },
+      },
+      {
+        path: 'queue',
+        name: 'queue',
+        component: () => import('src/pages/QueuePage.vue'),
+        meta: { access: 'watchQueue', nav: { label: 'Job queue', icon: 'dns', caption: 'Waiting, running, failed' }, title: 'Job queue' },
       },
       {
         path: 'team',

@@ -12,10 +12,30 @@ beforeAll(() => {
 afterAll(() => t.close());
 
 describe('GET /api/health', () => {
-  it('reports the database up', async () => {
+  it('reports the database and Redis up and the worker process of the tests connected', async () => {
     const res = await request(t.app).get('/api/health');
     expect(res.status).toBe(200);
-    expect(res.body).toEqual({ status: 'ok', db: 'up' });
+    expect(res.body).toEqual({ status: 'ok', db: 'up', redis: 'up', workers: expect.any(Number) });
+    expect(res.body.workers).toBeGreaterThanOrEqual(1);
+  });
+
+  it('reports Redis down with 503 when the queue cannot be reached, and no worker on a queue nobody takes from', async () => {
+    const down = createTestApp({ REDIS_PORT: '1' });
+    try {
+      const res = await request(down.app).get('/api/health');
+      expect(res.status).toBe(503);
+      expect(res.body).toMatchObject({ status: 'degraded', db: 'up', redis: 'down', workers: 0 });
+    } finally {
+      await down.close();
+    }
+    const idle = createTestApp({ QUEUE_PREFIX: 'nobody-takes' });
+    try {
+      const res = await request(idle.app).get('/api/health');
+      expect(res.status).toBe(200);
+      expect(res.body).toEqual({ status: 'degraded', db: 'up', redis: 'up', workers: 0 });
+    } finally {
+      await idle.close();
+    }
   });
 
   it('reports the database down with 503 when the pool cannot connect, and keeps serving', async () => {
@@ -24,7 +44,7 @@ describe('GET /api/health', () => {
     try {
       const res = await request(down.app).get('/api/health');
       expect(res.status).toBe(503);
-      expect(res.body).toEqual({ status: 'degraded', db: 'down' });
+      expect(res.body).toMatchObject({ status: 'degraded', db: 'down' });
       const again = await request(down.app).get('/api/health');
       expect(again.status).toBe(503);
     } finally {
@@ -44,7 +64,7 @@ describe('GET /api/health', () => {
       link.restore();
       const up = await request(flaky.app).get('/api/health');
       expect(up.status).toBe(200);
-      expect(up.body).toEqual({ status: 'ok', db: 'up' });
+      expect(up.body).toMatchObject({ status: 'ok', db: 'up' });
     } finally {
       await flaky.close();
       await link.close();

@@ -13,9 +13,9 @@ afterAll(() => b?.close());
 
 // What each role's left navigation must show (and nothing more).
 const EXPECTED_NAV: Record<string, string[]> = {
-  admin: ['overview', 'catchments', 'lab', 'briefings', 'team', 'billing'],
-  consultant: ['overview', 'catchments', 'lab', 'briefings'],
-  scientist: ['overview', 'catchments', 'lab'],
+  admin: ['overview', 'catchments', 'lab', 'studies', 'briefings', 'queue', 'team', 'billing'],
+  consultant: ['overview', 'catchments', 'lab', 'studies', 'briefings'],
+  scientist: ['overview', 'catchments', 'lab', 'studies'],
   client: ['overview', 'briefings'],
 };
 

@@ -15,7 +15,7 @@ export interface TenantWorld extends TestOrg {
   marker: string;
   ids: {
     catchment: number; dataset: number; scenario: number; run: number; labJob: number; briefing: number; member: number; invited: number; sharedClient: number;
-    geodataUpload: number; derivation: number; station: number;
+    geodataUpload: number; derivation: number; station: number; study: number;
   };
   uploadToken: string;
 }
@@ -91,12 +91,18 @@ export async function createTenantWorld(db: Knex, geodataDir: string): Promise<T
   await db('briefing_shares').insert({ organisation_id, briefing_id: briefing, user_id: org.users.client.id });
   await db('briefing_comments').insert({ organisation_id, briefing_id: briefing, version: 1, user_id: org.users.client.id, body: marker });
   await db('briefing_events').insert({ organisation_id, briefing_id: briefing, version: 1, user_id: org.users.consultant.id, user_email: org.users.consultant.email, action: 'published', detail: marker });
+  // A study of the catchment, started, whose one cell is the failed run above.
+  const [study] = await db('studies').insert({ organisation_id, name: `${marker} study`, description: marker, options: '{}', started_at: new Date() });
+  await db('study_catchments').insert({ organisation_id, study_id: study, catchment_id: catchment });
+  const [template] = await db('study_scenarios').insert({ organisation_id, study_id: study, name: `${marker} soot`, changes: '{}' });
+  await db('study_scenario_values').insert({ organisation_id, study_scenario_id: template, catchment_id: catchment, changes: '{}' });
+  await db('study_runs').insert({ organisation_id, study_id: study, study_scenario_id: template, catchment_id: catchment, run_id: run });
   const [invited] = await db('users').insert({ organisation_id, email: `${unique('invited')}@test.example`, name: `${marker} invitee`, role: 'client', status: 'invited' });
   return {
     ...org, marker, uploadToken,
     ids: {
       catchment: catchment!, dataset: dataset!, scenario, run: run!, labJob: labJob!, briefing: briefing!, member: org.users.scientist.id, invited: invited!,
-      sharedClient: org.users.client.id, geodataUpload: geodataUpload!, derivation: derivation!, station: station!,
+      sharedClient: org.users.client.id, geodataUpload: geodataUpload!, derivation: derivation!, station: station!, study: study!,
     },
   };
 }
@@ -117,7 +123,7 @@ export function pathIn(world: TenantWorld, path: string): string {
       if (param === 'uploadId') return ids.geodataUpload;
       if (param === 'derivationId') return ids.derivation;
       if (param === 'stationId') return ids.station;
-      const bySegment: Record<string, number> = { scenarios: ids.scenario, runs: ids.run, briefings: ids.briefing, members: ids.member, invitations: ids.invited };
+      const bySegment: Record<string, number> = { scenarios: ids.scenario, runs: ids.run, briefings: ids.briefing, members: ids.member, invitations: ids.invited, studies: ids.study };
       if (bySegment[segment] !== undefined) return bySegment[segment];
       throw new Error(`no record for :${param} after /${segment} in ${path}`);
     })();
@@ -127,7 +133,7 @@ export function pathIn(world: TenantWorld, path: string): string {
 
 /** Every row of the world's organisation in the tables routes can change, to prove a foreign caller changed none. */
 export async function snapshotOf(db: Knex, world: TenantWorld): Promise<string> {
-  const tables = ['catchments', 'band_tables', 'elevation_bands', 'geodata_uploads', 'band_derivations', 'stations', 'catchment_water_settings', 'water_balance_closures', 'datasets', 'pending_uploads', 'scenarios', 'runs', 'run_years', 'lab_jobs', 'briefings', 'briefing_versions', 'briefing_shares', 'briefing_comments', 'briefing_events', 'users'];
+  const tables = ['catchments', 'band_tables', 'elevation_bands', 'geodata_uploads', 'band_derivations', 'stations', 'catchment_water_settings', 'water_balance_closures', 'datasets', 'pending_uploads', 'scenarios', 'runs', 'run_years', 'lab_jobs', 'briefings', 'briefing_versions', 'briefing_shares', 'briefing_comments', 'briefing_events', 'studies', 'study_catchments', 'study_scenarios', 'study_scenario_values', 'study_runs', 'users'];
   const rows = await Promise.all(tables.map((table) => db(table).where({ organisation_id: world.organisationId }).orderBy('id').select()));
   const values = await db('dataset_values').where({ organisation_id: world.organisationId }).orderBy(['dataset_id', 't']).select();
   return JSON.stringify([...rows, values]);

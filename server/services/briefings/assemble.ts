@@ -5,6 +5,8 @@ import { CAUTIONS } from '../../../shared/text/cautions';
 import type { ComparisonForBriefing } from './comparison';
 import { headlineOf, resultChart, resultTable } from './result-views';
 import { setUpLines } from '../../../shared/analysis/run-set-up';
+import { regionalView } from '../../../shared/briefings/regional-views';
+import type { RegionalResults } from '../../../shared/schemas/studies';
 
 export interface AssembleInput {
   title: string;
@@ -16,10 +18,18 @@ export interface AssembleInput {
   organisation: string;
   catchment: BriefingSnapshot['catchment'];
   comparison: ComparisonForBriefing;
+  /** The results of the regional studies the sections show, by study id (none without regional sections). */
+  regional?: Map<number, RegionalResults>;
 }
 
-function frozenSection(section: DraftSection, c: ComparisonForBriefing): SnapshotSection {
+function frozenSection(section: DraftSection, c: ComparisonForBriefing, regional: Map<number, RegionalResults>): SnapshotSection {
   switch (section.kind) {
+    case 'regional': {
+      const view = regionalView(section.contentKey, regional.get(section.studyId)!);
+      const heading = section.heading;
+      const caption = section.caption || `From the regional study "${regional.get(section.studyId)!.study.name}".`;
+      return 'chart' in view ? { kind: 'chart', heading, caption, chart: view.chart } : { kind: 'table', heading, caption, table: view.table };
+    }
     case 'chart':
       return { kind: 'chart', heading: section.heading, caption: section.caption, chart: resultChart(section.contentKey, c) };
     case 'table':
@@ -50,7 +60,7 @@ export function assembleSnapshot(input: AssembleInput): BriefingSnapshot {
     period: { from: first.startDate, to: lastDay },
     baselineName: c.baselineName,
     headlines: c.runs.map((r) => headlineOf(r.results)),
-    sections: input.sections.map((s) => frozenSection(s, c)),
+    sections: input.sections.map((s) => frozenSection(s, c, input.regional ?? new Map())),
     assumptions: {
       scenarios: [
         { name: c.baselineName, role: 'baseline', values: c.baselineValues },
@@ -70,7 +80,7 @@ export function assembleSnapshot(input: AssembleInput): BriefingSnapshot {
     },
     warnings: [...new Set(c.runs.filter((r) => r.results.setUp.calibration.status !== 'calibrated').map((r) => `${r.results.run.scenarioName}: ${r.results.setUp.calibration.message}`))],
     // The standard cautions first, then what any of the runs adds, each once.
-    cautions: [...new Set([...CAUTIONS, ...c.runs.flatMap((r) => r.results.cautions)])],
+    cautions: [...new Set([...CAUTIONS, ...c.runs.flatMap((r) => r.results.cautions), ...[...(input.regional?.values() ?? [])].flatMap((r) => r.cautions)])],
   };
   // Deep copy through JSON, checked against the schema: nothing shared with live objects survives.
   return briefingSnapshotSchema.parse(JSON.parse(JSON.stringify(snapshot)));

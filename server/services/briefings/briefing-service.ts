@@ -1,9 +1,10 @@
+import type { RegionalResults } from '../../../shared/schemas/studies';
 import { CURRENT_TABLE_SQL } from '../catchments/band-tables';
 import {
   briefingSnapshotSchema, runSelectionSchema, type AuditItem, type BriefingListItem, type BriefingSnapshot, type Draft, type DraftSection,
   type CreateBriefing, type Reading, type SaveDraft,
 } from '../../../shared/schemas/briefings';
-import { notFound } from '../../errors';
+import { notFound, validationFailed } from '../../errors';
 import type { UserRow } from '../auth/auth-service';
 import type { TenantScope } from '../tenant-scope';
 import { assembleSnapshot } from './assemble';
@@ -20,7 +21,11 @@ interface CatchmentRow { id: number; name: string; latitude_deg: number; longitu
 
 /** Drafts, publication and reading of briefings. Published versions are frozen snapshots, never updated. */
 export class BriefingService {
-  constructor(private readonly source: BriefingResultsSource) {}
+  constructor(
+    private readonly source: BriefingResultsSource,
+    /** A regional study's result, for regional sections (404 for a study not of the organisation). */
+    private readonly regional: (scope: TenantScope, studyId: number) => Promise<RegionalResults>,
+  ) {}
 
   async list(scope: TenantScope, user: UserRow): Promise<BriefingListItem[]> {
     const query = scope.from('briefings')
@@ -83,6 +88,11 @@ export class BriefingService {
   async saveDraft(scope: TenantScope, user: UserRow, id: number, request: SaveDraft): Promise<Draft> {
     const briefing = await scope.findOr404<BriefingRow>('briefings', id, 'Briefing');
     await this.source.check(scope, briefing.catchment_id, request.selection);
+    for (const [i, section] of request.sections.entries()) {
+      if (section.kind === 'regional' && !(await scope.from('studies').where('id', section.studyId).first('id'))) {
+        throw validationFailed('Choose one of your regional studies.', `sections.${i}.studyId`);
+      }
+    }
     await scope.transaction(async (s) => {
       await s.findOr404('briefings', id, 'Briefing');
       await s.from('briefings').where({ id }).update({
@@ -103,7 +113,10 @@ export class BriefingService {
     const bands: { area_km2: number }[] = await scope.from('elevation_bands').whereRaw(CURRENT_TABLE_SQL, [b.catchment_id]).select('area_km2');
     const organisation = await scope.db('organisations').where({ id: scope.organisationId }).first('name');
     const sections: DraftSection[] = await draftSectionsOf(scope, id);
+    const regional = new Map<number, RegionalResults>();
+    for (const s of sections) if (s.kind === 'regional' && !regional.has(s.studyId)) regional.set(s.studyId, await this.regional(scope, s.studyId));
     return assembleSnapshot({
+      regional,
       title: b.title, summary: b.summary, sections, version, publishedAt: new Date(), publishedBy: user.name, organisation: organisation.name,
       catchment: {
         name: catchment.name, latitudeDeg: catchment.latitude_deg, longitudeDeg: catchment.longitude_deg, stationName: catchment.station_name,

@@ -2,7 +2,7 @@ import type { DraftSection } from '../../../shared/schemas/briefings';
 import { draftSectionSchema } from '../../../shared/schemas/briefings';
 import type { TenantScope } from '../tenant-scope';
 
-interface SectionRow { kind: DraftSection['kind']; heading: string; content_key: string | null; caption: string; body_markdown: string | null }
+interface SectionRow { kind: DraftSection['kind']; heading: string; content_key: string | null; caption: string; body_markdown: string | null; study_id: number | null }
 
 /** A draft's sections in their order. */
 export async function draftSectionsOf(scope: TenantScope, briefingId: number): Promise<DraftSection[]> {
@@ -10,7 +10,7 @@ export async function draftSectionsOf(scope: TenantScope, briefingId: number): P
   return rows.map((r) => draftSectionSchema.parse(
     r.kind === 'text'
       ? { kind: 'text', heading: r.heading, bodyMarkdown: r.body_markdown ?? '' }
-      : { kind: r.kind, heading: r.heading, caption: r.caption, contentKey: r.content_key },
+      : { kind: r.kind, heading: r.heading, caption: r.caption, contentKey: r.content_key, ...(r.kind === 'regional' ? { studyId: r.study_id } : {}) },
   ));
 }
 
@@ -21,5 +21,6 @@ export function sectionRows(briefingId: number, sections: DraftSection[]) {
     content_key: s.kind === 'text' ? null : s.contentKey,
     caption: s.kind === 'text' ? '' : s.caption,
     body_markdown: s.kind === 'text' ? s.bodyMarkdown : null,
+    study_id: s.kind === 'regional' ? s.studyId : null,
   }));
 }

@@ -1,5 +1,6 @@
 import type { InvitationService } from '../members/invitation-service';
 import type { ResultsService } from '../runs/results-service';
+import type { StudyResults } from '../studies/study-results';
 import type { ThreadBudget } from '../thread-budget';
 import type { MailService } from '../mail/mail-service';
 import { BriefingExports } from './briefing-exports';
@@ -22,6 +23,8 @@ export interface BriefingServices {
 
 export interface BriefingServicesDeps {
   results: ResultsService;
+  /** Regional results, for regional sections. */
+  studyResults: StudyResults;
   invitations: InvitationService;
   mail: MailService;
   publicUrl: () => string;
@@ -32,7 +35,7 @@ export interface BriefingServicesDeps {
 
 /** Briefings, their sharing and comments, and their PDF and CSV exports. */
 export function createBriefingServices(deps: BriefingServicesDeps): BriefingServices {
-  const briefings = new BriefingService(deps.briefingResults ?? new RunsResultsSource(deps.results));
+  const briefings = new BriefingService(deps.briefingResults ?? new RunsResultsSource(deps.results), (scope, studyId) => deps.studyResults.results(scope, studyId));
   const pdfPool = new PdfPool(deps.threads);
   const briefingNotices = new BriefingNotices(deps.mail, deps.publicUrl);
   return {

@@ -1,9 +1,9 @@
 import type { Knex } from 'knex';
+import type { JobQueues } from '../../queue/job-queues';
 import type { BandService } from '../catchments/band-service';
-import type { ThreadBudget } from '../thread-budget';
 import type { WaterServices } from '../water';
 import { CalibrationStore } from './calibration-store';
-import { LabPool } from './lab-pool';
+import { LabQueue } from './lab-queue';
 import { LabService } from './lab-service';
 import { WaterBalanceService } from './water-balance-service';
 
@@ -12,8 +12,8 @@ export interface LabServices {
   waterBalance: WaterBalanceService;
 }
 
-/** The lab: its worker pool on the shared thread budget, its jobs and the saved calibrations. */
-export function createLabServices(deps: { db: Knex; bands: BandService; threads: ThreadBudget; water: WaterServices }): LabServices {
-  const lab = new LabService(deps.db, deps.bands, new LabPool(deps.threads), new CalibrationStore(), deps.water);
+/** The lab: its computations on the lab queue (run by the worker processes), its jobs, the saved calibrations and the water-balance closure. */
+export function createLabServices(deps: { db: Knex; bands: BandService; queues: JobQueues; workerThreads: number; water: WaterServices }): LabServices {
+  const lab = new LabService(deps.db, deps.bands, new LabQueue(deps.queues, deps.workerThreads), new CalibrationStore(), deps.water);
   return { lab, waterBalance: new WaterBalanceService(lab, deps.water) };
 }

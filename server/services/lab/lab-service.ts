@@ -19,7 +19,7 @@ import { LabData } from './lab-data';
 import type { WaterServices } from '../water';
 import { LabJobs } from './lab-jobs';
 import { RemoteSensingLab } from './remote-sensing-lab';
-import type { LabPool } from './lab-pool';
+import type { LabRunner } from './lab-queue';
 
 /** Worker tasks per thread in a sweep: a few, so every thread stays busy to the end. */
 const TASKS_PER_THREAD = 4;
@@ -31,7 +31,7 @@ export class LabService {
   /** Snow-cover maps and the geodetic balance as calibration targets. */
   readonly remoteSensing: RemoteSensingLab;
 
-  constructor(db: Knex, bands: BandService, readonly pool: LabPool, readonly calibrations: CalibrationStore, water: WaterServices) {
+  constructor(db: Knex, bands: BandService, readonly pool: LabRunner, readonly calibrations: CalibrationStore, water: WaterServices) {
     this.data = new LabData(bands, water.waterInputs);
     this.jobs = new LabJobs(db);
     this.remoteSensing = new RemoteSensingLab(this.data, pool, (scope, catchmentId) => this.calibratedParameters(scope, catchmentId));
@@ -52,7 +52,7 @@ export class LabService {
     const period = { from: query.from, to: query.to };
     const site = await this.data.site(scope, catchmentId, period, set);
     const band = this.band(site.catchment.bands, query.band);
-    const result = await this.pool.run<SurfaceResponseResult>({ kind: 'surface', site: { ...site, bandIndex: query.band, period } });
+    const result = await this.pool.run<SurfaceResponseResult>({ kind: 'surface', site: { ...site, bandIndex: query.band, period } }, { organisationId: scope.organisationId });
     return {
       band: { index: query.band, lowerM: band.lowerM, upperM: band.upperM, debrisThicknessM: band.debrisThicknessM, glacierFraction: band.glacierFraction },
       period,
@@ -66,7 +66,7 @@ export class LabService {
     const period = { from: query.from, to: query.to };
     const site = await this.data.site(scope, catchmentId, period, set);
     this.band(site.catchment.bands, query.band);
-    return this.pool.run<ReferenceComparison>({ kind: 'reference', site: { ...site, bandIndex: query.band, period } });
+    return this.pool.run<ReferenceComparison>({ kind: 'reference', site: { ...site, bandIndex: query.band, period } }, { organisationId: scope.organisationId });
   }
 
   /** Skill of simulated against observed discharge, with the given set or the one in force. */
@@ -85,7 +85,7 @@ export class LabService {
     if (!record || inside.length === 0) throw validationFailed('No stake reading falls inside the climate record.', 'stakes');
     const span = { from: inside.reduce((a, o) => (o.from < a ? o.from : a), inside[0].from), to: inside.reduce((a, o) => (o.to > a ? o.to : a), inside[0].to) };
     const site = await this.data.site(scope, catchmentId, span, set);
-    const comparison = await this.pool.run<StakeComparison>({ kind: 'stakes', site, observed: inside });
+    const comparison = await this.pool.run<StakeComparison>({ kind: 'stakes', site, observed: inside }, { organisationId: scope.organisationId });
     return { set, comparison: { ...comparison, outsideRecord: observed.length - inside.length } };
   }
 
@@ -119,7 +119,7 @@ export class LabService {
     for (let i = 0; i < cells.length; i += size) chunks.push(cells.slice(i, i + size).map((c) => c.values));
     return this.jobs.start(scope, user, catchmentId, 'sweep', plan, async (signal, report) => {
       report(0, 'Building the snowpack before the period');
-      const { setup, baseline } = await this.pool.run<{ setup: SweepSetup; baseline: number }>({ kind: 'sweepSetup', site, plan }, { signal, priority: 'batch' });
+      const { setup, baseline } = await this.pool.run<{ setup: SweepSetup; baseline: number }>({ kind: 'sweepSetup', site, plan }, { signal, priority: 'batch', organisationId: scope.organisationId });
       const done = new Array<number>(chunks.length).fill(0);
       const onCells = (k: number) => (fraction: number) => {
         done[k] = fraction * chunks[k].length;
@@ -127,7 +127,7 @@ export class LabService {
         report(total / cells.length, `${Math.round(total)} of ${cells.length} runs`);
       };
       const parts = await Promise.all(chunks.map((chunk, k) => this.pool.run<number[]>(
-        { kind: 'sweepCells', setup, cells: chunk }, { onProgress: onCells(k), signal, priority: 'batch' },
+        { kind: 'sweepCells', setup, cells: chunk }, { onProgress: onCells(k), signal, priority: 'batch', organisationId: scope.organisationId },
       )));
       return assembleSweep(plan, baseline, parts.flat());
     });
@@ -147,7 +147,7 @@ export class LabService {
     const onProgress = (report: (fraction: number, message: string) => void) => (fraction: number) =>
       report(fraction, `${Math.round(fraction * request.maxEvaluations)} of at most ${request.maxEvaluations} model runs`);
     return this.jobs.start(scope, user, catchmentId, 'calibration', request, (signal, report) => this.pool.run(
-      task, { onProgress: onProgress(report), signal, priority: 'batch' },
+      task, { onProgress: onProgress(report), signal, priority: 'batch', organisationId: scope.organisationId },
     ));
   }
 
@@ -155,7 +155,7 @@ export class LabService {
     const site = await this.data.site(scope, catchmentId, period, set);
     const observed = await this.data.observedDischarge(scope, catchmentId, period);
     try {
-      return await this.pool.run<DischargeEvaluation>({ kind: 'skill', site, observed, period });
+      return await this.pool.run<DischargeEvaluation>({ kind: 'skill', site, observed, period }, { organisationId: scope.organisationId });
     } catch (error) {
       throw validationFailed(`Skill scores cannot be computed: ${error instanceof Error ? error.message : String(error)}`, 'period');
     }

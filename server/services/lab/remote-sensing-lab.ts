@@ -8,7 +8,7 @@ import { validationFailed } from '../../errors';
 import type { RemoteSensingTask } from '../../workers/lab-remote-sensing';
 import type { TenantScope } from '../tenant-scope';
 import type { LabData } from './lab-data';
-import type { LabPool } from './lab-pool';
+import type { LabRunner } from './lab-queue';
 
 const day = (d: string | Date) => (typeof d === 'string' ? d.slice(0, 10) : d.toISOString().slice(0, 10));
 
@@ -18,20 +18,20 @@ const day = (d: string | Date) => (typeof d === 'string' ? d.slice(0, 10) : d.to
  * simulated glacier balance, from the observations stored with the catchment's geodata.
  */
 export class RemoteSensingLab {
-  constructor(private readonly data: LabData, private readonly pool: LabPool, private readonly inForce: (scope: TenantScope, catchmentId: number) => Promise<CalibrationSet>) {}
+  constructor(private readonly data: LabData, private readonly pool: LabRunner, private readonly inForce: (scope: TenantScope, catchmentId: number) => Promise<CalibrationSet>) {}
 
   async snowCoverSkill(scope: TenantScope, catchmentId: number, request: RemoteSensingSkillRequest): Promise<{ set: CalibrationSet; comparison: SnowCoverComparison }> {
     const set = request.set ?? await this.inForce(scope, catchmentId);
     const { observed, span } = await this.snowCover(scope, catchmentId);
     const site = await this.data.site(scope, catchmentId, span, set);
-    return { set, comparison: await this.pool.run<SnowCoverComparison>({ kind: 'snowCoverSkill', site, observed }) };
+    return { set, comparison: await this.pool.run<SnowCoverComparison>({ kind: 'snowCoverSkill', site, observed }, { organisationId: scope.organisationId }) };
   }
 
   async geodeticSkill(scope: TenantScope, catchmentId: number, request: RemoteSensingSkillRequest): Promise<{ set: CalibrationSet; comparison: GeodeticComparison }> {
     const set = request.set ?? await this.inForce(scope, catchmentId);
     const observed = await this.geodetic(scope, catchmentId);
     const site = await this.data.site(scope, catchmentId, await this.record(scope, catchmentId), set);
-    return { set, comparison: await this.pool.run<GeodeticComparison>({ kind: 'geodeticSkill', site, observed }) };
+    return { set, comparison: await this.pool.run<GeodeticComparison>({ kind: 'geodeticSkill', site, observed }, { organisationId: scope.organisationId }) };
   }
 
   /** The worker task of an automatic calibration against snow cover (maps inside the period) or the geodetic balance (over the record). */

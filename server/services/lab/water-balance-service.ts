@@ -33,7 +33,7 @@ export class WaterBalanceService {
     const task = await this.task(scope, catchmentId, request, site);
     return this.lab.jobs.start(scope, user, catchmentId, 'water-balance', request, (signal, report) => this.lab.pool.run(
       { kind: 'waterBalance', site, task, maxEvaluations: MAX_EVALUATIONS },
-      { onProgress: (f) => report(f, 'Closing the water balance: engine runs over the period'), signal, priority: 'batch' },
+      { onProgress: (f) => report(f, 'Closing the water balance: engine runs over the period'), signal, priority: 'batch', organisationId: scope.organisationId },
     ));
   }
 

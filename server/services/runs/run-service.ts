@@ -1,17 +1,19 @@
 import { planRun, RunPlanError } from '../../../shared/analysis/run-plan';
 import { simulationSettings } from '../../../shared/analysis/variant-settings';
-import { relativeFactor, withWaterSide, type RunWaterSide } from '../../../shared/analysis/water-side-inputs';
+import type { RunWaterSide } from '../../../shared/analysis/water-side-inputs';
 import { ENGINE_VERSION } from '../../../shared/melt/version';
 import { parseSimulationInput, SimulationInputError } from '../../../shared/melt/prepare';
-import { DEFAULT_RUN_START, type Run, type RunStart, type StartRunRequest, type TransientOptions } from '../../../shared/schemas/runs';
+import { DEFAULT_RUN_START, FINISHED_STATUSES, type Run, type RunStart, type StartRunRequest, type TransientOptions } from '../../../shared/schemas/runs';
 import { conflict, notFound, validationFailed } from '../../errors';
 import type { ScenarioService } from './scenario-service';
 import type { TenantScope } from '../tenant-scope';
 import type { CatchmentInputs, CatchmentInputSource } from './catchment-inputs';
 import { inputHash } from './input-hash';
-import { transientInputs } from './transient-inputs';
-import type { RunExecutor } from './run-executor';
+import type { JobPriority } from '../../queue/jobs';
 import type { WaterInputSource } from '../water/water-inputs';
+import { memberInput, saveRunInputs, type RunInputs } from './run-inputs';
+import type { RunQueue } from './run-queue';
+import { transientInputs } from './transient-inputs';
 
 export interface RunRow {
   id: number;
@@ -75,20 +77,21 @@ export function toRun(row: RunRow): Run {
   };
 }
 
-/** Starting, reading and cancelling runs; the simulating is the executor's. */
+/** Starting, reading and cancelling runs; the simulating is the worker processes' (through the queue). */
 export class RunService {
   constructor(
     private readonly scenarios: ScenarioService,
     private readonly inputs: CatchmentInputSource,
     private readonly water: WaterInputSource,
-    private readonly executor: RunExecutor,
+    private readonly queue: RunQueue,
   ) {}
 
   /**
-   * Validates everything a run needs, then queues it — or returns the finished (or still running)
-   * run with identical inputs instead of computing it again.
+   * Validates everything a run needs, stores it with its inputs and queues its members — or
+   * returns the finished (or still running) run with identical inputs instead of computing it
+   * again. `priority` places its jobs: a run started on its own goes ahead of a study's.
    */
-  async start(scope: TenantScope, catchmentId: number, request: StartRunRequest, userId: number): Promise<{ run: Run; reused: boolean }> {
+  async start(scope: TenantScope, catchmentId: number, request: StartRunRequest, userId: number, priority: JobPriority = 'run'): Promise<{ run: Run; reused: boolean }> {
     await scope.findOr404('catchments', catchmentId, 'Catchment');
     const scenario = await this.scenarios.get(scope, catchmentId, request.scenarioId);
     if (scenario.archived) throw validationFailed('This scenario is archived; restore it before running it.', 'scenarioId');
@@ -113,18 +116,14 @@ export class RunService {
       if (error instanceof RunPlanError) throw validationFailed(error.message, 'attribution');
       throw error;
     }
-    // With the water-balance precipitation the closure's factor replaces the baseline's station factor; each member keeps its change relative to it.
-    const reference = (baseline ?? scenario).changes.precipitationFactor;
-    const members = plan.members.map((m) => {
-      const scenarioInput = settings.waterBalancePrecipitation
-        ? { ...m.input.scenario, precipitationFactor: relativeFactor(m.input.scenario.precipitationFactor, reference) } : m.input.scenario;
-      const input = withWaterSide({ ...stored, ...m.input, scenario: scenarioInput, start: request.start, water }, settings.waterBalancePrecipitation);
-      return { plan: m, input: transient ? { ...input, transient: transient.member } : input };
-    });
+    const runInputs: RunInputs = {
+      stored, start: request.start, plans: plan.members, waterSide,
+      referencePrecipitationFactor: (baseline ?? scenario).changes.precipitationFactor, transient: transient?.member ?? null,
+    };
     try {
       // The first member checks what all share (catchment, forcing, period); the rest differ only in validated changes.
       const firstYear = transient ? transient.member.periods[transient.member.years[0].recordYear] : undefined;
-      parseSimulationInput({ ...members[0].input, parts: undefined, transient: undefined, ...(firstYear ? { period: firstYear } : {}) });
+      parseSimulationInput({ ...memberInput(runInputs, 0), parts: undefined, transient: undefined, ...(firstYear ? { period: firstYear } : {}) });
     } catch (error) {
       if (error instanceof SimulationInputError) throw validationFailed(`The inputs cannot be simulated: ${error.issues[0].path}: ${error.issues[0].message}`, error.issues[0].path, { issues: error.issues });
       throw error;
@@ -138,20 +137,23 @@ export class RunService {
     const same = await scope.from<RunRow>('runs').where({ catchment_id: catchmentId, input_hash: hash }).whereIn('status', ['queued', 'running', 'done']).orderBy('id', 'desc').first();
     if (same) return { run: toRun(same), reused: true };
 
-    const id = await scope.insert('runs', {
-      catchment_id: catchmentId, scenario_id: scenario.id, scenario_name: scenario.name, is_baseline: scenario.isBaseline,
-      changes: JSON.stringify(scenario.changes), baseline_changes: baseline ? JSON.stringify(baseline.changes) : null,
-      attribution: request.attribution, ensemble_size: request.ensembleSize, ensemble_seed: request.ensembleSeed,
-      status: 'queued', progress: 0, simulation_count: members.length, engine_version: ENGINE_VERSION, input_hash: hash,
-      // A multi-decade run has years instead of a period.
-      period_from: transient ? null : period?.from ?? null, period_to: transient ? null : period?.to ?? null,
-      start_options: JSON.stringify(request.start), water_side: JSON.stringify(waterSide), transient_options: request.transient ? JSON.stringify(request.transient) : null, created_by: userId,
-      // The band table version in use, which later saves leave in place for this run.
-      band_table_id: scope.db.raw('(SELECT MAX(id) FROM band_tables WHERE catchment_id = ?)', [catchmentId]),
+    const id = await scope.transaction(async (s) => {
+      const runId = await s.insert('runs', {
+        catchment_id: catchmentId, scenario_id: scenario.id, scenario_name: scenario.name, is_baseline: scenario.isBaseline,
+        changes: JSON.stringify(scenario.changes), baseline_changes: baseline ? JSON.stringify(baseline.changes) : null,
+        attribution: request.attribution, ensemble_size: request.ensembleSize, ensemble_seed: request.ensembleSeed,
+        status: 'queued', progress: 0, simulation_count: plan.members.length, engine_version: ENGINE_VERSION, input_hash: hash,
+        // A multi-decade run has years instead of a period.
+        period_from: transient ? null : period?.from ?? null, period_to: transient ? null : period?.to ?? null,
+        start_options: JSON.stringify(request.start), water_side: JSON.stringify(waterSide), transient_options: request.transient ? JSON.stringify(request.transient) : null, created_by: userId,
+        // The band table version in use, which later saves leave in place for this run.
+        band_table_id: s.db.raw('(SELECT MAX(id) FROM band_tables WHERE catchment_id = ?)', [catchmentId]),
+      });
+      await saveRunInputs(s, runId, runInputs);
+      return runId;
     });
-    const run = await this.get(scope, catchmentId, id);
-    this.executor.enqueue({ runId: id, organisationId: scope.organisationId, members });
-    return { run, reused: false };
+    await this.queue.enqueue({ runId: id, organisationId: scope.organisationId, memberCount: plan.members.length, priority });
+    return { run: await this.get(scope, catchmentId, id), reused: false };
   }
 
   /** Stored catchment, forcing and water side for a period with the default spin-up, for the builder's in-browser preview. */
@@ -163,6 +165,16 @@ export class RunService {
 
   async get(scope: TenantScope, catchmentId: number, id: number): Promise<Run> {
     return toRun(await this.row(scope, catchmentId, id));
+  }
+
+  /** The run once it has ended (done, failed or cancelled), or as it is after `timeoutMs` (seeds and scripts wait on the workers with this). */
+  async finished(scope: TenantScope, catchmentId: number, id: number, timeoutMs: number): Promise<Run> {
+    const until = Date.now() + timeoutMs;
+    for (;;) {
+      const run = await this.get(scope, catchmentId, id);
+      if (FINISHED_STATUSES.includes(run.status) || Date.now() > until) return run;
+      await new Promise((resolve) => setTimeout(resolve, 100));
+    }
   }
 
   async row(scope: TenantScope, catchmentId: number, id: number): Promise<RunRow> {
@@ -180,10 +192,17 @@ export class RunService {
   async cancel(scope: TenantScope, catchmentId: number, id: number): Promise<Run> {
     const row = await this.row(scope, catchmentId, id);
     if (row.status !== 'queued' && row.status !== 'running') throw conflict(`This run is already ${row.status}.`);
-    if (!(await this.executor.cancel(id))) {
-      // Not held by this process (e.g. left over from before a restart): close it here.
-      await scope.from('runs').where('id', id).update({ status: 'cancelled', finished_at: scope.db.fn.now(3) });
-    }
+    await this.cancelOpen(scope, [id]);
     return this.get(scope, catchmentId, id);
+  }
+
+  /** Cancels those of the runs still queued or running: marked first, so no worker stores more of them, then their jobs stopped. */
+  async cancelOpen(scope: TenantScope, runIds: number[]): Promise<void> {
+    if (runIds.length === 0) return;
+    const open: Pick<RunRow, 'id' | 'simulation_count'>[] = await scope.from<RunRow>('runs').whereIn('id', runIds).whereIn('status', ['queued', 'running']).select('id', 'simulation_count');
+    if (open.length === 0) return;
+    await scope.from('runs').whereIn('id', open.map((r) => r.id)).whereIn('status', ['queued', 'running'])
+      .update({ status: 'cancelled', finished_at: scope.db.fn.now(3) });
+    await this.queue.stop(open.map((r) => ({ runId: r.id, memberCount: r.simulation_count })));
   }
 }

@@ -10,7 +10,7 @@ import type { StartReport } from '../../../shared/melt/spin-up';
 
 /**
  * Rows per INSERT: MySQL allows 65,535 placeholders per statement, and building one statement
- * runs on the API's event loop, so chunks stay small enough to keep it responsive.
+ * runs on the worker's event loop, so chunks stay small enough to keep it renewing its job locks.
  */
 const CHUNK = 500;
 
@@ -19,6 +19,32 @@ const ROUTED_COLUMN: Record<Source, string> = { snow: 'routed_snow_m3', ice: 'ro
 
 async function insertChunked(db: Knex | Knex.Transaction, table: string, rows: Record<string, unknown>[]): Promise<void> {
   for (let i = 0; i < rows.length; i += CHUNK) await db(table).insert(rows.slice(i, i + CHUNK));
+}
+
+/** What storing one member did: stored it now, found it stored already, or found the run closed. */
+export type MemberStored = { outcome: 'stored' | 'already-stored'; finished: boolean } | { outcome: 'run-closed'; finished: false };
+
+/**
+ * Stores one member of a run in one transaction: its row, band × month totals and daily series
+ * (or a multi-decade member's years), keyed by run and member (a member retried after a fault is
+ * never stored twice), then moves the run's progress on, or marks it done when this was its last
+ * member. The run row is locked first, so members finishing at once on different workers count
+ * correctly and exactly one finishes the run.
+ * Without a summary it only counts (the member was found stored before simulating).
+ */
+export async function storeMember(scope: TenantScope, runId: number, plan: MemberPlan, summary: MemberSummary | null): Promise<MemberStored> {
+  return scope.transaction(async (s) => {
+    const run = await s.from<{ status: string; simulation_count: number }>('runs').where('id', runId).forUpdate().first('status', 'simulation_count');
+    if (!run || (run.status !== 'queued' && run.status !== 'running')) return { outcome: 'run-closed', finished: false };
+    const existing = await s.from('run_members').where({ run_id: runId, member_key: plan.key }).first('id');
+    if (!existing && summary) await insertMember(s, runId, plan, summary);
+    const { stored } = (await s.from('run_members').where('run_id', runId).count({ stored: '*' }).first()) as { stored: number };
+    const finished = Number(stored) >= run.simulation_count;
+    await s.from('runs').where('id', runId).update(finished
+      ? { status: 'done', progress: 1, error_message: null, finished_at: s.db.fn.now(3) }
+      : { status: 'running', progress: Number(stored) / run.simulation_count, started_at: s.db.raw('COALESCE(started_at, NOW(3))') });
+    return { outcome: existing ? 'already-stored' : 'stored', finished };
+  });
 }
 
 /** A multi-decade member's years, one row each. */
@@ -31,45 +57,35 @@ function yearRows(organisation_id: number, member_id: number, summary: Transient
   }));
 }
 
-/** Stores every member of a finished run in one transaction: member rows, band × month totals and daily series, or a multi-decade member's years. */
-export async function storeMembers(scope: TenantScope, runId: number, members: { plan: MemberPlan; summary: MemberSummary }[]): Promise<void> {
-  await scope.transaction(async (s) => {
-    const organisation_id = s.organisationId;
-    const months: Record<string, unknown>[] = [];
-    const daily: Record<string, unknown>[] = [];
-    const years: Record<string, unknown>[] = [];
-    for (const { plan, summary } of members) {
-      const memberId = await s.insert('run_members', {
-        run_id: runId, member_key: plan.key, kind: plan.kind, combination_mask: plan.combinationMask, ensemble_index: plan.ensembleIndex,
-        parameters: JSON.stringify(plan.input.parameters), start_date: summary.startDate, day_count: isTransientSummary(summary) ? 0 : summary.dayCount,
-        bands: JSON.stringify(summary.bands), start_report: summary.start ? JSON.stringify(summary.start) : null, shortwave_source: summary.shortwaveSource,
-      });
-      if (isTransientSummary(summary)) {
-        years.push(...yearRows(organisation_id, memberId, summary));
-        continue;
-      }
-      for (const m of summary.months) {
-        months.push({
-          organisation_id, member_id: memberId, band_index: m.bandIndex, month: m.month, days: m.days,
-          snow_melt_mm: m.snowMeltMm, ice_melt_mm: m.iceMeltMm, debris_ice_melt_mm: m.debrisIceMeltMm, rain_mm: m.rainMm,
-          snowfall_mm: m.snowfallMm, mean_albedo: m.meanAlbedo, absorbed_shortwave_wm2: m.absorbedShortwaveWm2,
-          net_shortwave_wm2: m.netShortwaveWm2, net_longwave_wm2: m.netLongwaveWm2, sensible_heat_wm2: m.sensibleHeatWm2,
-          rainfall_mm: m.rainfallMm, surface_melt_mm: m.surfaceMeltMm, refrozen_mm: m.refrozenMm, sublimation_mm: m.sublimationMm,
-          evaporation_mm: m.evaporationMm, snow_cover_fraction: m.meanSnowCoverFraction, latent_heat_wm2: m.latentHeatWm2,
-          wind_drift_mm: m.windDriftMm, avalanche_mm: m.avalancheMm,
-        });
-      }
-      for (let d = 0; d < summary.dayCount; d++) {
-        const row: Record<string, unknown> = { organisation_id, member_id: memberId, day_index: d };
-        for (const source of SOURCES) row[DAILY_COLUMN[source]] = summary.dailyM3[source][d];
-        if (summary.routedDailyM3) for (const source of SOURCES) row[ROUTED_COLUMN[source]] = summary.routedDailyM3[source][d];
-        daily.push(row);
-      }
-    }
-    await insertChunked(s.db, 'run_band_months', months);
-    await insertChunked(s.db, 'run_daily', daily);
-    await insertChunked(s.db, 'run_years', years);
+async function insertMember(s: TenantScope, runId: number, plan: MemberPlan, summary: MemberSummary): Promise<void> {
+  const organisation_id = s.organisationId;
+  const memberId = await s.insert('run_members', {
+    run_id: runId, member_key: plan.key, kind: plan.kind, combination_mask: plan.combinationMask, ensemble_index: plan.ensembleIndex,
+    parameters: JSON.stringify(plan.input.parameters), start_date: summary.startDate, day_count: isTransientSummary(summary) ? 0 : summary.dayCount,
+    bands: JSON.stringify(summary.bands), start_report: summary.start ? JSON.stringify(summary.start) : null, shortwave_source: summary.shortwaveSource,
   });
+  if (isTransientSummary(summary)) {
+    await insertChunked(s.db, 'run_years', yearRows(organisation_id, memberId, summary));
+    return;
+  }
+  const months = summary.months.map((m) => ({
+    organisation_id, member_id: memberId, band_index: m.bandIndex, month: m.month, days: m.days,
+    snow_melt_mm: m.snowMeltMm, ice_melt_mm: m.iceMeltMm, debris_ice_melt_mm: m.debrisIceMeltMm, rain_mm: m.rainMm,
+    snowfall_mm: m.snowfallMm, mean_albedo: m.meanAlbedo, absorbed_shortwave_wm2: m.absorbedShortwaveWm2,
+    net_shortwave_wm2: m.netShortwaveWm2, net_longwave_wm2: m.netLongwaveWm2, sensible_heat_wm2: m.sensibleHeatWm2,
+    rainfall_mm: m.rainfallMm, surface_melt_mm: m.surfaceMeltMm, refrozen_mm: m.refrozenMm, sublimation_mm: m.sublimationMm,
+    evaporation_mm: m.evaporationMm, snow_cover_fraction: m.meanSnowCoverFraction, latent_heat_wm2: m.latentHeatWm2,
+    wind_drift_mm: m.windDriftMm, avalanche_mm: m.avalancheMm,
+  }));
+  const daily: Record<string, unknown>[] = [];
+  for (let d = 0; d < summary.dayCount; d++) {
+    const row: Record<string, unknown> = { organisation_id, member_id: memberId, day_index: d };
+    for (const source of SOURCES) row[DAILY_COLUMN[source]] = summary.dailyM3[source][d];
+    if (summary.routedDailyM3) for (const source of SOURCES) row[ROUTED_COLUMN[source]] = summary.routedDailyM3[source][d];
+    daily.push(row);
+  }
+  await insertChunked(s.db, 'run_band_months', months);
+  await insertChunked(s.db, 'run_daily', daily);
 }
 
 interface MemberRow {

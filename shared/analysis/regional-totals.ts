@@ -1,0 +1,110 @@
+import { addedMeltTotals } from './added-melt-totals';
+import { band5to95 } from './percentiles';
+import { dailyRunoffM3, type SimulationSummary } from './simulation-summary';
+import type { MemberKind } from './run-plan';
+import { addDays } from '../melt/calendar';
+
+/** The members of one finished run that a regional total needs. */
+export interface ContributionMember {
+  kind: MemberKind;
+  ensembleIndex: number | null;
+  summary: SimulationSummary;
+}
+
+/** One catchment's part of a regional total: its run's added melt (variant minus paired baseline). */
+export interface CatchmentContribution {
+  addedVolumeM3: number;
+  meanAddedDischargeM3s: number;
+  addedDepthMm: number;
+  areaKm2: number;
+  /** Added runoff per calendar month ("YYYY-MM"), m³. */
+  monthlyAddedM3: Map<string, number>;
+  /** Added volume of each ensemble member, by ensemble index; empty without an ensemble. */
+  ensembleAddedM3: Map<number, number>;
+  ensembleAddedDischargeM3s: Map<number, number>;
+}
+
+const sum = (values: Iterable<number>) => { let s = 0; for (const v of values) s += v; return s; };
+
+/**
+ * A catchment's contribution, from its run's stored members: the totals are those of the run's
+ * results (`addedMeltTotals`), so the regional sum equals the sum of the catchments' results.
+ */
+export function catchmentContribution(members: readonly ContributionMember[]): CatchmentContribution {
+  const variant = members.find((m) => m.kind === 'scenario')?.summary;
+  if (!variant) throw new RangeError('catchmentContribution: the run has no scenario member');
+  const baseline = members.find((m) => m.kind === 'baseline')?.summary ?? variant;
+  const totals = addedMeltTotals(baseline, variant);
+  const base = dailyRunoffM3(baseline);
+  const monthlyAddedM3 = new Map<string, number>();
+  dailyRunoffM3(variant).forEach((v, d) => {
+    const month = addDays(variant.startDate, d).slice(0, 7);
+    monthlyAddedM3.set(month, (monthlyAddedM3.get(month) ?? 0) + v - base[d]);
+  });
+  const ensembleAddedM3 = new Map<number, number>();
+  const ensembleAddedDischargeM3s = new Map<number, number>();
+  for (const m of members) {
+    if (m.kind !== 'ensemble-scenario' || m.ensembleIndex === null) continue;
+    const pair = members.find((b) => b.kind === 'ensemble-baseline' && b.ensembleIndex === m.ensembleIndex)?.summary ?? m.summary;
+    const t = addedMeltTotals(pair, m.summary);
+    ensembleAddedM3.set(m.ensembleIndex, t.addedVolumeM3);
+    ensembleAddedDischargeM3s.set(m.ensembleIndex, t.meanAddedDischargeM3s);
+  }
+  return {
+    addedVolumeM3: totals.addedVolumeM3,
+    meanAddedDischargeM3s: totals.meanAddedDischargeM3s,
+    addedDepthMm: totals.addedDepthMm,
+    areaKm2: sum(variant.bands.map((b) => b.areaM2)) / 1e6,
+    monthlyAddedM3,
+    ensembleAddedM3,
+    ensembleAddedDischargeM3s,
+  };
+}
+
+export interface RegionalTotal {
+  months: string[];
+  /** Per catchment (in the order given), added runoff per month of `months`. */
+  monthlyByCatchment: number[][];
+  monthlyAddedM3: number[];
+  addedVolumeM3: number;
+  /** The sum of each catchment's mean added discharge over its own melt season, m³ s⁻¹. */
+  meanAddedDischargeM3s: number;
+  /**
+   * 5–95 % over the ensemble of the regional sum: member i of every catchment ran on the same
+   * Latin hypercube parameter set (one seed for the study), so member i's regional total is the
+   * sum of the catchments' members i. Null unless every catchment has the same members.
+   */
+  addedVolumeRangeM3: { p5: number; p50: number; p95: number } | null;
+  meanAddedDischargeRangeM3s: { p5: number; p50: number; p95: number } | null;
+  /** Catchment positions ranked by added volume, largest first. */
+  ranking: number[];
+}
+
+function sharedEnsemble(contributions: readonly CatchmentContribution[], of: (c: CatchmentContribution) => Map<number, number>) {
+  const indices = [...of(contributions[0]).keys()];
+  if (indices.length === 0) return null;
+  if (!contributions.every((c) => of(c).size === indices.length && indices.every((i) => of(c).has(i)))) return null;
+  return band5to95(indices.map((i) => sum(contributions.map((c) => of(c).get(i)!))));
+}
+
+/** The regional total of the catchments' contributions to one scenario template. */
+export function regionalTotal(contributions: readonly CatchmentContribution[]): RegionalTotal {
+  const months = [...new Set(contributions.flatMap((c) => [...c.monthlyAddedM3.keys()]))].sort();
+  const monthlyByCatchment = contributions.map((c) => months.map((m) => c.monthlyAddedM3.get(m) ?? 0));
+  const ranking = contributions.map((_, i) => i).sort((a, b) => contributions[b].addedVolumeM3 - contributions[a].addedVolumeM3);
+  return {
+    months,
+    monthlyByCatchment,
+    monthlyAddedM3: months.map((_, k) => sum(monthlyByCatchment.map((row) => row[k]))),
+    addedVolumeM3: sum(contributions.map((c) => c.addedVolumeM3)),
+    meanAddedDischargeM3s: sum(contributions.map((c) => c.meanAddedDischargeM3s)),
+    addedVolumeRangeM3: contributions.length ? sharedEnsemble(contributions, (c) => c.ensembleAddedM3) : null,
+    meanAddedDischargeRangeM3s: contributions.length ? sharedEnsemble(contributions, (c) => c.ensembleAddedDischargeM3s) : null,
+    ranking,
+  };
+}
+
+/** 5–95 % of one catchment's ensemble added volume; null without an ensemble. */
+export function contributionRange(c: CatchmentContribution): { p5: number; p50: number; p95: number } | null {
+  return c.ensembleAddedM3.size > 0 ? band5to95([...c.ensembleAddedM3.values()]) : null;
+}
