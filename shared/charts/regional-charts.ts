@@ -1,5 +1,6 @@
 import type { RegionalTemplate } from '../schemas/studies';
-import { axis, chartNumber, GRID, LEGEND, TOOLTIP, type ChartSpec } from './chart-spec';
+import { axis, chartNumber, GRID, LEGEND, type ChartSpec } from './chart-spec';
+import { TOOLTIP } from './chart-style';
 
 const MILLION = 1e6;
 /** Catchments drawn one by one in the monthly chart; the rest are summed as one. */

@@ -1,6 +1,6 @@
 /**
  * Bare-ice albedo lowered by impurities: a user-set linear rule, not a published
- * parameterisation (SCIENCE.md: "ice darkening by impurities is a user-set rule").
+ * parameterisation (docs/science.md, bare ice darkening).
  *   α = max(floor, αclean − sBC · BC/1000 − sdust · dust/100)
  * with BC in ng g⁻¹ and dust in µg g⁻¹. The floor defaults to the lower end of dirty ice, 0.15
  * (Paterson 1994 Table 4.1) [memory].

@@ -9,7 +9,7 @@ import { nse, kge } from './skill';
 
 /**
  * Reference checks against published values. Tolerance table (units of the quantity):
- *   sun zenith/azimuth vs NREL SPA ........ 0.1°   (SCIENCE.md: suncalc 2.x lands within ~0.1°)
+ *   sun zenith/azimuth vs NREL SPA ........ 0.1°   (docs/science.md: suncalc 2.x lands within ~0.1°)
  *   incidence angle vs SPA ................ 0.01°
  *   Ra vs FAO-56 Example 8 ................ 0.05 MJ m⁻² d⁻¹ (published to 0.1)
  *   pressure vs ICAO table ................ 0.05 %
@@ -55,7 +55,7 @@ describe('standard atmosphere (ICAO 1993 table) [memory for the table values]', 
   });
 });
 
-describe('energy to melt (Lf = 3.34·10⁵ J kg⁻¹, SCIENCE.md [computed])', () => {
+describe('energy to melt (Lf = 3.34·10⁵ J kg⁻¹, computed from the constant)', () => {
   it('1 W m⁻² for a day melts 0.2587 mm w.e.', () => expect(Math.abs(meltMmPerDay(1) - 0.2587)).toBeLessThan(1e-4));
   it('a melting surface emits 315.6 W m⁻² (stated to 0.1)', () => expect(Math.abs(MELTING_SURFACE_LONGWAVE_WM2 - 315.6)).toBeLessThan(0.1));
   it('a deficit melts nothing', () => expect(meltMmPerDay(-50)).toBe(0));
