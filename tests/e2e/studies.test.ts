@@ -87,6 +87,10 @@ describe('regional studies in the browser', () => {
     await page.waitForSelector(`[data-test=shared-with] :text("${account('client').email}")`);
     await page.click('[data-test=tab-draft]');
     await page.click('[data-test=publish]');
+    // Publishing asks first, naming the client it is shared with.
+    await page.waitForSelector('[data-test=publish-dialog]');
+    expect(await page.textContent('[data-test=publish-shared-with]')).toContain(account('client').email);
+    await page.click('[data-test=publish-confirm]');
     await page.waitForSelector('[data-test=briefing-version]:has-text("Version 1")');
     await page.close();
 
