@@ -9,7 +9,8 @@
  * throw-away organisation (30 catchments of 21 bands) that is removed afterwards; 20 more
  * throw-away organisations of the same size stand for the other tenants a list must skip.
  * The API runs in a process of its own (scripts/bench/runs-server.ts).
- * BENCH_SECONDS (default 8) and BENCH_ROUNDS (default 3) bound the time.
+ * BENCH_SECONDS (default 8) and BENCH_ROUNDS (default 3) bound the time; BENCH_ROUTES (health,
+ * read, write; comma-separated, default all) picks routes, e.g. to profile one with BENCH_PROFILE_DIR.
  */
 import autocannon from 'autocannon';
 import bcrypt from 'bcryptjs';
@@ -23,6 +24,7 @@ import { startApiProcess } from './api-process';
 
 const SECONDS = Number(process.env.BENCH_SECONDS ?? 8);
 const ROUNDS = Number(process.env.BENCH_ROUNDS ?? 3);
+const ONLY = process.env.BENCH_ROUTES ? process.env.BENCH_ROUTES.split(',').map((r) => r.trim()) : null;
 const CONNECTIONS = 100;
 const CATCHMENTS_PER_ORG = 30;
 const OTHER_ORGS = 20;
@@ -55,6 +57,7 @@ async function addOrganisation(label: string, email?: string): Promise<number> {
 }
 
 interface Target {
+  key: 'health' | 'read' | 'write';
   label: string;
   method: 'GET' | 'PUT';
   path: string;
@@ -72,7 +75,7 @@ async function measure(origin: string, cookie: string, target: Target) {
     headers: { cookie, origin, 'content-type': 'application/json' },
   });
   const failed = result.non2xx + result.errors + result.timeouts;
-  return { load, reqPerSec: result.requests.average, p50: result.latency.p50, p99: result.latency.p99, failed };
+  return { load, reqPerSec: result.requests.average, p50: result.latency.p50, p99: result.latency.p99, failed, answered: result.requests.total };
 }
 
 async function main(): Promise<void> {
@@ -92,24 +95,30 @@ async function main(): Promise<void> {
       name: `${c.name} 0`, description: c.description, latitudeDeg: c.latitudeDeg, longitudeDeg: c.longitudeDeg, timeZone: c.timeZone,
       stationName: c.stationName, stationElevationM: c.stationElevationM, outletDescription: c.outletDescription,
     };
-    const targets: Target[] = [
-      { label: 'GET /api/health', method: 'GET', path: '/api/health' },
-      { label: 'GET /api/catchments (signed in)', method: 'GET', path: '/api/catchments' },
-      { label: 'PUT /api/catchments/:id (signed in)', method: 'PUT', path: `/api/catchments/${catchmentId}`, body: JSON.stringify(form) },
-    ];
+    const targets = ([
+      { key: 'health', label: 'GET /api/health', method: 'GET', path: '/api/health' },
+      { key: 'read', label: 'GET /api/catchments (signed in)', method: 'GET', path: '/api/catchments' },
+      { key: 'write', label: 'PUT /api/catchments/:id (signed in)', method: 'PUT', path: `/api/catchments/${catchmentId}`, body: JSON.stringify(form) },
+    ] satisfies Target[]).filter((t) => ONLY === null || ONLY.includes(t.key));
     console.log(`bench:api — ${CONNECTIONS} connections, ${SECONDS} s per route, ${ROUNDS} rounds, ${availableParallelism()} cores`);
     const rows: Record<string, unknown>[] = [];
+    let answered = 0;
     for (let round = 1; round <= ROUNDS; round++) {
       for (const target of targets) {
         const m = await measure(origin, cookie, target);
         rows.push({ round, route: target.label, ...m });
+        answered += m.answered;
         console.log(`  round ${round}  ${target.label.padEnd(38)} ${m.reqPerSec.toFixed(0).padStart(6)} req/s  p50 ${String(m.p50).padStart(4)} ms  p99 ${String(m.p99).padStart(4)} ms` +
           `  load avg ${m.load.toFixed(2)}${m.failed ? `  (${m.failed} failed answers)` : ''}`);
       }
     }
+    const { cpuMs } = await api.stop();
+    // Throughput and latency move with whatever else the 2 cores run; the API's CPU time per answer hardly does.
+    console.log(`  API process CPU per answer: ${((cpuMs! * 1000) / answered).toFixed(0)} µs (${answered} answers${targets.length > 1 ? ', all routes together' : ''})`);
     console.log(JSON.stringify(rows));
-  } finally {
+  } catch (error) {
     await api.stop();
+    throw error;
   }
 }
 

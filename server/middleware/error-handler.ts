@@ -1,6 +1,7 @@
 import type { NextFunction, Request, Response } from 'express';
 import { isConnectionLoss, isLockFailure, isUniqueViolation } from '../db-errors';
 import { AppError } from '../errors';
+import { recordFailure } from './request-log';
 
 interface HttpLikeError {
   status?: number;
@@ -22,7 +23,7 @@ interface Answer {
 export function errorHandler(err: unknown, _req: Request, res: Response, _next: NextFunction): void {
   const answer = describe(err);
   // The request log picks the error up from here (its codes and frames only).
-  if (answer.status >= 500) res.err = err as Error;
+  if (answer.status >= 500) recordFailure(res, err);
   if (res.headersSent) return;
   if (answer.retryAfterSeconds !== undefined) res.setHeader('Retry-After', String(answer.retryAfterSeconds));
   res.status(answer.status).json({ error: answer.body });

@@ -1,5 +1,5 @@
 import request from 'supertest';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { catchmentFields } from '../support/catchments';
 import { createOrganisation, signedInAgent } from '../support/factories';
 import { tcpSwitch } from '../support/tcp-switch';
@@ -17,6 +17,36 @@ describe('GET /api/health', () => {
     expect(res.status).toBe(200);
     expect(res.body).toEqual({ status: 'ok', db: 'up', redis: 'up', workers: expect.any(Number) });
     expect(res.body.workers).toBeGreaterThanOrEqual(1);
+  });
+
+  it('lets probes that arrive during a check share it, and checks afresh for the next probe', async () => {
+    const real = t.ctx.queues.health.bind(t.ctx.queues);
+    let release!: () => void;
+    const held = new Promise<void>((resolve) => { release = resolve; });
+    const checks = vi.spyOn(t.ctx.queues, 'health').mockImplementation(async () => {
+      await held;
+      return real();
+    });
+    try {
+      const server = t.app.listen(0, '127.0.0.1');
+      await new Promise((resolve) => server.once('listening', resolve));
+      try {
+        const probes = Array.from({ length: 5 }, () => request(server).get('/api/health').then((res) => res));
+        await vi.waitFor(() => expect(checks).toHaveBeenCalledTimes(1));
+        // Give the other probes time to arrive while the first check is held.
+        await new Promise((resolve) => setTimeout(resolve, 150));
+        release();
+        const answers = await Promise.all(probes);
+        expect(answers.map((res) => res.status)).toEqual([200, 200, 200, 200, 200]);
+        expect(checks).toHaveBeenCalledTimes(1);
+        expect((await request(server).get('/api/health')).status).toBe(200);
+        expect(checks).toHaveBeenCalledTimes(2);
+      } finally {
+        server.close();
+      }
+    } finally {
+      checks.mockRestore();
+    }
   });
 
   it('reports Redis down with 503 when the queue cannot be reached, and no worker on a queue nobody takes from', async () => {

@@ -95,3 +95,31 @@ describe('changing the password', () => {
     expect(res.body.error.field).toBe('newPassword');
   });
 });
+
+describe('the session check under concurrent requests', () => {
+  it("shares one read of the user's row among checks that arrive together, and refuses a session revoked before the next check", async () => {
+    const user = org.users.scientist;
+    const row = await t.db('users').where({ id: user.id }).first('token_version');
+    const reads: string[] = [];
+    const countReads = (query: { sql: string }) => {
+      if (/from `users`/.test(query.sql)) reads.push(query.sql);
+    };
+    t.db.on('query', countReads);
+    try {
+      const together = await Promise.all(Array.from({ length: 6 }, () => t.ctx.auth.activeUser(user.id, org.organisationId, row.token_version)));
+      expect(together.every((u) => u?.id === user.id)).toBe(true);
+      expect(reads).toHaveLength(1);
+      // Each request got a copy of its own.
+      expect(new Set(together).size).toBe(6);
+
+      await t.db('users').where({ id: user.id }).increment('token_version', 1);
+      expect(await t.ctx.auth.activeUser(user.id, org.organisationId, row.token_version)).toBeNull();
+      expect(reads).toHaveLength(2);
+      // The row's organisation is checked, not taken from the token.
+      expect(await t.ctx.auth.activeUser(user.id, org.organisationId + 1, row.token_version + 1)).toBeNull();
+    } finally {
+      t.db.removeListener('query', countReads);
+      await t.db('users').where({ id: user.id }).update({ token_version: row.token_version });
+    }
+  });
+});

@@ -25,6 +25,8 @@ const COMMON_PASSWORD = 'This password appears in published lists of breached pa
 export class AuthService {
   // Compared against when the e-mail is unknown, so both answers take the same time.
   private readonly dummyHash: string;
+  /** User rows being read for a session check, by user id (see activeUser). */
+  private readonly usersBeingRead = new Map<number, Promise<UserRow | undefined>>();
 
   constructor(
     private readonly db: Knex,
@@ -74,10 +76,21 @@ export class AuthService {
   }
 
   /** The active user a token refers to, or null when it has been revoked. */
+  /**
+   * The session's user when the session still holds: same organisation, active, token not revoked.
+   * Requests of one user that arrive while the user's row is being read share that read (a page
+   * load sends several at once): each answer is at most one query's time old, as any read is.
+   */
   async activeUser(userId: number, organisationId: number, tokenVersion: number): Promise<UserRow | null> {
-    const user = await this.db<UserRow>('users').where({ id: userId, organisation_id: organisationId }).first();
-    if (!user || user.status !== 'active' || user.token_version !== tokenVersion) return null;
-    return user;
+    let reading = this.usersBeingRead.get(userId);
+    if (!reading) {
+      reading = this.db<UserRow>('users').where({ id: userId }).first().finally(() => this.usersBeingRead.delete(userId));
+      this.usersBeingRead.set(userId, reading);
+    }
+    const user = await reading;
+    if (!user || user.organisation_id !== organisationId || user.status !== 'active' || user.token_version !== tokenVersion) return null;
+    // Each request gets its own copy of the shared row.
+    return { ...user };
   }
 
   async me(user: UserRow): Promise<MeResponse> {
