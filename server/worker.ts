@@ -10,6 +10,7 @@ import { labProcessor } from './queue/lab-processor';
 import { failRun, memberProcessor, messageOf } from './queue/member-processor';
 import { OrganisationSlots } from './queue/organisation-slots';
 import { RunInputsCache } from './queue/run-inputs-cache';
+import { RunProgress } from './queue/run-progress';
 import { LabPool } from './services/lab/lab-pool';
 import { RunQueue } from './services/runs/run-queue';
 import { SimulationPool } from './services/runs/simulation-pool';
@@ -61,7 +62,7 @@ export async function startWorker(config: AppConfig, logger: Logger): Promise<Ru
     maxStalledCount: 3,
   };
   const memberWorker = new Worker<MemberJobData>('simulations', memberProcessor({
-    db, pool: simulations, slots, inputs: new RunInputsCache(db), logger, holding: held,
+    db, pool: simulations, slots, inputs: new RunInputsCache(db), progress: new RunProgress(redis, config.queue.prefix), logger, holding: held,
   }), { ...common, concurrency: threads.threads * 2 });
   const labWorker = new Worker<LabJobData>('lab', labProcessor(labPool, logger), { ...common, concurrency: threads.threads * 2 });
 

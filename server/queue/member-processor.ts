@@ -8,6 +8,7 @@ import { TenantScope } from '../services/tenant-scope';
 import type { MemberJobData } from './jobs';
 import type { OrganisationSlots } from './organisation-slots';
 import type { RunInputsCache } from './run-inputs-cache';
+import type { RunProgress } from './run-progress';
 
 export interface MemberProcessorDeps {
   db: Knex;
@@ -15,6 +16,8 @@ export interface MemberProcessorDeps {
   slots: OrganisationSlots;
   inputs: RunInputsCache;
   logger: Logger;
+  /** Members' fractions done, shared by every worker (see run-progress.ts). */
+  progress: RunProgress;
   /** How long a job waits before trying again when its organisation is at its limit. */
   retryDelayMs?: number;
   /** Called with the run id while a job of it is held (the cancel listener stops them by run). */
@@ -44,11 +47,14 @@ export async function failRun(db: Knex, runId: number, message: string): Promise
  * (UnrecoverableError: not retried); anything else (a lost connection) is retried by the queue.
  */
 export function memberProcessor(deps: MemberProcessorDeps) {
-  const { db, pool, slots, inputs, logger } = deps;
+  const { db, pool, slots, inputs, progress, logger } = deps;
   return async (job: Job<MemberJobData>, token?: string, signal?: AbortSignal): Promise<MemberOutcome> => {
     const { runId, organisationId, memberIndex } = job.data;
     const jobId = job.id!;
     const log = logger.child({ jobId, runId, memberIndex, attempt: job.attemptsStarted });
+    // A one-member run's share is its member's fraction; a longer run's counts every member's, stored or simulating.
+    let memberCount = 1;
+    const runShare = (fraction: number) => (memberCount === 1 ? Promise.resolve(fraction) : progress.report(runId, memberIndex, fraction, memberCount));
     // What the job needs is read side by side: the run's state, a slot of its organisation, its inputs (cached per run).
     const [run, slot] = await Promise.all([
       db('runs').where({ id: runId, organisation_id: organisationId }).first('status', 'simulation_count'),
@@ -58,6 +64,7 @@ export function memberProcessor(deps: MemberProcessorDeps) {
       if (slot) await slots.release(organisationId, jobId);
       return { outcome: 'skipped', finished: false };
     }
+    memberCount = run.simulation_count;
     if (!slot) {
       await job.moveToDelayed(Date.now() + (deps.retryDelayMs ?? 200) * (1 + Math.random()), token);
       throw new DelayedError();
@@ -78,10 +85,11 @@ export function memberProcessor(deps: MemberProcessorDeps) {
       if (run.status === 'queued') await db('runs').where({ id: runId, status: 'queued' }).update({ status: 'running', started_at: db.fn.now(3) });
       let lastWrite = 0;
       const onProgress = (fraction: number) => {
-        // A one-member run moves within its simulation; longer runs move as members are stored.
-        if (run.simulation_count !== 1 || Date.now() - lastWrite < PROGRESS_WRITE_MS) return;
+        if (Date.now() - lastWrite < PROGRESS_WRITE_MS) return;
         lastWrite = Date.now();
-        void db('runs').where({ id: runId, status: 'running' }).update({ progress: Math.min(fraction, 0.99) }).catch(() => undefined);
+        void runShare(fraction)
+          .then((share) => db('runs').where({ id: runId, status: 'running' }).update({ progress: db.raw('GREATEST(progress, ?)', [Math.min(share, 0.99)]) }))
+          .catch(() => undefined);
       };
       let summary;
       try {
@@ -92,6 +100,7 @@ export function memberProcessor(deps: MemberProcessorDeps) {
         throw new UnrecoverableError(messageOf(error));
       }
       const outcome = await storeMember(scope, runId, plan, summary);
+      if (memberCount > 1) void (outcome.finished ? progress.forget(runId) : runShare(1)).catch(() => undefined);
       log.info({ outcome: outcome.outcome, finished: outcome.finished }, 'member stored');
       return outcome;
     } finally {

@@ -49,7 +49,19 @@ describe('a multi-decade run', () => {
     expect(started.status).toBe(202);
     expect(started.body.run.transient).toMatchObject(PATH);
     expect(started.body.run.period).toBeNull();
+    // Progress moves with the simulated years, not only as each of the two members is stored.
+    const seen = new Set<number>();
+    let watching = true;
+    const watch = (async () => {
+      while (watching) {
+        seen.add(Number((await t.db('runs').where('id', started.body.run.id).first('progress')).progress));
+        await new Promise((r) => setTimeout(r, 50));
+      }
+    })();
     const run = await waitForRun(consultant, catchmentId, started.body.run.id, 120_000);
+    watching = false;
+    await watch;
+    expect([...seen].some((p) => p > 0 && p < 1 && p !== 0.5), [...seen].join(', ')).toBe(true);
     expect(run.status, run.errorMessage ?? '').toBe('done');
     const res = await consultant.get(`/api/catchments/${catchmentId}/runs/${run.id}/years`);
     expect(res.status).toBe(200);

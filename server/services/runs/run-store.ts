@@ -42,7 +42,8 @@ export async function storeMember(scope: TenantScope, runId: number, plan: Membe
     const finished = Number(stored) >= run.simulation_count;
     await s.from('runs').where('id', runId).update(finished
       ? { status: 'done', progress: 1, error_message: null, finished_at: s.db.fn.now(3) }
-      : { status: 'running', progress: Number(stored) / run.simulation_count, started_at: s.db.raw('COALESCE(started_at, NOW(3))') });
+      // Never backwards: members still simulating may have moved it further (see queue/run-progress.ts).
+      : { status: 'running', progress: s.db.raw('GREATEST(progress, ?)', [Number(stored) / run.simulation_count]), started_at: s.db.raw('COALESCE(started_at, NOW(3))') });
     return { outcome: existing ? 'already-stored' : 'stored', finished };
   });
 }
