@@ -31,16 +31,15 @@ export interface AppContext
   /** The job queues in Redis that worker processes (server/worker.ts) take simulations from. */
   queues: JobQueues;
   /**
-   * At server start: queues again the jobs of runs still open (idempotent), marks lab jobs an
-   * earlier process left running as failed and starts a thread per pool.
+   * At server start: queues again the jobs of runs still open (idempotent), ends as failed the lab
+   * jobs the queue no longer has, and starts a thread per pool.
    */
   start(): Promise<void>;
   /**
-   * Waits for lab jobs under way (at most `graceMs`, after which those left end failed with the
-   * restart message; without it, until they end), then stops the worker threads, the queue
-   * connections and the mail transport. Runs stay queued: the workers go on with them. The database stays open.
+   * Stops the worker threads, the queue connections and the mail transport. Runs and lab jobs
+   * stay queued or running: the workers go on with them. The database stays open.
    */
-  close(graceMs?: number): Promise<void>;
+  close(): Promise<void>;
 }
 
 export interface ContextOptions {
@@ -98,13 +97,11 @@ export function createContext(config: AppConfig, db: Knex, options: ContextOptio
     async start() {
       // Runs live in the database and the queue: their jobs are added again where one was lost.
       await runServices.runQueue.recover();
-      // A lab job's steps are driven from the process that started it: one left running cannot resume.
+      // Lab jobs are carried out by the workers too; only one whose queue job was lost cannot go on.
       await labServices.lab.jobs.recover();
       for (const pool of pools) pool.warm();
     },
-    async close(graceMs?: number) {
-      if (graceMs === undefined) await labServices.lab.jobs.idle();
-      else await labServices.lab.jobs.stop(graceMs);
+    async close() {
       // The geodata pool is not warmed: its threads start with the first upload.
       await Promise.all([...pools, geodataServices.geodata.pool].map((pool) => pool.close()));
       await queues.close();

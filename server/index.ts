@@ -17,11 +17,10 @@ export async function startServer(options: ContextOptions = {}): Promise<{ close
   return {
     url: http.url,
     ctx,
-    // One deadline for the whole shutdown: answers in progress first, then runs and lab jobs with what is left of it.
+    // Answers in progress are given their grace; runs and lab jobs go on in the workers.
     close: async () => {
-      const deadline = Date.now() + config.shutdownGraceMs;
       await http.close();
-      await ctx.close(Math.max(0, deadline - Date.now()));
+      await ctx.close();
       await db.destroy();
     },
   };

@@ -5,17 +5,22 @@ import { createDb } from './db';
 import { createLogger, safeError, type Logger } from './logger';
 import { createRedis, redisOptions } from './queue/connection';
 import { JobQueues } from './queue/job-queues';
-import { CANCEL_CHANNEL, CANCEL_LAB_CHANNEL, JOB_OPTIONS, type LabJobData, type MemberJobData } from './queue/jobs';
+import { CANCEL_CHANNEL, CANCEL_LAB_CHANNEL, CANCEL_LAB_JOB_CHANNEL, JOB_OPTIONS, labJobQueueId, type LabJobData, type LabJobRunData, type MemberJobData } from './queue/jobs';
+import { labJobProcessor } from './queue/lab-job-processor';
 import { labProcessor } from './queue/lab-processor';
 import { failRun, memberProcessor, messageOf } from './queue/member-processor';
 import { OrganisationSlots } from './queue/organisation-slots';
 import { RunInputsCache } from './queue/run-inputs-cache';
 import { RunProgress } from './queue/run-progress';
 import { LabPool } from './services/lab/lab-pool';
+import { LabQueue } from './services/lab/lab-queue';
 import { RunQueue } from './services/runs/run-queue';
 import { SimulationPool } from './services/runs/simulation-pool';
 import { settledWithin } from './services/settled-within';
 import { ThreadBudget } from './services/thread-budget';
+
+/** Lab jobs one worker process carries out at once (each mostly waiting for its steps). */
+const LAB_JOBS_AT_ONCE = 4;
 
 export interface RunningWorker {
   /** Stops taking jobs, waits up to `graceMs` for those in hand (the rest go back to the queue), then closes. */
@@ -40,7 +45,8 @@ class HeldJobs {
 
 /**
  * A worker process: takes run members and lab computations from the queues in Redis and runs
- * them on its own worker threads (WORKER_THREADS), writing results to MariaDB. Any number of
+ * them on its own worker threads (WORKER_THREADS), carries out lab jobs (adding their steps to
+ * the lab queue), and writes results to MariaDB. Any number of
  * them, on any machine that reaches the same Redis and MariaDB, share the work.
  */
 export async function startWorker(config: AppConfig, logger: Logger): Promise<RunningWorker> {
@@ -65,6 +71,8 @@ export async function startWorker(config: AppConfig, logger: Logger): Promise<Ru
     db, pool: simulations, slots, inputs: new RunInputsCache(db), progress: new RunProgress(redis, config.queue.prefix), logger, holding: held,
   }), { ...common, concurrency: threads.threads * 2 });
   const labWorker = new Worker<LabJobData>('lab', labProcessor(labPool, logger), { ...common, concurrency: threads.threads * 2 });
+  // A lab job mostly waits for its steps (taken by the lab workers of every process): a few at once, on a worker of their own so they never hold the steps' places.
+  const labJobWorker = new Worker<LabJobRunData>('lab-jobs', labJobProcessor({ db, runner: new LabQueue(queues, config.workerThreads), logger }), { ...common, concurrency: LAB_JOBS_AT_ONCE });
 
   memberWorker.on('failed', (job: Job<MemberJobData> | undefined, error: Error) => {
     if (!job) return;
@@ -81,7 +89,7 @@ export async function startWorker(config: AppConfig, logger: Logger): Promise<Ru
       })
       .catch((e: unknown) => logger.error({ jobId: job.id, err: safeError(e) }, 'could not record a failed run'));
   });
-  for (const worker of [memberWorker, labWorker]) {
+  for (const worker of [memberWorker, labWorker, labJobWorker]) {
     worker.on('stalled', (jobId) => logger.warn({ jobId, queue: worker.name }, 'job stalled; back to the queue'));
     worker.on('error', (e) => logger.error({ queue: worker.name, err: safeError(e) }, 'queue error'));
   }
@@ -89,22 +97,26 @@ export async function startWorker(config: AppConfig, logger: Logger): Promise<Ru
   const subscriber = createRedis(config.queue);
   const runChannel = `${config.queue.prefix}:${CANCEL_CHANNEL}`;
   const labChannel = `${config.queue.prefix}:${CANCEL_LAB_CHANNEL}`;
+  const labJobChannel = `${config.queue.prefix}:${CANCEL_LAB_JOB_CHANNEL}`;
   subscriber.on('message', (channel: string, message: string) => {
     if (channel === runChannel) {
       for (const runId of JSON.parse(message) as number[]) for (const jobId of held.of(runId)) memberWorker.cancelJob(jobId, 'cancelled');
     } else if (channel === labChannel) {
       labWorker.cancelJob(message, 'cancelled');
+    } else if (channel === labJobChannel) {
+      labJobWorker.cancelJob(labJobQueueId(Number(message)), 'cancelled');
     }
   });
-  await subscriber.subscribe(runChannel, labChannel);
-  await Promise.all([memberWorker.waitUntilReady(), labWorker.waitUntilReady()]);
+  await subscriber.subscribe(runChannel, labChannel, labJobChannel);
+  await Promise.all([memberWorker.waitUntilReady(), labWorker.waitUntilReady(), labJobWorker.waitUntilReady()]);
   simulations.warm();
   logger.info({ threads: threads.threads, worker: common.name }, 'worker taking jobs');
 
   return {
     async close(graceMs: number) {
-      const closing = Promise.all([memberWorker.close(), labWorker.close()]);
-      if (!(await settledWithin(closing, graceMs))) await Promise.all([memberWorker.close(true), labWorker.close(true)]);
+      const workers = [memberWorker, labWorker, labJobWorker];
+      const closing = Promise.all(workers.map((w) => w.close()));
+      if (!(await settledWithin(closing, graceMs))) await Promise.all(workers.map((w) => w.close(true)));
       subscriber.disconnect();
       redis.disconnect();
       await queues.close();

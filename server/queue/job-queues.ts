@@ -2,7 +2,7 @@ import { Queue, QueueEvents } from 'bullmq';
 import type { Redis } from 'ioredis';
 import type { AppConfig } from '../config';
 import { createRedis, redisOptions } from './connection';
-import type { LabJobData, MemberJobData, QueueName } from './jobs';
+import type { LabJobData, LabJobRunData, MemberJobData, QueueName } from './jobs';
 
 /** What the health check and the queue page say about the queue. */
 export interface QueueHealth {
@@ -12,12 +12,13 @@ export interface QueueHealth {
 }
 
 /**
- * The API's side of the queue: the two queues it adds jobs to, one listener for lab results and
+ * The API's side of the queue: the three queues it adds jobs to, one listener for lab results and
  * progress, and a publisher for cancels. Connections open on first use and reconnect by themselves.
  */
 export class JobQueues {
   readonly simulations;
   readonly lab;
+  readonly labJobs;
   private events: QueueEvents | null = null;
   private publisher: Redis | null = null;
 
@@ -25,6 +26,7 @@ export class JobQueues {
     const options = { connection: redisOptions(settings), prefix: settings.prefix };
     this.simulations = new Queue<MemberJobData>('simulations', options);
     this.lab = new Queue<LabJobData>('lab', options);
+    this.labJobs = new Queue<LabJobRunData>('lab-jobs', options);
     // While Redis is away every reconnect attempt fails: said once per ten seconds, not per attempt.
     let last = 0;
     const report = (error: Error) => {
@@ -34,10 +36,11 @@ export class JobQueues {
     };
     this.simulations.on('error', report);
     this.lab.on('error', report);
+    this.labJobs.on('error', report);
   }
 
   queue(name: QueueName) {
-    return name === 'simulations' ? this.simulations : this.lab;
+    return name === 'simulations' ? this.simulations : name === 'lab' ? this.lab : this.labJobs;
   }
 
   /** Completion and progress of lab jobs (one listener for the process). */
@@ -73,7 +76,7 @@ export class JobQueues {
   }
 
   async close(): Promise<void> {
-    await Promise.all([this.simulations.close(), this.lab.close(), this.events?.close()]);
+    await Promise.all([this.simulations.close(), this.lab.close(), this.labJobs.close(), this.events?.close()]);
     this.publisher?.disconnect();
   }
 }

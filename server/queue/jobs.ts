@@ -2,10 +2,12 @@ import type { JobsOptions } from 'bullmq';
 
 /**
  * The queues: `simulations` holds run members (single runs and study runs), `lab` the lab's
- * computations (curves a scientist waits for, sweep and calibration steps). A worker process takes
- * from both; within a queue a lower priority number goes first.
+ * computations (curves a scientist waits for, sweep and calibration steps), `lab-jobs` the lab's
+ * long jobs themselves (a sweep, a calibration), each carried out by a worker that adds its steps
+ * to `lab` and keeps the job's row up to date. A worker process takes from all three; within a
+ * queue a lower priority number goes first.
  */
-export const QUEUE_NAMES = ['simulations', 'lab'] as const;
+export const QUEUE_NAMES = ['simulations', 'lab', 'lab-jobs'] as const;
 export type QueueName = (typeof QUEUE_NAMES)[number];
 
 /**
@@ -29,6 +31,16 @@ export interface LabJobData {
   task: string;
 }
 
+/** One lab job (its row in lab_jobs): what it does, as structured-clone bytes of a LabJobWork (services/lab/lab-job-work.ts). */
+export interface LabJobRunData {
+  organisationId: number;
+  labJobId: number;
+  work: string;
+}
+
+/** The queue job of a lab job: one per row, so it is never added twice. */
+export const labJobQueueId = (labJobId: number) => `lab-job-${labJobId}`;
+
 /** The job of a run's member: one id per member, so adding it again (recovery) never doubles it. */
 export const memberJobId = (runId: number, memberIndex: number) => `run-${runId}-${memberIndex}`;
 
@@ -46,5 +58,7 @@ export const JOB_OPTIONS: JobsOptions = {
 
 /** Published when runs are cancelled: every worker stops its jobs of those runs. */
 export const CANCEL_CHANNEL = 'cancel-runs';
-/** Published when a lab job is cancelled: the worker holding it stops it. */
+/** Published when a lab computation is cancelled: the worker holding it stops it. */
 export const CANCEL_LAB_CHANNEL = 'cancel-lab';
+/** Published with a lab job's id when it is cancelled: the worker carrying it out stops it and its steps. */
+export const CANCEL_LAB_JOB_CHANNEL = 'cancel-lab-job';

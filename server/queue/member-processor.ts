@@ -83,7 +83,8 @@ export function memberProcessor(deps: MemberProcessorDeps) {
         return await storeMember(scope, runId, plan, null);
       }
       if (run.status === 'queued') await db('runs').where({ id: runId, status: 'queued' }).update({ status: 'running', started_at: db.fn.now(3) });
-      let lastWrite = 0;
+      // A member done within the first interval (most season runs) writes no progress of its own: storing it moves the run.
+      let lastWrite = Date.now();
       const onProgress = (fraction: number) => {
         if (Date.now() - lastWrite < PROGRESS_WRITE_MS) return;
         lastWrite = Date.now();

@@ -49,7 +49,7 @@ export async function queueStatus(queues: JobQueues, scope: TenantScope, organis
       const run = job.data.runId ? byId.get(job.data.runId) : undefined;
       const label = run
         ? `Run ${run.id} (${run.scenario_name}, ${run.catchment}): simulation ${(job.data.memberIndex ?? 0) + 1} of ${run.simulation_count}`
-        : queue === 'lab' ? 'Lab computation' : `Simulation of a removed run`;
+        : queue === 'lab' ? 'Lab computation' : queue === 'lab-jobs' ? 'Lab sweep or calibration' : `Simulation of a removed run`;
       return { queue, jobId: job.id!, label, message: job.failedReason || 'Failed without a message.', attempts: job.attemptsMade, failedAt: job.finishedOn ? new Date(job.finishedOn).toISOString() : null };
     }),
     workers: health.workers,

@@ -1,10 +1,11 @@
 import { z } from 'zod';
 
-export const QUEUE_LABELS = { simulations: 'Run simulations', lab: 'Lab computations' } as const;
+export const QUEUE_LABELS = { simulations: 'Run simulations', lab: 'Lab computations', 'lab-jobs': 'Lab sweeps and calibrations' } as const;
+const queueName = z.enum(['simulations', 'lab', 'lab-jobs']);
 
 /** One queue as an organisation's admin sees it: only the organisation's own jobs are counted. */
 export const queueCountsSchema = z.object({
-  name: z.enum(['simulations', 'lab']),
+  name: queueName,
   label: z.string(),
   waiting: z.number().int(),
   active: z.number().int(),
@@ -17,7 +18,7 @@ export const queueCountsSchema = z.object({
 });
 
 export const failedJobSchema = z.object({
-  queue: z.enum(['simulations', 'lab']),
+  queue: queueName,
   jobId: z.string(),
   /** What the job was, in plain words ("Run 12 of Upper Vell: simulation 3 of 52"). */
   label: z.string(),

@@ -7,6 +7,7 @@ import { geodeticSkillReplySchema, remoteSensingCalibrationSchema, snowCoverSkil
 import { createOrganisation, signedInAgent, type TestOrg } from '../support/factories';
 import { createDemoCatchment } from '../support/lab-catchment';
 import { grantActivePlan } from '../support/paid-plan';
+import { waitForJob } from '../support/lab-jobs';
 import { createTestApp, type TestApp } from '../support/test-app';
 
 let t: TestApp;
@@ -75,9 +76,7 @@ describe('remote sensing as calibration targets in the lab', () => {
     const started = await scientist.post(`/api/lab/catchments/${catchmentId}/calibrations`)
       .send({ target: 'geodetic', keys: ['iceAlbedo'], period: { from: '2022-10-01', to: '2023-09-30' }, maxEvaluations: 10 });
     expect(started.status, JSON.stringify(started.body)).toBe(202);
-    let job: LabJob = labJobSchema.parse(started.body);
-    await t.ctx.lab.jobs.idle();
-    job = labJobSchema.parse((await scientist.get(`/api/lab/jobs/${job.id}`)).body);
+    const job: LabJob = await waitForJob(scientist, labJobSchema.parse(started.body).id);
     expect(job.status, job.error ?? '').toBe('done');
     const result = remoteSensingCalibrationSchema.parse(job.result);
     if (result.target !== 'geodetic') throw new Error(`a ${result.target} calibration came back`);

@@ -1,4 +1,4 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import type { Express } from 'express';
 import { createTestApp, type TestApp } from '../support/test-app';
 import { createOrganisation, signedInAgent, unique, type TestOrg } from '../support/factories';
@@ -229,6 +229,15 @@ describe('jobs: sweeps and automatic calibration', () => {
     expect(cancelled.status).toBe(200);
     expect(cancelled.body.status).toBe('cancelled');
     expect((await scientist.post(`/api/lab/jobs/${res.body.id}/cancel`)).status).toBe(409);
+    // The worker stops it and its steps: nothing of it is left in the queues, and the row stays as the cancel wrote it.
+    await vi.waitFor(async () => {
+      const open = [
+        ...await t.ctx.queues.labJobs.getJobs(['waiting', 'prioritized', 'active', 'delayed']),
+        ...await t.ctx.queues.lab.getJobs(['waiting', 'prioritized', 'active', 'delayed']),
+      ];
+      expect(open.filter((j) => j.data.organisationId === org.organisationId)).toEqual([]);
+    }, { timeout: 20_000, interval: 100 });
+    expect((await scientist.get(`/api/lab/jobs/${res.body.id}`)).body).toMatchObject({ status: 'cancelled', error: 'Cancelled by a member of the organisation.' });
   });
   it('closes a job row that no running process holds when it is cancelled', async () => {
     const scientist = await signedInAgent(app, org.users.scientist.email);

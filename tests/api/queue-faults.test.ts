@@ -5,7 +5,11 @@ import { OrganisationSlots } from '../../server/queue/organisation-slots';
 import { createRedis } from '../../server/queue/connection';
 import { loadMembers } from '../../server/services/runs/run-store';
 import { TenantScope } from '../../server/services/tenant-scope';
-import { createOrganisation, type TestOrg } from '../support/factories';
+import { sweepResultSchema } from '../../shared/schemas/lab';
+import { createOrganisation, signedInAgent, type TestOrg } from '../support/factories';
+import { createDemoCatchment } from '../support/lab-catchment';
+import { waitForJob } from '../support/lab-jobs';
+import { grantActivePlan } from '../support/paid-plan';
 import { queueRun, runEnded, valleyRunInputs } from '../support/queued-runs';
 import { startTestRedis, type TestRedis } from '../support/redis-server';
 import { createTestApp, type TestApp } from '../support/test-app';
@@ -159,4 +163,26 @@ describe('the job queue under faults', () => {
     expect((await t.db('runs').where('id', busy).first('status')).status).toBe('running');
     await t.ctx.runs.cancelOpen(new TenantScope(t.db, org.organisationId), [busy]);
   });
+
+  it('finishes a lab sweep whose worker is killed (SIGKILL) mid-job: another worker takes the job over', async () => {
+    await stopWorkers();
+    const doomed = await worker();
+    await grantActivePlan(t.db, org.organisationId);
+    const catchmentId = await createDemoCatchment(t.db, org.organisationId, { withDischarge: false });
+    const scientist = await signedInAgent(t.app, org.users.scientist.email);
+    const started = await scientist.post(`/api/lab/catchments/${catchmentId}/sweeps`)
+      .send({ period: { from: '2022-06-01', to: '2022-08-31' }, axes: [{ variable: 'temperatureDeltaC', from: 0, to: 2, steps: 5 }, { variable: 'blackCarbonIceNgG', from: 0, to: 1000, steps: 4 }] });
+    expect(started.status, JSON.stringify(started.body)).toBe(202);
+    await until(async () => (await t.db('lab_jobs').where('id', started.body.id).first('status')).status === 'running');
+    doomed.child.kill('SIGKILL');
+    await doomed.stop();
+    workers.splice(0);
+    await worker();
+    const job = await waitForJob(scientist, started.body.id);
+    expect(job.status, job.error ?? '').toBe('done');
+    const result = sweepResultSchema.parse(job.result);
+    expect(result.meltMm.flat()).toHaveLength(20);
+    expect(result.meltMm.flat().every((v) => Number.isFinite(v) && v > 0)).toBe(true);
+  });
 });
+

@@ -2,10 +2,12 @@ import http from 'node:http';
 import { describe, expect, it, vi } from 'vitest';
 import { listenDraining } from '../../server/http-server';
 import request from 'supertest';
-import type { UserRow } from '../../server/services/auth/auth-service';
-import { insertBaseline } from '../../server/services/catchments/baseline-scenario';
+import { sweepResultSchema } from '../../shared/schemas/lab';
 import { TenantScope } from '../../server/services/tenant-scope';
-import { TEST_PASSWORD, unique } from '../support/factories';
+import { signedInAgent, TEST_PASSWORD, unique } from '../support/factories';
+import { createDemoCatchment } from '../support/lab-catchment';
+import { waitForJob } from '../support/lab-jobs';
+import { grantActivePlan } from '../support/paid-plan';
 import { createTestApp } from '../support/test-app';
 import { withOrganisation } from '../support/test-org';
 
@@ -78,35 +80,48 @@ describe('graceful shutdown', () => {
   });
 });
 
-describe('runs and lab jobs at shutdown', () => {
-  it('waits for lab jobs only until the grace is over, then ends them failed with the restart message; runs stay queued for the workers', async () => {
+describe('runs and lab jobs across a restart of the API', () => {
+  it('leaves runs queued and lets a lab sweep started before the restart finish in the workers', async () => {
     const app = createTestApp();
+    const organisation_id = f.org.organisationId;
+    const scope = new TenantScope(app.db, organisation_id);
+    await grantActivePlan(app.db, organisation_id);
+    const catchment = await createDemoCatchment(app.db, organisation_id, { withDischarge: false });
+    const scenario = (await app.db('scenarios').where({ catchment_id: catchment }).first('id')).id as number;
+    // A run lives in the database and the queue, not in the API's memory: a restart leaves it as it is.
+    const runId = await scope.insert('runs', {
+      catchment_id: catchment, scenario_id: scenario, scenario_name: 'Baseline', is_baseline: true, changes: '{}', status: 'queued',
+      engine_version: 'test', input_hash: 'a'.repeat(64),
+    });
+    const scientist = await signedInAgent(app.app, f.org.users.scientist.email);
+    const started = await scientist.post(`/api/lab/catchments/${catchment}/sweeps`)
+      .send({ period: { from: '2022-06-01', to: '2022-08-31' }, axes: [{ variable: 'temperatureDeltaC', from: 0, to: 2, steps: 3 }] });
+    expect(started.status, JSON.stringify(started.body)).toBe(202);
+
+    await within(app.ctx.close(), 3000);
+    await app.db.destroy();
+    const again = createTestApp();
     try {
-      const organisation_id = f.org.organisationId;
-      const scope = new TenantScope(app.db, organisation_id);
-      const catchment = await scope.insert('catchments', {
-        name: unique('Shutdown basin '), description: '', latitude_deg: 46, longitude_deg: 9, time_zone: 'UTC', station_name: 'Camp', station_elevation_m: 2000, outlet_description: '',
-      });
-      await insertBaseline(scope, catchment, null);
-      const scenario = (await app.db('scenarios').where({ catchment_id: catchment }).first('id')).id as number;
-      // A run lives in the database and the queue, not in the API's memory: a restart leaves it as it is.
-      const runId = await scope.insert('runs', {
-        catchment_id: catchment, scenario_id: scenario, scenario_name: 'Baseline', is_baseline: true, changes: '{}', status: 'queued',
-        engine_version: 'test', input_hash: 'a'.repeat(64),
-      });
-      const user = (await app.db('users').where({ id: f.org.users.scientist.id }).first()) as UserRow;
-      const job = await app.ctx.lab.jobs.start(scope, user, catchment, 'sweep', {}, (signal) =>
-        new Promise((_resolve, reject) => signal.addEventListener('abort', () => reject(signal.reason))));
-
-      const started = Date.now();
-      await within(app.ctx.close(300), 3000);
-      expect(Date.now() - started).toBeGreaterThanOrEqual(290);
-
-      expect(await app.db('runs').where({ id: runId }).first('status', 'error_message')).toEqual({ status: 'queued', error_message: null });
-      expect(await app.db('lab_jobs').where({ id: job.id }).first('status', 'error_message'))
-        .toEqual({ status: 'failed', error_message: expect.stringMatching(/server restarted/) });
+      expect(await again.db('runs').where({ id: runId }).first('status', 'error_message')).toEqual({ status: 'queued', error_message: null });
+      const job = await waitForJob(await signedInAgent(again.app, f.org.users.scientist.email), started.body.id);
+      expect(job.status, job.error ?? '').toBe('done');
+      expect(sweepResultSchema.parse(job.result).axes[0]!.values).toHaveLength(3);
+      await again.db('runs').where({ id: runId }).delete();
     } finally {
-      await app.db.destroy();
+      await again.close();
     }
+  });
+
+  it("ends as failed, with a message, a lab job whose queue job was lost, when the API starts", async () => {
+    const scope = new TenantScope(f.t.db, f.org.organisationId);
+    const catchment = await scope.insert('catchments', {
+      name: unique('Lost job basin '), description: '', latitude_deg: 46, longitude_deg: 9, time_zone: 'UTC', station_name: 'Camp', station_elevation_m: 2000, outlet_description: '',
+    });
+    const lost = await scope.insert('lab_jobs', {
+      catchment_id: catchment, kind: 'sweep', status: 'running', request: '{}', created_by_name: 'gone', created_at: new Date(Date.now() - 5 * 60_000),
+    });
+    await f.t.ctx.start();
+    expect(await f.t.db('lab_jobs').where({ id: lost }).first('status', 'error_message'))
+      .toEqual({ status: 'failed', error_message: expect.stringMatching(/lost by the job queue/) });
   });
 });

@@ -14,6 +14,6 @@ export interface LabServices {
 
 /** The lab: its computations on the lab queue (run by the worker processes), its jobs, the saved calibrations and the water-balance closure. */
 export function createLabServices(deps: { db: Knex; bands: BandService; queues: JobQueues; workerThreads: number; water: WaterServices }): LabServices {
-  const lab = new LabService(deps.db, deps.bands, new LabQueue(deps.queues, deps.workerThreads), new CalibrationStore(), deps.water);
+  const lab = new LabService(deps.db, deps.queues, deps.bands, new LabQueue(deps.queues, deps.workerThreads), new CalibrationStore(), deps.water);
   return { lab, waterBalance: new WaterBalanceService(lab, deps.water) };
 }

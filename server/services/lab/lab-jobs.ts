@@ -1,9 +1,12 @@
 import type { Knex } from 'knex';
 import type { LabJob } from '../../../shared/schemas/lab';
 import { conflict } from '../../errors';
+import { encodePayload } from '../../queue/job-payload';
+import type { JobQueues } from '../../queue/job-queues';
+import { CANCEL_LAB_JOB_CHANNEL, labJobQueueId, type LabJobRunData } from '../../queue/jobs';
 import type { UserRow } from '../auth/auth-service';
-import { settledWithin } from '../settled-within';
 import type { TenantScope } from '../tenant-scope';
+import type { LabJobWork } from './lab-job-work';
 
 interface JobRow {
   id: number;
@@ -20,13 +23,16 @@ interface JobRow {
   finished_at: Date | null;
 }
 
-/** What a job does: gets a signal that aborts on cancel and a progress reporter (0 … 1, message). */
-export type JobWork = (signal: AbortSignal, report: (fraction: number, message?: string) => void) => Promise<unknown>;
+const LOST_MESSAGE = 'This job was lost by the job queue before it finished; start it again.';
+const CANCELLED_MESSAGE = 'Cancelled by a member of the organisation.';
 
-const PROGRESS_WRITE_MS = 300;
-const RESTART_MESSAGE = 'The server restarted before this job finished; start it again.';
-/** The abort reason of jobs cut by a shutdown (a member's cancel gives another). */
-const SHUTDOWN = new Error(RESTART_MESSAGE);
+/**
+ * A fault (a worker lost mid-job) is retried by another worker, which finds the steps already
+ * done; a job that fails for its input fails once (its processor says so). A finished job leaves
+ * the queue at once (its row keeps the result; its inputs can be large); failed ones stay a week
+ * for the queue page.
+ */
+const LAB_JOB_OPTIONS = { attempts: 3, backoff: { type: 'fixed', delay: 1000 }, removeOnComplete: true, removeOnFail: { age: 7 * 24 * 3600, count: 1000 } } as const;
 
 function toJob(row: JobRow): LabJob {
   return {
@@ -45,32 +51,37 @@ function toJob(row: JobRow): LabJob {
 }
 
 /**
- * Lab jobs (sweeps, automatic calibrations): a row per job holds its status and progress for
- * polling; the work runs in this process (on the lab's worker pool) and can be cancelled.
- * Lifecycle: running → done | failed | cancelled.
+ * Lab jobs (sweeps, calibrations, water-balance closures): a row per job holds its status,
+ * progress and result for polling; the work itself is a job on the `lab-jobs` queue, carried out
+ * by a worker process (server/queue/lab-job-processor.ts), so neither a restart of the API nor
+ * the loss of one worker ends it. Lifecycle: queued → running → done | failed | cancelled.
  */
 export class LabJobs {
-  private readonly active = new Map<number, AbortController>();
-  private readonly running = new Set<Promise<void>>();
+  constructor(
+    private readonly db: Knex,
+    private readonly queues: JobQueues,
+  ) {}
 
-  constructor(private readonly db: Knex) {}
-
-  /** Marks jobs an earlier process left running as failed. */
+  /**
+   * At server start: rows left open whose job the queue no longer has (Redis lost its data) end
+   * failed with a message. A row of the last minute is left alone: another API process may be
+   * adding its job at this moment.
+   */
   async recover(): Promise<void> {
-    await this.db('lab_jobs').whereIn('status', ['queued', 'running']).update({ status: 'failed', error_message: RESTART_MESSAGE, finished_at: this.db.fn.now() });
+    const open: { id: number }[] = await this.db('lab_jobs').whereIn('status', ['queued', 'running'])
+      .where('created_at', '<', new Date(Date.now() - 60_000)).select('id');
+    for (const { id } of open) {
+      if (await this.queues.labJobs.getJob(labJobQueueId(id))) continue;
+      await this.db('lab_jobs').where('id', id).whereIn('status', ['queued', 'running']).update({ status: 'failed', error_message: LOST_MESSAGE, finished_at: this.db.fn.now() });
+    }
   }
 
-  async start(scope: TenantScope, user: UserRow, catchmentId: number, kind: LabJob['kind'], request: unknown, work: JobWork): Promise<LabJob> {
+  async start(scope: TenantScope, user: UserRow, catchmentId: number, kind: LabJob['kind'], request: unknown, work: LabJobWork): Promise<LabJob> {
     const id = await scope.insert('lab_jobs', {
-      catchment_id: catchmentId, kind, status: 'running', request: JSON.stringify(request), created_by: user.id, created_by_name: user.name,
+      catchment_id: catchmentId, kind, status: 'queued', request: JSON.stringify(request), created_by: user.id, created_by_name: user.name,
     });
-    const controller = new AbortController();
-    this.active.set(id, controller);
-    const done = this.execute(id, work, controller.signal).finally(() => {
-      this.active.delete(id);
-      this.running.delete(done);
-    });
-    this.running.add(done);
+    const data: LabJobRunData = { organisationId: scope.organisationId, labJobId: id, work: encodePayload(work) };
+    await this.queues.labJobs.add('lab-job', data, { ...LAB_JOB_OPTIONS, jobId: labJobQueueId(id) });
     return this.get(scope, id);
   }
 
@@ -83,56 +94,17 @@ export class LabJobs {
     return rows.map((r) => ({ ...toJob(r), result: null }));
   }
 
+  /** Ends the job as cancelled: a job still waiting leaves the queue, the worker carrying one out stops it and its steps. */
   async cancel(scope: TenantScope, id: number): Promise<LabJob> {
     const job = await this.get(scope, id);
-    if (job.status !== 'running') throw conflict(`This job has already ${job.status === 'done' ? 'finished' : job.status === 'failed' ? 'failed' : 'been cancelled'}.`);
-    const controller = this.active.get(id);
-    if (controller) {
-      controller.abort(new Error('Cancelled.'));
-      await this.idleJob(id);
-    } else {
-      // Running in a process that no longer holds it (e.g. another server instance that stopped): just close the row.
-      await scope.from('lab_jobs').where('id', id).update({ status: 'cancelled', error_message: 'Cancelled by a member of the organisation.', finished_at: scope.db.fn.now() });
+    if (job.status !== 'running' && job.status !== 'queued') {
+      throw conflict(`This job has already ${job.status === 'done' ? 'finished' : job.status === 'failed' ? 'failed' : 'been cancelled'}.`);
     }
+    await scope.from('lab_jobs').where('id', id).whereIn('status', ['queued', 'running'])
+      .update({ status: 'cancelled', error_message: CANCELLED_MESSAGE, finished_at: scope.db.fn.now() });
+    // A job a worker holds is locked and stays; that worker hears the cancel.
+    await this.queues.labJobs.remove(labJobQueueId(id)).catch(() => undefined);
+    await this.queues.publish(CANCEL_LAB_JOB_CHANNEL, String(id));
     return this.get(scope, id);
   }
-
-  /** Resolves when no job is running (tests). */
-  async idle(): Promise<void> {
-    while (this.running.size > 0) await Promise.allSettled([...this.running]);
-  }
-
-  /** Shutdown within a deadline: waits up to `graceMs` for the jobs running, then ends the rest as failed with the restart message. */
-  async stop(graceMs: number): Promise<void> {
-    if (await settledWithin(this.idle(), graceMs)) return;
-    for (const controller of this.active.values()) controller.abort(SHUTDOWN);
-    await this.idle();
-  }
-
-  private async idleJob(id: number): Promise<void> {
-    for (let i = 0; i < 100 && this.active.has(id); i++) await new Promise((r) => setTimeout(r, 20));
-  }
-
-  private async execute(id: number, work: JobWork, signal: AbortSignal): Promise<void> {
-    let lastWrite = 0;
-    let pending: Promise<unknown> = Promise.resolve();
-    const report = (fraction: number, message = '') => {
-      const now = Date.now();
-      if (now - lastWrite < PROGRESS_WRITE_MS) return;
-      lastWrite = now;
-      pending = this.db('lab_jobs').where({ id, status: 'running' }).update({ progress: Math.min(1, Math.max(0, fraction)), message: message.slice(0, 500) });
-    };
-    try {
-      const result = await work(signal, report);
-      await pending;
-      await this.db('lab_jobs').where('id', id).update({ status: 'done', progress: 1, message: '', result: JSON.stringify(result), finished_at: this.db.fn.now() });
-    } catch (error) {
-      await pending.catch(() => undefined);
-      const cancelled = signal.aborted && signal.reason !== SHUTDOWN;
-      const message = cancelled ? 'Cancelled by a member of the organisation.'
-        : signal.aborted ? RESTART_MESSAGE : (error instanceof Error ? error.message : String(error)).slice(0, 2000);
-      await this.db('lab_jobs').where('id', id).update({ status: cancelled ? 'cancelled' : 'failed', error_message: message, finished_at: this.db.fn.now() });
-    }
-  }
 }
-

@@ -12,8 +12,12 @@ export interface LabRunner {
   run<R>(task: LabTask, options?: LabRunOptions): Promise<R>;
 }
 
-/** A lab computation's options: those of a thread pool, and the organisation it is for (the queue page shows each its own). */
-export type LabRunOptions = RunOptions & { organisationId: number };
+/**
+ * A lab computation's options: those of a thread pool, the organisation it is for (the queue page
+ * shows each its own) and, for a step of a lab job, a job id of its own (added again by a job
+ * taken over after a fault, it finds the step there, done or under way, instead of doubling it).
+ */
+export type LabRunOptions = RunOptions & { organisationId: number; jobId?: string };
 
 /**
  * The lab's computations as jobs on the `lab` queue: the API adds the task and waits for its
@@ -30,6 +34,7 @@ export class LabQueue implements LabRunner {
     await events.waitUntilReady();
     const job: Job<LabJobData> = await this.queues.lab.add('lab', { organisationId: options.organisationId, task: encodePayload(task) }, {
       priority: PRIORITY[options.priority ?? 'interactive'],
+      jobId: options.jobId,
       // A computation is worth retrying only after a fault (a worker lost); its own errors fail at once.
       attempts: 3, backoff: { type: 'fixed', delay: 200 },
       removeOnComplete: { age: 60 }, removeOnFail: { age: 24 * 3600, count: 1000 },

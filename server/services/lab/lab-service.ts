@@ -5,7 +5,7 @@ import type { LabTask } from '../../workers/lab-worker';
 import type { ReferenceComparison } from '../../../shared/lab/reference-models';
 import type { SurfaceResponseResult } from '../../../shared/lab/surface-response';
 import type { StakeComparison } from '../../../shared/lab/stake-balance';
-import { assembleSweep, sweepCells, type SweepPlan, type SweepSetup } from '../../../shared/lab/sweep';
+import { sweepCells, type SweepPlan } from '../../../shared/lab/sweep';
 import type {
   BandQuery, CalibrationJobRequest, LabJob, SaveCalibrationRequest, SavedCalibration, SkillRequest, StakeSkillRequest, SurfaceResponse,
   SweepJobRequest,
@@ -20,6 +20,7 @@ import type { WaterServices } from '../water';
 import { LabJobs } from './lab-jobs';
 import { RemoteSensingLab } from './remote-sensing-lab';
 import type { LabRunner } from './lab-queue';
+import type { JobQueues } from '../../queue/job-queues';
 
 /** Worker tasks per thread in a sweep: a few, so every thread stays busy to the end. */
 const TASKS_PER_THREAD = 4;
@@ -31,9 +32,9 @@ export class LabService {
   /** Snow-cover maps and the geodetic balance as calibration targets. */
   readonly remoteSensing: RemoteSensingLab;
 
-  constructor(db: Knex, bands: BandService, readonly pool: LabRunner, readonly calibrations: CalibrationStore, water: WaterServices) {
+  constructor(db: Knex, queues: JobQueues, bands: BandService, readonly pool: LabRunner, readonly calibrations: CalibrationStore, water: WaterServices) {
     this.data = new LabData(bands, water.waterInputs);
-    this.jobs = new LabJobs(db);
+    this.jobs = new LabJobs(db, queues);
     this.remoteSensing = new RemoteSensingLab(this.data, pool, (scope, catchmentId) => this.calibratedParameters(scope, catchmentId));
   }
 
@@ -117,20 +118,7 @@ export class LabService {
     const size = Math.ceil(cells.length / (this.pool.threads * TASKS_PER_THREAD));
     const chunks: number[][][] = [];
     for (let i = 0; i < cells.length; i += size) chunks.push(cells.slice(i, i + size).map((c) => c.values));
-    return this.jobs.start(scope, user, catchmentId, 'sweep', plan, async (signal, report) => {
-      report(0, 'Building the snowpack before the period');
-      const { setup, baseline } = await this.pool.run<{ setup: SweepSetup; baseline: number }>({ kind: 'sweepSetup', site, plan }, { signal, priority: 'batch', organisationId: scope.organisationId });
-      const done = new Array<number>(chunks.length).fill(0);
-      const onCells = (k: number) => (fraction: number) => {
-        done[k] = fraction * chunks[k].length;
-        const total = done.reduce((s, v) => s + v, 0);
-        report(total / cells.length, `${Math.round(total)} of ${cells.length} runs`);
-      };
-      const parts = await Promise.all(chunks.map((chunk, k) => this.pool.run<number[]>(
-        { kind: 'sweepCells', setup, cells: chunk }, { onProgress: onCells(k), signal, priority: 'batch', organisationId: scope.organisationId },
-      )));
-      return assembleSweep(plan, baseline, parts.flat());
-    });
+    return this.jobs.start(scope, user, catchmentId, 'sweep', plan, { shape: 'sweep', site, plan, chunks });
   }
 
   async startCalibration(scope: TenantScope, user: UserRow, catchmentId: number, request: CalibrationJobRequest): Promise<LabJob> {
@@ -144,11 +132,7 @@ export class LabService {
       : request.target === 'stakes'
         ? { kind: 'calibrateStakes', ...common, observed: await this.data.observedStakes(scope, catchmentId) }
         : { kind: 'calibrate', ...common, observed: await this.data.observedDischarge(scope, catchmentId, span) };
-    const onProgress = (report: (fraction: number, message: string) => void) => (fraction: number) =>
-      report(fraction, `${Math.round(fraction * request.maxEvaluations)} of at most ${request.maxEvaluations} model runs`);
-    return this.jobs.start(scope, user, catchmentId, 'calibration', request, (signal, report) => this.pool.run(
-      task, { onProgress: onProgress(report), signal, priority: 'batch', organisationId: scope.organisationId },
-    ));
+    return this.jobs.start(scope, user, catchmentId, 'calibration', request, { shape: 'single', task, progress: { kind: 'evaluations', max: request.maxEvaluations } });
   }
 
   private async evaluate(scope: TenantScope, catchmentId: number, period: { from: string; to: string }, set: CalibrationSet): Promise<DischargeEvaluation> {

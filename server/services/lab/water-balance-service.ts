@@ -31,10 +31,9 @@ export class WaterBalanceService {
     const set = await this.lab.calibratedParameters(scope, catchmentId);
     const site = await this.lab.data.site(scope, catchmentId, request.period, set);
     const task = await this.task(scope, catchmentId, request, site);
-    return this.lab.jobs.start(scope, user, catchmentId, 'water-balance', request, (signal, report) => this.lab.pool.run(
-      { kind: 'waterBalance', site, task, maxEvaluations: MAX_EVALUATIONS },
-      { onProgress: (f) => report(f, 'Closing the water balance: engine runs over the period'), signal, priority: 'batch', organisationId: scope.organisationId },
-    ));
+    return this.lab.jobs.start(scope, user, catchmentId, 'water-balance', request, {
+      shape: 'single', task: { kind: 'waterBalance', site, task, maxEvaluations: MAX_EVALUATIONS }, progress: { kind: 'text', text: 'Closing the water balance: engine runs over the period' },
+    });
   }
 
   async history(scope: TenantScope, catchmentId: number): Promise<{ current: SavedClosure | null; history: SavedClosure[] }> {
