@@ -26,7 +26,9 @@ export function errorHandler(err: unknown, _req: Request, res: Response, _next: 
   if (answer.status >= 500) recordFailure(res, err);
   if (res.headersSent) return;
   if (answer.retryAfterSeconds !== undefined) res.setHeader('Retry-After', String(answer.retryAfterSeconds));
-  res.status(answer.status).json({ error: answer.body });
+  // A download route may have named its file type before the error came (`res.type('png').send(await …)`): the error is JSON, and no attachment.
+  res.removeHeader('Content-Disposition');
+  res.status(answer.status).type('json').json({ error: answer.body });
 }
 
 function describe(err: unknown): Answer {
