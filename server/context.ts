@@ -31,13 +31,13 @@ export interface AppContext
   /** The job queues in Redis that worker processes (server/worker.ts) take simulations from. */
   queues: JobQueues;
   /**
-   * At server start: queues again the jobs of runs still open (idempotent), marks lab jobs an
-   * earlier process left running as failed and starts a thread per pool.
+   * At server start: queues again the jobs of runs still open (idempotent), marks lab jobs and
+   * batches of outlines an earlier process left running as failed and starts a thread per pool.
    */
   start(): Promise<void>;
   /**
-   * Waits for lab jobs under way (at most `graceMs`, after which those left end failed with the
-   * restart message; without it, until they end), then stops the worker threads, the queue
+   * Waits for lab jobs and batches of outlines under way (at most `graceMs`, after which those
+   * left end failed with the restart message; without it, until they end), then stops the worker threads, the queue
    * connections and the mail transport. Runs stay queued: the workers go on with them. The database stays open.
    */
   close(graceMs?: number): Promise<void>;
@@ -71,7 +71,7 @@ export function createContext(config: AppConfig, db: Knex, options: ContextOptio
   const runServices = createRunServices({
     db, bands: catchmentServices.bands, calibrations: labServices.lab.calibrations, queues, water: waterServices, catchmentInputs: options.catchmentInputs,
   });
-  const studyServices = createStudyServices(runServices);
+  const studyServices = createStudyServices({ ...runServices, ...geodataServices, db, logger });
   const briefingServices = createBriefingServices({
     results: runServices.results, studyResults: studyServices.studyResults, invitations: memberServices.invitations, mail: mailServices.mail, publicUrl: () => config.publicUrl,
     threads, briefingResults: options.briefingResults,
@@ -98,13 +98,14 @@ export function createContext(config: AppConfig, db: Knex, options: ContextOptio
     async start() {
       // Runs live in the database and the queue: their jobs are added again where one was lost.
       await runServices.runQueue.recover();
-      // A lab job's steps are driven from the process that started it: one left running cannot resume.
+      // A lab job's steps, and a batch of outlines being derived, are driven from the process that started them: one left running cannot resume.
       await labServices.lab.jobs.recover();
+      await studyServices.outlineBatches.recover();
       for (const pool of pools) pool.warm();
     },
     async close(graceMs?: number) {
-      if (graceMs === undefined) await labServices.lab.jobs.idle();
-      else await labServices.lab.jobs.stop(graceMs);
+      if (graceMs === undefined) await Promise.all([labServices.lab.jobs.idle(), studyServices.outlineBatches.idle()]);
+      else await Promise.all([labServices.lab.jobs.stop(graceMs), studyServices.outlineBatches.stop(graceMs)]);
       // The geodata pool is not warmed: its threads start with the first upload.
       await Promise.all([...pools, geodataServices.geodata.pool].map((pool) => pool.close()));
       await queues.close();
