@@ -3,7 +3,7 @@ import { tmpdir } from 'node:os';
 import type { NextFunction, Request, RequestHandler, Response } from 'express';
 import multer from 'multer';
 import { AppError, badRequest } from '../errors';
-import { GEODATA_LIMITS } from '../services/geodata/limits';
+import { GEODATA_LIMITS } from '../../shared/geodata/limits';
 import { RASTER_LAYERS, type GeodataLayer } from '../../shared/schemas/geodata';
 import { OUTLINE_BATCH_LAYERS } from '../../shared/schemas/outline-batches';
 

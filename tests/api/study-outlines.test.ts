@@ -264,6 +264,22 @@ describe('catchments of a study from many outlines over one DEM', () => {
     expect((await consultant.get(`/api/studies/${studyId}/outline-batches/${first.body.batch.token}`)).status).toBe(404);
   }, 120_000);
 
+  it('fails a file of outlines the server stops reading, saying so, keeps none of its files, and fails one left by a process gone', async () => {
+    const before = (await stored()).sort();
+    const res = await send(consultant, studyId, { dem: demo.dem.bytes, outlines: await outlinesNamed(unique('Stop')) }, { horizonSectors: 72 });
+    expect(res.status).toBe(202);
+    await t.ctx.outlineBatches.stop(0);
+    const batch = await ready(consultant, studyId, res.body.batch.token);
+    expect(batch).toMatchObject({ status: 'failed', error: 'The server restarted while the outlines were being read; upload the files again.', canConfirm: false });
+    const confirm = await consultant.post(`/api/studies/${studyId}/outline-batches/${batch.token}/confirm`);
+    expect(confirm.status).toBe(409);
+    expect(confirm.body.error.message).toBe(batch.error);
+    expect((await stored()).sort()).toEqual(before);
+    await t.db('pending_outline_batches').where('token', batch.token).update({ status: 'reading', error_message: null });
+    await t.ctx.outlineBatches.recover();
+    expect((await ready(consultant, studyId, batch.token)).status).toBe('failed');
+  }, 120_000);
+
   it('adds outlines only to a study not yet started', async () => {
     const started = await newStudy();
     await t.db('studies').where('id', started).update({ started_at: new Date() });

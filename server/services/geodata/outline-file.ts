@@ -3,7 +3,7 @@ import type { Crs } from '../../../shared/geodata/crs';
 import { GeodataError } from '../../../shared/geodata/errors';
 import { outlineFromGeoJson, outlineLabel, type Outline } from '../../../shared/geodata/outline';
 import { outlineFeaturesFromGeoJson, type OutlineFeature } from '../../../shared/geodata/outline-features';
-import { GEODATA_LIMITS } from './limits';
+import { GEODATA_LIMITS } from '../../../shared/geodata/limits';
 import { readZippedShapefile } from './shapefile-reader';
 
 /** Reads an uploaded outline file as one outline (every polygon of every feature). */

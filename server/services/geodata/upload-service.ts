@@ -1,4 +1,4 @@
-import { GEODATA_LIMITS } from './limits';
+import { GEODATA_LIMITS } from '../../../shared/geodata/limits';
 import { SINGLE_LAYERS, type GeodataLayer, type GeodataUpload, type GeodataUploadFields, type UploadSummary } from '../../../shared/schemas/geodata';
 import type { ElevationRange } from '../../../shared/geodata/table-zones';
 import { validationFailed } from '../../errors';
