@@ -2,7 +2,7 @@ import type { Knex } from 'knex';
 import type { LabJob } from '../../../shared/schemas/lab';
 import { conflict } from '../../errors';
 import type { UserRow } from '../auth/auth-service';
-import { settledWithin } from '../settled-within';
+import { BackgroundWork } from '../background-work';
 import type { TenantScope } from '../tenant-scope';
 
 interface JobRow {
@@ -50,8 +50,7 @@ function toJob(row: JobRow): LabJob {
  * Lifecycle: running → done | failed | cancelled.
  */
 export class LabJobs {
-  private readonly active = new Map<number, AbortController>();
-  private readonly running = new Set<Promise<void>>();
+  private readonly work = new BackgroundWork<number>();
 
   constructor(private readonly db: Knex) {}
 
@@ -64,13 +63,7 @@ export class LabJobs {
     const id = await scope.insert('lab_jobs', {
       catchment_id: catchmentId, kind, status: 'running', request: JSON.stringify(request), created_by: user.id, created_by_name: user.name,
     });
-    const controller = new AbortController();
-    this.active.set(id, controller);
-    const done = this.execute(id, work, controller.signal).finally(() => {
-      this.active.delete(id);
-      this.running.delete(done);
-    });
-    this.running.add(done);
+    this.work.run(id, (signal) => this.execute(id, work, signal));
     return this.get(scope, id);
   }
 
@@ -86,11 +79,7 @@ export class LabJobs {
   async cancel(scope: TenantScope, id: number): Promise<LabJob> {
     const job = await this.get(scope, id);
     if (job.status !== 'running') throw conflict(`This job has already ${job.status === 'done' ? 'finished' : job.status === 'failed' ? 'failed' : 'been cancelled'}.`);
-    const controller = this.active.get(id);
-    if (controller) {
-      controller.abort(new Error('Cancelled.'));
-      await this.idleJob(id);
-    } else {
+    if (!(await this.work.abort(id, new Error('Cancelled.')))) {
       // Running in a process that no longer holds it (e.g. another server instance that stopped): just close the row.
       await scope.from('lab_jobs').where('id', id).update({ status: 'cancelled', error_message: 'Cancelled by a member of the organisation.', finished_at: scope.db.fn.now() });
     }
@@ -99,18 +88,12 @@ export class LabJobs {
 
   /** Resolves when no job is running (tests). */
   async idle(): Promise<void> {
-    while (this.running.size > 0) await Promise.allSettled([...this.running]);
+    await this.work.idle();
   }
 
   /** Shutdown within a deadline: waits up to `graceMs` for the jobs running, then ends the rest as failed with the restart message. */
   async stop(graceMs: number): Promise<void> {
-    if (await settledWithin(this.idle(), graceMs)) return;
-    for (const controller of this.active.values()) controller.abort(SHUTDOWN);
-    await this.idle();
-  }
-
-  private async idleJob(id: number): Promise<void> {
-    for (let i = 0; i < 100 && this.active.has(id); i++) await new Promise((r) => setTimeout(r, 20));
+    await this.work.stop(graceMs, SHUTDOWN);
   }
 
   private async execute(id: number, work: JobWork, signal: AbortSignal): Promise<void> {

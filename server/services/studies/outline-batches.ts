@@ -13,7 +13,7 @@ import type { OutlineBatchFiles, OutlineBatchRead } from '../geodata/outline-bat
 import type { StoredFile } from '../geodata/read-inputs';
 import type { TempFile } from '../geodata/upload-service';
 import { safeError, type Logger } from '../../logger';
-import { settledWithin } from '../settled-within';
+import { BackgroundWork } from '../background-work';
 import { TenantScope } from '../tenant-scope';
 import type { DeriveOutcome } from '../../workers/geodata-worker';
 import { createOutlineCatchments } from './outline-catchments';
@@ -44,8 +44,7 @@ const alreadyMade = () => conflict('The catchments of these outlines have alread
  * none. One batch of an organisation is read at a time.
  */
 export class OutlineBatches {
-  private readonly active = new Map<number, AbortController>();
-  private readonly running = new Set<Promise<void>>();
+  private readonly deriving = new BackgroundWork<number>();
   private readonly readingFor = new Set<number>();
 
   constructor(
@@ -130,11 +129,7 @@ export class OutlineBatches {
   async discard(scope: TenantScope, studyId: number, token: string): Promise<void> {
     const row = await this.pending(scope, studyId, token);
     if (row.claimed_at) throw alreadyMade();
-    const controller = this.active.get(row.id);
-    if (controller) {
-      controller.abort(new Error('Discarded.'));
-      await Promise.allSettled([...this.running]);
-    }
+    await this.deriving.abort(row.id, new Error('Discarded.'));
     await this.removeBatch(scope, row);
   }
 
@@ -145,14 +140,12 @@ export class OutlineBatches {
 
   /** Resolves when no batch is being derived (tests). */
   async idle(): Promise<void> {
-    while (this.running.size > 0) await Promise.allSettled([...this.running]);
+    await this.deriving.idle();
   }
 
   /** Shutdown within a deadline: waits up to `graceMs`, then stops the batches still deriving as failed with the restart message. */
   async stop(graceMs: number): Promise<void> {
-    if (await settledWithin(this.idle(), graceMs)) return;
-    for (const controller of this.active.values()) controller.abort(SHUTDOWN);
-    await this.idle();
+    await this.deriving.stop(graceMs, SHUTDOWN);
   }
 
   private async pending(scope: TenantScope, studyId: number, token: string): Promise<BatchRow> {
@@ -212,16 +205,9 @@ export class OutlineBatches {
   }
 
   private startDeriving(row: BatchRow, organisationId: number): void {
-    const controller = new AbortController();
-    this.active.set(row.id, controller);
-    const done = this.deriveAll(new TenantScope(this.db, organisationId), row, controller.signal).catch((error: unknown) => {
+    this.deriving.run(row.id, (signal) => this.deriveAll(new TenantScope(this.db, organisationId), row, signal).catch((error: unknown) => {
       this.logger.error({ err: safeError(error), batchId: row.id }, 'deriving a batch of outlines failed');
-    }).finally(() => {
-      this.active.delete(row.id);
-      this.running.delete(done);
-      this.readingFor.delete(organisationId);
-    });
-    this.running.add(done);
+    }).finally(() => this.readingFor.delete(organisationId)));
   }
 
   /** Derives every outline of the batch, as many at once as the thread budget has threads, then marks it ready (or failed). */
