@@ -37,15 +37,16 @@ export interface OutlineCatchmentsInput {
  * Files made for a transaction that fails are removed again.
  */
 export async function createOutlineCatchments(scope: TenantScope, store: GeodataStore, input: OutlineCatchmentsInput, alreadyMade: () => AppError): Promise<{ id: number; name: string }[]> {
-  const derivations = await Promise.all(input.outlines.map(async (o) => JSON.parse((await unpack(o.derived_gz!)).toString('utf8')) as DerivedOutline));
   const made: string[] = [];
   try {
     return await scope.transaction(async (s) => {
       const claimed = await s.from('pending_outline_batches').where('id', input.batchId).whereNull('claimed_at').update({ claimed_at: new Date() });
       if (claimed !== 1) throw alreadyMade();
       const created: { id: number; name: string }[] = [];
-      for (const [i, outline] of input.outlines.entries()) {
-        created.push({ id: await createOne(s, store, input, outline, derivations[i], made), name: outline.name! });
+      for (const outline of input.outlines) {
+        // One outline's derivation read at a time: a large batch's JSON never holds the event loop for long.
+        const derived = JSON.parse((await unpack(outline.derived_gz!)).toString('utf8')) as DerivedOutline;
+        created.push({ id: await createOne(s, store, input, outline, derived, made), name: outline.name! });
       }
       await addToStudy(s, input.studyId, created.map((c) => c.id));
       return created;
