@@ -100,12 +100,12 @@ export function createContext(config: AppConfig, db: Knex, options: ContextOptio
       await runServices.runQueue.recover();
       // A lab job's steps, and a batch of outlines being derived, are driven from the process that started them: one left running cannot resume.
       await labServices.lab.jobs.recover();
-      await studyServices.outlineBatches.recover();
+      await studyServices.outlineBatches.derivation.recover();
       for (const pool of pools) pool.warm();
     },
     async close(graceMs?: number) {
-      if (graceMs === undefined) await Promise.all([labServices.lab.jobs.idle(), studyServices.outlineBatches.idle()]);
-      else await Promise.all([labServices.lab.jobs.stop(graceMs), studyServices.outlineBatches.stop(graceMs)]);
+      if (graceMs === undefined) await Promise.all([labServices.lab.jobs.idle(), studyServices.outlineBatches.derivation.idle()]);
+      else await Promise.all([labServices.lab.jobs.stop(graceMs), studyServices.outlineBatches.derivation.stop(graceMs)]);
       // The geodata pool is not warmed: its threads start with the first upload.
       await Promise.all([...pools, geodataServices.geodata.pool].map((pool) => pool.close()));
       await queues.close();

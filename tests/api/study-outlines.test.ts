@@ -268,7 +268,7 @@ describe('catchments of a study from many outlines over one DEM', () => {
     const before = (await stored()).sort();
     const res = await send(consultant, studyId, { dem: demo.dem.bytes, outlines: await outlinesNamed(unique('Stop')) }, { horizonSectors: 72 });
     expect(res.status).toBe(202);
-    await t.ctx.outlineBatches.stop(0);
+    await t.ctx.outlineBatches.derivation.stop(0);
     const batch = await ready(consultant, studyId, res.body.batch.token);
     expect(batch).toMatchObject({ status: 'failed', error: 'The server restarted while the outlines were being read; upload the files again.', canConfirm: false });
     const confirm = await consultant.post(`/api/studies/${studyId}/outline-batches/${batch.token}/confirm`);
@@ -276,7 +276,7 @@ describe('catchments of a study from many outlines over one DEM', () => {
     expect(confirm.body.error.message).toBe(batch.error);
     expect((await stored()).sort()).toEqual(before);
     await t.db('pending_outline_batches').where('token', batch.token).update({ status: 'reading', error_message: null });
-    await t.ctx.outlineBatches.recover();
+    await t.ctx.outlineBatches.derivation.recover();
     expect((await ready(consultant, studyId, batch.token)).status).toBe('failed');
   }, 120_000);
 

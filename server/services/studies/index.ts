@@ -3,6 +3,8 @@ import type { Logger } from '../../logger';
 import type { GeodataServices } from '../geodata';
 import type { RunServices } from '../runs';
 import { OutlineBatches } from './outline-batches';
+import { OutlineDerivation } from './outline-derivation';
+import { PendingBatchFiles } from './pending-batch-files';
 import { StudyResults } from './study-results';
 import { StudyService } from './study-service';
 
@@ -16,9 +18,10 @@ export interface StudyServices {
 /** Regional studies: catchments × scenario templates run through the queue, their regional totals, and catchments made in bulk. */
 export function createStudyServices(deps: Pick<RunServices, 'scenarios' | 'runs'> & GeodataServices & { db: Knex; logger: Logger }): StudyServices {
   const studies = new StudyService(deps.scenarios, deps.runs);
+  const files = new PendingBatchFiles(deps.geodata.store);
   return {
     studies,
     studyResults: new StudyResults(studies),
-    outlineBatches: new OutlineBatches(deps.db, deps.geodata, studies, deps.logger),
+    outlineBatches: new OutlineBatches(deps.geodata.pool, files, new OutlineDerivation(deps.db, deps.geodata.pool, files, deps.logger), studies),
   };
 }

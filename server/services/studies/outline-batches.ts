@@ -1,37 +1,33 @@
 import { randomBytes } from 'node:crypto';
-import { promisify } from 'node:util';
-import { gzip } from 'node:zlib';
-import type { Knex } from 'knex';
 import type { OutlineBatch, OutlineBatchFields, OutlineBatchLayer } from '../../../shared/schemas/outline-batches';
 import type { Study } from '../../../shared/schemas/studies';
 import { AppError, badRequest, conflict, notFound, tooManyRequests, validationFailed } from '../../errors';
 import type { UserRow } from '../auth/auth-service';
-import { cellsName, hillshadeName } from '../geodata/derivation-service';
 import type { GeodataPool } from '../geodata/geodata-pool';
-import type { GeodataStore } from '../geodata/geodata-store';
-import type { OutlineBatchFiles, OutlineBatchRead } from '../geodata/outline-batch-reading';
-import type { StoredFile } from '../geodata/read-inputs';
+import type { OutlineBatchRead } from '../geodata/outline-batch-reading';
 import type { TempFile } from '../geodata/upload-service';
-import { safeError, type Logger } from '../../logger';
-import { BackgroundWork } from '../background-work';
-import { TenantScope } from '../tenant-scope';
-import type { DeriveOutcome } from '../../workers/geodata-worker';
+import type { TenantScope } from '../tenant-scope';
 import { createOutlineCatchments } from './outline-catchments';
-import { batchFiles, batchOptions, outlineLabel, outlineSummaryOf, PREVIEW_COLUMNS, toBatch, type BatchFile, type BatchFiles, type BatchOptions, type BatchRow, type OutlineRow, type OutlineSummary } from './outline-batch-rows';
-import { cellsProblem, nameProblems, takenProblem } from './outline-problems';
-import { climateSource, takenNames } from './region-catchments';
+import { batchFiles, batchOptions, outlineLabel, outlineSummaryOf, PREVIEW_COLUMNS, toBatch, type BatchFiles, type BatchOptions, type BatchRow, type OutlineRow, type OutlineSummary } from './outline-batch-rows';
+import type { OutlineDerivation } from './outline-derivation';
+import { nameProblems, takenProblem } from './outline-problems';
+import type { PendingBatchFiles } from './pending-batch-files';
+import { climateSource, takenNames, type ClimateSource } from './region-catchments';
 import type { StudyService } from './study-service';
 import { draftStudy } from './study-store';
 
-/** How long a preview waits for its confirm once read. */
-const PENDING_MINUTES = 60;
 /** Longest a batch may take to be read before it counts as expired. */
 const READING_HOURS = 12;
-const RESTART_MESSAGE = 'The server restarted while the outlines were being read; upload the files again.';
-const SHUTDOWN = new Error(RESTART_MESSAGE);
-const pack = promisify(gzip);
 
-type RegionFiles = Omit<OutlineBatchFiles, 'catchmentOutline'>;
+/** The catchment lending its station record, or a refusal of the field naming it (a body field, not the path: 422, not 404). */
+async function stationSource(scope: TenantScope, id: number, missing: string): Promise<ClimateSource> {
+  try {
+    return await climateSource(scope, id);
+  } catch (error) {
+    if (error instanceof AppError && error.status === 404) throw validationFailed(missing, 'climateFromCatchmentId');
+    throw error;
+  }
+}
 
 const alreadyMade = () => conflict('The catchments of these outlines have already been made (or are being made); reload the study to see them.');
 
@@ -44,14 +40,12 @@ const alreadyMade = () => conflict('The catchments of these outlines have alread
  * none. One batch of an organisation is read at a time.
  */
 export class OutlineBatches {
-  private readonly deriving = new BackgroundWork<number>();
-  private readonly readingFor = new Set<number>();
-
   constructor(
-    private readonly db: Knex,
-    private readonly geodata: { store: GeodataStore; pool: GeodataPool },
+    private readonly pool: GeodataPool,
+    private readonly files: PendingBatchFiles,
+    /** The background derivations (also what the context starts and stops). */
+    readonly derivation: OutlineDerivation,
     private readonly studies: StudyService,
-    private readonly logger: Logger,
   ) {}
 
   async read(scope: TenantScope, user: UserRow, studyId: number, upload: Partial<Record<OutlineBatchLayer, TempFile>>, fields: OutlineBatchFields): Promise<OutlineBatch> {
@@ -61,31 +55,28 @@ export class OutlineBatches {
     if (upload.debrisOutline && fields.debrisThicknessM === undefined) {
       throw validationFailed('Debris-cover outlines need a debris thickness: give one thickness in metres.', 'debrisThicknessM');
     }
-    await climateSource(scope, fields.climateFromCatchmentId).catch(() => {
-      throw validationFailed('The catchment chosen for the station record does not exist.', 'climateFromCatchmentId');
-    });
-    if (this.readingFor.has(scope.organisationId) || await scope.from('pending_outline_batches').where('status', 'reading').where('expires_at', '>', new Date()).first('id')) {
-      throw tooManyRequests('too_many_uploads', 'Your organisation is already reading a file of outlines; wait until it is done (or discard it), then try again.', 10);
-    }
-    this.readingFor.add(scope.organisationId);
+    await stationSource(scope, fields.climateFromCatchmentId, 'The catchment chosen for the station record does not exist.');
+    const busy = () => tooManyRequests('too_many_uploads', 'Your organisation is already reading a file of outlines; wait until it is done (or discard it), then try again.', 10);
+    if (!this.derivation.claim(scope.organisationId)) throw busy();
     let started = false;
     try {
-      await this.removeExpired(scope);
-      const files = await this.keep(scope, upload, fields);
+      if (await scope.from('pending_outline_batches').where('status', 'reading').where('expires_at', '>', new Date()).first('id')) throw busy();
+      await this.files.removeExpired(scope);
+      const files = await this.files.keep(scope, upload, fields);
       let read: OutlineBatchRead;
       try {
         const outlineFile = { path: upload.catchmentOutline.path, name: files.catchmentOutline.fileName };
-        read = await this.geodata.pool.work<OutlineBatchRead>({ kind: 'readOutlines', files: { ...this.regionFiles(scope, files), catchmentOutline: outlineFile } });
+        read = await this.pool.work<OutlineBatchRead>({ kind: 'readOutlines', files: { ...this.files.regionFiles(scope, files), catchmentOutline: outlineFile } });
       } catch (error) {
-        await this.removeFiles(scope, files);
+        await this.files.removeFiles(scope, files);
         throw error;
       }
       const batch = await this.insert(scope, user, studyId, files, read, fields);
-      this.startDeriving(batch, scope.organisationId);
+      this.derivation.start(batch, scope.organisationId);
       started = true;
       return this.get(scope, studyId, batch.token);
     } finally {
-      if (!started) this.readingFor.delete(scope.organisationId);
+      if (!started) this.derivation.release(scope.organisationId);
     }
   }
 
@@ -115,13 +106,12 @@ export class OutlineBatches {
       throw validationFailed(`Nothing was made. ${outlineLabel(first.feature, first.name)}: ${first.message}${more}`, 'catchmentOutline', { problems });
     }
     const options = batchOptions(row);
-    const source = await climateSource(scope, options.climateFromCatchmentId).catch(() => {
-      throw validationFailed('The catchment whose station record the new catchments were to use no longer exists; upload the outlines again and choose another.', 'climateFromCatchmentId');
-    });
+    const source = await stationSource(scope, options.climateFromCatchmentId,
+      'The catchment whose station record the new catchments were to use no longer exists; upload the outlines again and choose another.');
     const files = batchFiles(row);
-    const created = await createOutlineCatchments(scope, this.geodata.store, { batchId: row.id, studyId, files, options, outlines, source, userId: user.id }, alreadyMade);
+    const created = await createOutlineCatchments(scope, this.files.store, { batchId: row.id, studyId, files, options, outlines, source, userId: user.id }, alreadyMade);
     // Each catchment keeps its own name for the files; the batch's own go.
-    await this.removeFiles(scope, files);
+    await this.files.removeFiles(scope, files);
     return { study: await this.studies.get(scope, studyId), created };
   }
 
@@ -129,23 +119,8 @@ export class OutlineBatches {
   async discard(scope: TenantScope, studyId: number, token: string): Promise<void> {
     const row = await this.pending(scope, studyId, token);
     if (row.claimed_at) throw alreadyMade();
-    await this.deriving.abort(row.id, new Error('Discarded.'));
-    await this.removeBatch(scope, row);
-  }
-
-  /** Marks batches an earlier process left reading as failed (their derivation ran in that process). */
-  async recover(): Promise<void> {
-    await this.db('pending_outline_batches').where('status', 'reading').update({ status: 'failed', error_message: RESTART_MESSAGE });
-  }
-
-  /** Resolves when no batch is being derived (tests). */
-  async idle(): Promise<void> {
-    await this.deriving.idle();
-  }
-
-  /** Shutdown within a deadline: waits up to `graceMs`, then stops the batches still deriving as failed with the restart message. */
-  async stop(graceMs: number): Promise<void> {
-    await this.deriving.stop(graceMs, SHUTDOWN);
+    await this.derivation.abort(row.id);
+    await this.files.removeBatch(scope, row);
   }
 
   private async pending(scope: TenantScope, studyId: number, token: string): Promise<BatchRow> {
@@ -153,30 +128,10 @@ export class OutlineBatches {
     const row = await scope.from<BatchRow>('pending_outline_batches').where({ token, study_id: studyId }).first();
     if (!row) throw notFound('Pending upload');
     if (new Date(row.expires_at).getTime() < Date.now()) {
-      if (!row.claimed_at) await this.removeBatch(scope, row);
+      if (!row.claimed_at) await this.files.removeBatch(scope, row);
       throw new AppError(410, 'upload_expired', 'This preview has expired; upload the files again.');
     }
     return row;
-  }
-
-  /** Moves the DEM and the region's outlines into the geodata store (the outline file is split into its outlines instead). */
-  private async keep(scope: TenantScope, upload: Partial<Record<OutlineBatchLayer, TempFile>>, fields: OutlineBatchFields): Promise<BatchFiles> {
-    const files: Partial<BatchFiles> = {};
-    for (const [layer, file] of Object.entries(upload) as [OutlineBatchLayer, TempFile][]) {
-      const storedName = layer === 'catchmentOutline' ? null : this.geodata.store.nameFor(file.originalname);
-      if (storedName) await this.geodata.store.keep(scope.organisationId, file.path, storedName);
-      const verticalUnit = layer === 'dem' && fields.verticalUnit !== '' ? { verticalUnit: fields.verticalUnit } : {};
-      files[layer] = { storedName, fileName: file.originalname.slice(0, 255), byteSize: file.size, summary: { system: '', facts: [], notices: [], ...verticalUnit } };
-    }
-    return files as BatchFiles;
-  }
-
-  /** Where the worker finds the DEM and the region's outlines of a batch. */
-  private regionFiles(scope: TenantScope, files: BatchFiles): RegionFiles {
-    const stored = (f: BatchFile | undefined): StoredFile | undefined => f?.storedName
-      ? { path: this.geodata.store.path(scope.organisationId, f.storedName), name: f.fileName, verticalUnit: f.summary.verticalUnit }
-      : undefined;
-    return { dem: stored(files.dem)!, glacierOutline: stored(files.glacierOutline), debrisOutline: stored(files.debrisOutline) };
   }
 
   /** The batch and one row per outline, with the problems of their names and geometry. */
@@ -202,91 +157,5 @@ export class OutlineBatches {
       }));
     });
     return (await scope.from<BatchRow>('pending_outline_batches').where('token', token).first())!;
-  }
-
-  private startDeriving(row: BatchRow, organisationId: number): void {
-    this.deriving.run(row.id, (signal) => this.deriveAll(new TenantScope(this.db, organisationId), row, signal).catch((error: unknown) => {
-      this.logger.error({ err: safeError(error), batchId: row.id }, 'deriving a batch of outlines failed');
-    }).finally(() => this.readingFor.delete(organisationId)));
-  }
-
-  /** Derives every outline of the batch, as many at once as the thread budget has threads, then marks it ready (or failed). */
-  private async deriveAll(scope: TenantScope, row: BatchRow, signal: AbortSignal): Promise<void> {
-    const files = batchFiles(row);
-    const options = batchOptions(row);
-    try {
-      const queue: Pick<OutlineRow, 'id' | 'outline_geojson' | 'summary'>[] = await scope.from('pending_outlines').where('batch_id', row.id).whereNotNull('outline_geojson').orderBy('feature_number').select('id', 'outline_geojson', 'summary');
-      const next = async (): Promise<void> => {
-        for (let outline = queue.shift(); outline; outline = queue.shift()) {
-          await this.deriveOne(scope, row.id, this.regionFiles(scope, files), options, outline, signal);
-        }
-      };
-      await Promise.all(Array.from({ length: Math.min(this.geodata.pool.threads, Math.max(1, queue.length)) }, next));
-      await scope.from('pending_outline_batches').where('id', row.id).update({ status: 'ready', expires_at: new Date(Date.now() + PENDING_MINUTES * 60_000) });
-    } catch (error) {
-      if (signal.aborted && signal.reason !== SHUTDOWN) return;
-      const message = signal.aborted ? RESTART_MESSAGE : 'The outlines could not be derived (an error on our side); upload the files again.';
-      await scope.from('pending_outline_batches').where('id', row.id).update({ status: 'failed', error_message: message });
-      await this.removeFiles(scope, files, await this.mapPrefixes(scope, row.id));
-      if (!signal.aborted) throw error;
-    }
-  }
-
-  /** One outline: its bands, terrain shading and map derived (the map images kept), or the problem that stops it. */
-  private async deriveOne(scope: TenantScope, batchId: number, files: RegionFiles, options: BatchOptions, row: Pick<OutlineRow, 'id' | 'outline_geojson' | 'summary'>, signal: AbortSignal): Promise<void> {
-    const summary = outlineSummaryOf(row);
-    const { climateFromCatchmentId: _source, ...deriveOptions } = options;
-    const patch: Partial<Record<keyof OutlineRow, unknown>> = {};
-    const started = performance.now();
-    try {
-      const { derived, map } = await this.geodata.pool.work<DeriveOutcome>(
-        { kind: 'deriveOutline', files, outline: row.outline_geojson!, options: deriveOptions },
-        { signal, priority: 'batch' },
-      );
-      const prefix = this.geodata.store.newName('');
-      await this.geodata.store.write(scope.organisationId, hillshadeName(prefix), map!.hillshadePng);
-      await this.geodata.store.write(scope.organisationId, cellsName(prefix), map!.cells);
-      const cells = derived.units.reduce((n, u) => n + u.cells, 0);
-      const few = cellsProblem(cells, derived.summary.areaKm2);
-      summary.derived = {
-        areaKm2: derived.summary.areaKm2, minElevationM: derived.summary.minElevationM, maxElevationM: derived.summary.maxElevationM,
-        bandCount: derived.bands.length, glacierAreaKm2: derived.summary.glacierAreaKm2, cells,
-      };
-      summary.problems.push(...(few ? [few] : []));
-      summary.notices = derived.notices.map((n) => n.message);
-      Object.assign(patch, { stored_prefix: prefix, derived_gz: await pack(JSON.stringify({ derived, map: map!.geometry, seconds: (performance.now() - started) / 1000 })) });
-    } catch (error) {
-      // What the derivation refuses (outside the DEM, too much nodata, too coarse) is this outline's problem; anything else stops the batch.
-      if (!(error instanceof AppError) || error.status >= 500 || signal.aborted) throw error;
-      summary.problems.push(error.message);
-      summary.refused = true;
-    }
-    await scope.from('pending_outlines').where('id', row.id).update({ ...patch, summary: JSON.stringify(summary) });
-    await scope.from('pending_outline_batches').where('id', batchId).increment('done_count', 1);
-  }
-
-  private async mapPrefixes(scope: TenantScope, batchId: number): Promise<string[]> {
-    const rows: { stored_prefix: string | null }[] = await scope.from('pending_outlines').where('batch_id', batchId).whereNotNull('stored_prefix').select('stored_prefix');
-    return rows.map((r) => r.stored_prefix!);
-  }
-
-  private async removeFiles(scope: TenantScope, files: BatchFiles, mapPrefixes: string[] = []): Promise<void> {
-    const names = Object.values(files).flatMap((f) => (f?.storedName ? [f.storedName] : []));
-    await this.geodata.store.remove(scope.organisationId, [...names, ...mapPrefixes.flatMap((p) => [hillshadeName(p), cellsName(p)])]);
-  }
-
-  /** A batch never made into catchments: its row, its files and its map images go. */
-  private async removeBatch(scope: TenantScope, row: BatchRow): Promise<void> {
-    const prefixes = await this.mapPrefixes(scope, row.id);
-    await scope.from('pending_outline_batches').where('id', row.id).delete();
-    await this.removeFiles(scope, batchFiles(row), prefixes);
-  }
-
-  private async removeExpired(scope: TenantScope): Promise<void> {
-    const rows: BatchRow[] = await scope.from<BatchRow>('pending_outline_batches').where('expires_at', '<', new Date());
-    for (const row of rows) {
-      if (row.claimed_at) await scope.from('pending_outline_batches').where('id', row.id).delete();
-      else await this.removeBatch(scope, row);
-    }
   }
 }
