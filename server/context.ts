@@ -32,14 +32,17 @@ export interface AppContext
   queues: JobQueues;
   /**
    * At server start: queues again the jobs of runs still open (idempotent), ends as failed the lab
-   * jobs the queue no longer has, and starts a thread per pool.
+   * jobs the queue no longer has and the batches of outlines an earlier process left being derived,
+   * and starts a thread per pool.
    */
   start(): Promise<void>;
   /**
-   * Stops the worker threads, the queue connections and the mail transport. Runs and lab jobs
-   * stay queued or running: the workers go on with them. The database stays open.
+   * Waits for batches of outlines being derived (at most `graceMs`, after which those left end
+   * failed with the restart message; without it, until they end), then stops the worker threads,
+   * the queue connections and the mail transport. Runs and lab jobs stay queued or running: the
+   * workers go on with them. The database stays open.
    */
-  close(): Promise<void>;
+  close(graceMs?: number): Promise<void>;
 }
 
 export interface ContextOptions {
@@ -70,7 +73,7 @@ export function createContext(config: AppConfig, db: Knex, options: ContextOptio
   const runServices = createRunServices({
     db, bands: catchmentServices.bands, calibrations: labServices.lab.calibrations, queues, water: waterServices, catchmentInputs: options.catchmentInputs,
   });
-  const studyServices = createStudyServices(runServices);
+  const studyServices = createStudyServices({ ...runServices, ...geodataServices, db, logger });
   const briefingServices = createBriefingServices({
     results: runServices.results, studyResults: studyServices.studyResults, invitations: memberServices.invitations, mail: mailServices.mail, publicUrl: () => config.publicUrl,
     threads, briefingResults: options.briefingResults,
@@ -98,10 +101,14 @@ export function createContext(config: AppConfig, db: Knex, options: ContextOptio
       // Runs live in the database and the queue: their jobs are added again where one was lost.
       await runServices.runQueue.recover();
       // Lab jobs are carried out by the workers too; only one whose queue job was lost cannot go on.
+      // A batch of outlines being derived is driven from the process that started it: one left running cannot resume.
       await labServices.lab.jobs.recover();
+      await studyServices.outlineBatches.derivation.recover();
       for (const pool of pools) pool.warm();
     },
-    async close() {
+    async close(graceMs?: number) {
+      if (graceMs === undefined) await studyServices.outlineBatches.derivation.idle();
+      else await studyServices.outlineBatches.derivation.stop(graceMs);
       // The geodata pool is not warmed: its threads start with the first upload.
       await Promise.all([...pools, geodataServices.geodata.pool].map((pool) => pool.close()));
       await queues.close();

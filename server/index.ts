@@ -17,10 +17,11 @@ export async function startServer(options: ContextOptions = {}): Promise<{ close
   return {
     url: http.url,
     ctx,
-    // Answers in progress are given their grace; runs and lab jobs go on in the workers.
+    // One deadline for the whole shutdown: answers in progress first, then batches of outlines being derived (runs and lab jobs go on in the workers).
     close: async () => {
+      const deadline = Date.now() + config.shutdownGraceMs;
       await http.close();
-      await ctx.close();
+      await ctx.close(Math.max(0, deadline - Date.now()));
       await db.destroy();
     },
   };

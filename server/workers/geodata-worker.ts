@@ -1,6 +1,6 @@
 import './no-nested-web-workers';
 import type { PooledTask } from '../services/thread-pool';
-import { deriveCatchment, type DeriveOptions, type DerivedCatchment } from '../../shared/geodata/derive';
+import { deriveCatchment, type DeriveInput, type DeriveOptions, type DerivedCatchment } from '../../shared/geodata/derive';
 import { elevationChangeByBand, type ElevationChangeRow } from '../../shared/geodata/elevation-change';
 import { GeodataError, type GeodataNotice } from '../../shared/geodata/errors';
 import { snowCoverByBand, type SnowClassCodes, type SnowCoverRow } from '../../shared/geodata/snow-cover';
@@ -9,6 +9,7 @@ import type { GeodataLayer, UploadSummary } from '../../shared/schemas/geodata';
 import { readGeoTiffFile } from '../services/geodata/geotiff-reader';
 import { inspectUpload } from '../services/geodata/inspect-upload';
 import { mapLayers, type MapLayers } from '../services/geodata/map-layers';
+import { outlineDeriveInput, readOutlineBatch, type OutlineBatchFiles, type OutlineBatchRead } from '../services/geodata/outline-batch-reading';
 import { readDeriveInput, type GeodataFiles, type StoredFile } from '../services/geodata/read-inputs';
 
 export type ElevationChangeFiles =
@@ -19,6 +20,10 @@ export type ElevationChangeFiles =
 export type GeodataTask =
   | { kind: 'inspect'; layer: GeodataLayer; file: StoredFile; after?: StoredFile }
   | { kind: 'derive'; files: GeodataFiles; options: Omit<DeriveOptions, 'onProgress'>; withMap: boolean }
+  /** Many catchments over one DEM: the files read and checked, the outline file split into its features. */
+  | { kind: 'readOutlines'; files: OutlineBatchFiles }
+  /** One of those outlines derived as `derive` derives a catchment (its bands, terrain shading and map). */
+  | { kind: 'deriveOutline'; files: Omit<OutlineBatchFiles, 'catchmentOutline'>; outline: string; options: Omit<DeriveOptions, 'onProgress'> }
   | { kind: 'snowCover'; files: GeodataFiles; ranges: ElevationRange[]; map: StoredFile; codes: SnowClassCodes }
   | { kind: 'elevationChange'; files: GeodataFiles; ranges: ElevationRange[]; source: ElevationChangeFiles; densityKgM3?: number; densitySigmaKgM3?: number };
 
@@ -26,7 +31,7 @@ export type Derived = Omit<DerivedCatchment, 'zones'>;
 export interface DeriveOutcome { derived: Derived; map: MapLayers | null }
 export interface SnowCoverOutcome { rows: SnowCoverRow[]; catchment: Omit<SnowCoverRow, 'band' | 'lowerM' | 'upperM'>; notices: GeodataNotice[] }
 export interface ElevationChangeOutcome { rows: ElevationChangeRow[]; notices: GeodataNotice[] }
-export type GeodataOutcome = UploadSummary | DeriveOutcome | SnowCoverOutcome | ElevationChangeOutcome;
+export type GeodataOutcome = UploadSummary | DeriveOutcome | SnowCoverOutcome | ElevationChangeOutcome | OutlineBatchRead;
 
 /** The catchment's cells on the working grid, re-banded by the table's ranges (no horizons: only the cells are needed). */
 async function tableZones(files: GeodataFiles, ranges: ElevationRange[]) {
@@ -36,15 +41,22 @@ async function tableZones(files: GeodataFiles, ranges: ElevationRange[]) {
   return zonesForRanges(zones, ranges);
 }
 
+/** Bands, terrain shading and (when asked) the map of one catchment. */
+function derive(input: DeriveInput, options: Omit<DeriveOptions, 'onProgress'>, withMap: boolean, report: (fraction: number) => void): DeriveOutcome {
+  const { zones, ...derived } = deriveCatchment(input, { ...options, onProgress: report });
+  return { derived, map: withMap ? mapLayers(zones, input) : null };
+}
+
 async function run(task: GeodataTask, report: (fraction: number) => void): Promise<GeodataOutcome> {
   switch (task.kind) {
     case 'inspect':
       return inspectUpload(task.layer, task.file, task.after);
-    case 'derive': {
-      const input = await readDeriveInput(task.files);
-      const { zones, ...derived } = deriveCatchment(input, { ...task.options, onProgress: report });
-      return { derived, map: task.withMap ? mapLayers(zones, input) : null };
-    }
+    case 'derive':
+      return derive(await readDeriveInput(task.files), task.options, task.withMap, report);
+    case 'readOutlines':
+      return readOutlineBatch(task.files);
+    case 'deriveOutline':
+      return derive(await outlineDeriveInput(task.files, task.outline), task.options, true, report);
     case 'snowCover': {
       const zones = await tableZones(task.files, task.ranges);
       const { raster } = await readGeoTiffFile(task.map.path, { field: 'snowCover', categorical: true });

@@ -21,7 +21,8 @@ const LABELS: Record<string, string> = {
 };
 export const outlineLabel = (field: string): string => LABELS[field] ?? 'outline';
 
-type Json = Record<string, unknown>;
+/** A parsed JSON object (GeoJSON member or node). */
+export type Json = Record<string, unknown>;
 
 /**
  * Reads GeoJSON (a FeatureCollection, a Feature or a bare geometry) holding Polygons and
@@ -41,13 +42,15 @@ export function outlineFromGeoJson(json: unknown, field: string, crsOverride?: C
   return { polygons, crs };
 }
 
-function geoJsonCrs(json: Json, field: string): Crs {
+/** The system a GeoJSON object names in the older `crs` member, else WGS 84 longitude/latitude (RFC 7946). */
+export function geoJsonCrs(json: Json, field: string): Crs {
   const named = isObject(json.crs) && isObject(json.crs.properties) ? json.crs.properties.name : undefined;
   if (typeof named === 'string') return crsFromText(named, field);
   return crsFromEpsg(4326, field);
 }
 
-function collectPolygons(node: Json, field: string, out: PolygonRings[], feature: number): void {
+/** Adds the polygons of a GeoJSON object (collection, feature or geometry) to `out`; points and lines are passed over. `feature` numbers the messages. */
+export function collectPolygons(node: Json, field: string, out: PolygonRings[], feature: number): void {
   switch (node.type) {
     case 'FeatureCollection': {
       const features = Array.isArray(node.features) ? node.features : [];
@@ -95,7 +98,8 @@ function readRing(ring: unknown, field: string, where: string): Ring {
   return out;
 }
 
-function checkLongitudeLatitude(polygons: PolygonRings[], field: string): void {
+/** Refuses positions that cannot be longitude and latitude (a projected file read as GeoJSON's default system). */
+export function checkLongitudeLatitude(polygons: PolygonRings[], field: string): void {
   for (const polygon of polygons) {
     for (const [x, y] of polygon[0]) {
       if (Math.abs(x) > 180 || Math.abs(y) > 90) {
@@ -152,6 +156,6 @@ export function outlineBounds(polygons: PolygonRings[]): [number, number, number
   return b;
 }
 
-const isObject = (v: unknown): v is Json => typeof v === 'object' && v !== null && !Array.isArray(v);
+export const isObject = (v: unknown): v is Json => typeof v === 'object' && v !== null && !Array.isArray(v);
 const fmt = (v: number) => (Math.abs(v) >= 1000 ? v.toFixed(0) : v.toFixed(4));
 const bad = (field: string, message: string) => new GeodataError('bad_geometry', `The ${outlineLabel(field)} ${message}`, field);

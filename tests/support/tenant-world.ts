@@ -18,6 +18,8 @@ export interface TenantWorld extends TestOrg {
     geodataUpload: number; derivation: number; station: number; study: number;
   };
   uploadToken: string;
+  /** A pending batch of outlines of the world's study, ready to confirm (one outline without its derivation, enough to be read). */
+  batchToken: string;
 }
 
 /**
@@ -97,9 +99,21 @@ export async function createTenantWorld(db: Knex, geodataDir: string): Promise<T
   const [template] = await db('study_scenarios').insert({ organisation_id, study_id: study, name: `${marker} soot`, changes: '{}' });
   await db('study_scenario_values').insert({ organisation_id, study_scenario_id: template, catchment_id: catchment, changes: '{}' });
   await db('study_runs').insert({ organisation_id, study_id: study, study_scenario_id: template, catchment_id: catchment, run_id: run });
+  const batchToken = unique('batch').replace(/[^A-Za-z0-9]/g, '').padEnd(32, 'x').slice(0, 32);
+  const file = (fileName: string) => ({ storedName: null, fileName, byteSize: 1, summary: { system: marker, facts: [], notices: [] } });
+  const [batch] = await db('pending_outline_batches').insert({
+    organisation_id, study_id: study, user_id: org.users.consultant.id, token: batchToken, status: 'ready',
+    options: JSON.stringify({ climateFromCatchmentId: catchment, bandWidthM: 200, splitByAspect: false, horizonSectors: 0 }),
+    files: JSON.stringify({ dem: file(`${marker}.tif`), catchmentOutline: file(`${marker}.geojson`) }), outline_count: 1, done_count: 1,
+    expires_at: new Date(Date.now() + 3600_000),
+  });
+  await db('pending_outlines').insert({
+    organisation_id, batch_id: batch, feature_number: 1, name: `${marker} side valley`,
+    summary: JSON.stringify({ problems: [], notices: [], upload: null, derived: null, refused: false }),
+  });
   const [invited] = await db('users').insert({ organisation_id, email: `${unique('invited')}@test.example`, name: `${marker} invitee`, role: 'client', status: 'invited' });
   return {
-    ...org, marker, uploadToken,
+    ...org, marker, uploadToken, batchToken,
     ids: {
       catchment: catchment!, dataset: dataset!, scenario, run: run!, labJob: labJob!, briefing: briefing!, member: org.users.scientist.id, invited: invited!,
       sharedClient: org.users.client.id, geodataUpload: geodataUpload!, derivation: derivation!, station: station!, study: study!,
@@ -117,6 +131,7 @@ export function pathIn(world: TenantWorld, path: string): string {
       if (param === 'catchmentId' || (segment === 'catchments' && param === 'id')) return ids.catchment;
       if (param === 'datasetId') return ids.dataset;
       if (param === 'token') return world.uploadToken;
+      if (param === 'batchToken') return world.batchToken;
       if (param === 'jobId') return ids.labJob;
       if (param === 'version') return 1;
       if (param === 'userId') return ids.sharedClient;
@@ -133,7 +148,7 @@ export function pathIn(world: TenantWorld, path: string): string {
 
 /** Every row of the world's organisation in the tables routes can change, to prove a foreign caller changed none. */
 export async function snapshotOf(db: Knex, world: TenantWorld): Promise<string> {
-  const tables = ['catchments', 'band_tables', 'elevation_bands', 'geodata_uploads', 'band_derivations', 'stations', 'catchment_water_settings', 'water_balance_closures', 'datasets', 'pending_uploads', 'scenarios', 'runs', 'run_years', 'lab_jobs', 'briefings', 'briefing_versions', 'briefing_shares', 'briefing_comments', 'briefing_events', 'studies', 'study_catchments', 'study_scenarios', 'study_scenario_values', 'study_runs', 'users'];
+  const tables = ['catchments', 'band_tables', 'elevation_bands', 'geodata_uploads', 'band_derivations', 'stations', 'catchment_water_settings', 'water_balance_closures', 'datasets', 'pending_uploads', 'scenarios', 'runs', 'run_years', 'lab_jobs', 'briefings', 'briefing_versions', 'briefing_shares', 'briefing_comments', 'briefing_events', 'studies', 'study_catchments', 'study_scenarios', 'study_scenario_values', 'study_runs', 'pending_outline_batches', 'pending_outlines', 'users'];
   const rows = await Promise.all(tables.map((table) => db(table).where({ organisation_id: world.organisationId }).orderBy('id').select()));
   const values = await db('dataset_values').where({ organisation_id: world.organisationId }).orderBy(['dataset_id', 't']).select();
   return JSON.stringify([...rows, values]);

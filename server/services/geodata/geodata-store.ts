@@ -1,5 +1,5 @@
 import { randomUUID } from 'node:crypto';
-import { copyFile, mkdir, readFile, rename, rm, writeFile } from 'node:fs/promises';
+import { copyFile, link, mkdir, readFile, rename, rm, writeFile } from 'node:fs/promises';
 import path from 'node:path';
 
 /**
@@ -19,6 +19,25 @@ export class GeodataStore {
   /** A new name with the given ending, e.g. '.tif'. */
   newName(ending: string): string {
     return `${randomUUID()}${ending}`;
+  }
+
+  /** A new name with the ending of an uploaded file's name (e.g. '.tif'), never any other part of it. */
+  nameFor(originalName: string): string {
+    return this.newName(path.extname(originalName).toLowerCase().replace(/[^.\w]/g, '') || '.bin');
+  }
+
+  /**
+   * Keeps a stored file under a second name too (a hard link, else a copy): each catchment made
+   * from one upload keeps the file as its own, and removing one name leaves the others.
+   */
+  async share(organisationId: number, name: string, newName: string): Promise<void> {
+    const from = this.path(organisationId, name);
+    const to = this.path(organisationId, newName);
+    try {
+      await link(from, to);
+    } catch {
+      await copyFile(from, to);
+    }
   }
 
   /** Moves an uploaded temporary file into the store (copies when the temporary folder is on another disk). */

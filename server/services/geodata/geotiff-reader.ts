@@ -3,7 +3,7 @@ import { fromArrayBuffer, type GeoTIFFImage } from 'geotiff';
 import { crsFromGeoKeys, EPSG_UNITS, METRES_PER_UNIT } from '../../../shared/geodata/crs';
 import { GeodataError, type GeodataNotice } from '../../../shared/geodata/errors';
 import type { Raster } from '../../../shared/geodata/raster';
-import { GEODATA_LIMITS } from './limits';
+import { GEODATA_LIMITS } from '../../../shared/geodata/limits';
 
 export interface ReadGeoTiffOptions {
   /** Which upload this is, for messages ('dem', 'debrisThickness', 'snowCover', …). */

@@ -10,6 +10,7 @@ import { GeodataUploads } from './upload-service';
 
 export interface GeodataServices {
   geodata: {
+    store: GeodataStore;
     pool: GeodataPool;
     uploads: GeodataUploads;
     derivations: Derivations;
@@ -24,5 +25,5 @@ export function createGeodataServices(deps: { config: AppConfig; bands: BandServ
   const pool = new GeodataPool(deps.threads);
   const uploads = new GeodataUploads(store, pool, deps.bands);
   const derivations = new Derivations(store, pool, uploads, deps.bands);
-  return { geodata: { pool, uploads, derivations, maps: new CatchmentMaps(store, derivations, deps.bands), observations: new RemoteSensingObservations() } };
+  return { geodata: { store, pool, uploads, derivations, maps: new CatchmentMaps(store, derivations, deps.bands), observations: new RemoteSensingObservations() } };
 }

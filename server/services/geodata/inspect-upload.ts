@@ -31,7 +31,8 @@ export async function inspectUpload(layer: GeodataLayer, file: StoredFile, after
   return summary;
 }
 
-function rasterSummary(raster: Raster, notices: UploadSummary['notices']): UploadSummary {
+/** What a raster holds, in a GIS user's words: its grid, its values and how much is nodata. */
+export function rasterSummary(raster: Raster, notices: UploadSummary['notices']): UploadSummary {
   const unit = raster.crs.kind === 'geographic' ? '°' : ' m';
   const cell = raster.crs.kind === 'geographic' ? raster.dx.toPrecision(3) : formatNumber(raster.dx, 1);
   let min = Infinity;
@@ -44,7 +45,8 @@ function rasterSummary(raster: Raster, notices: UploadSummary['notices']): Uploa
   return { system: raster.crs.name, facts, notices: [...notices] };
 }
 
-function outlineSummary(outline: Outline): UploadSummary {
+/** What an outline holds: its polygons, holes, area (on the UTM zone of its centre) and centre. */
+export function outlineSummary(outline: Outline): UploadSummary {
   const [lon, lat] = outlineCentreLonLat(outline);
   const utm = utmCrsFor(lon, lat);
   const metric = outline.crs.kind === 'geographic' ? transformOutline(outline, pointTransform(outline.crs, utm), utm) : outline;

@@ -1,7 +1,8 @@
 import * as shapefile from 'shapefile';
 import { crsFromText } from '../../../shared/geodata/crs';
 import { GeodataError } from '../../../shared/geodata/errors';
-import { outlineFromGeoJson, outlineLabel, type Outline } from '../../../shared/geodata/outline';
+import type { Crs } from '../../../shared/geodata/crs';
+import { outlineLabel } from '../../../shared/geodata/outline';
 import { baseName, readZipEntries } from './zip-entries';
 
 /** ESRI shape types that outline areas: Polygon, PolygonZ, PolygonM (ESRI Shapefile Technical Description, 1998). */
@@ -9,11 +10,11 @@ const POLYGON_TYPES = new Set([5, 15, 25]);
 const SHAPE_NAMES: Record<number, string> = { 0: 'no shapes', 1: 'points', 3: 'lines', 8: 'multipoints', 11: 'points', 13: 'lines', 21: 'points', 23: 'lines', 28: 'multipoints', 31: 'multipatches' };
 
 /**
- * Reads a zipped shapefile (.shp with its .dbf and .prj; .shx is not needed) into an outline.
- * The .prj gives the coordinate system; without it the system is unknown and the upload is
- * refused. The .shp header is checked against the file before its shapes are parsed.
+ * Reads a zipped shapefile (.shp with its .dbf and .prj; .shx is not needed) as GeoJSON features
+ * with their attributes, and the system its .prj gives; without a .prj the system is unknown and
+ * the upload is refused. The .shp header is checked against the file before its shapes are parsed.
  */
-export async function readZippedShapefile(path: string, field: string): Promise<Outline> {
+export async function readZippedShapefile(path: string, field: string): Promise<{ json: unknown; crs: Crs }> {
   const entries = await readZipEntries(path, (name) => /\.(shp|dbf|prj|cpg)$/i.test(name) && !baseName(name).startsWith('._'), field);
   const shpNames = [...entries.keys()].filter((n) => /\.shp$/i.test(n));
   if (shpNames.length === 0) throw new GeodataError('bad_archive', 'The zip holds no shapefile (.shp). Zip the .shp together with its .dbf and .prj files.', field);
@@ -36,7 +37,7 @@ export async function readZippedShapefile(path: string, field: string): Promise<
   } catch {
     throw new GeodataError('bad_archive', `The shapefile ${baseName(shpNames[0])} could not be read: it is damaged or cut short.`, field);
   }
-  return outlineFromGeoJson(collection, field, crs);
+  return { json: collection, crs };
 }
 
 function checkShpHeader(shp: Buffer, field: string): void {

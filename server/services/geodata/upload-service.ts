@@ -1,5 +1,4 @@
-import path from 'node:path';
-import { GEODATA_LIMITS } from './limits';
+import { GEODATA_LIMITS } from '../../../shared/geodata/limits';
 import { SINGLE_LAYERS, type GeodataLayer, type GeodataUpload, type GeodataUploadFields, type UploadSummary } from '../../../shared/schemas/geodata';
 import type { ElevationRange } from '../../../shared/geodata/table-zones';
 import { validationFailed } from '../../errors';
@@ -92,7 +91,7 @@ export class GeodataUploads {
     const summary: UploadSummary & { verticalUnit?: string } = await this.pool.work<UploadSummary>({ kind: 'inspect', layer, file, after });
     if (verticalUnit) summary.verticalUnit = verticalUnit;
     const observations = await this.reduce(scope, catchmentId, layer, file, after, fields, summary);
-    const storedName = this.store.newName(path.extname(upload.file.originalname).toLowerCase().replace(/[^.\w]/g, '') || '.bin');
+    const storedName = this.store.nameFor(upload.file.originalname);
     await this.store.keep(scope.organisationId, upload.file.path, storedName);
     if (upload.after) await this.store.keep(scope.organisationId, upload.after.path, afterName(storedName));
     let replaced: UploadRow[] = [];

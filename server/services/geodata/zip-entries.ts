@@ -1,6 +1,6 @@
 import yauzl from 'yauzl';
 import { GeodataError } from '../../../shared/geodata/errors';
-import { GEODATA_LIMITS } from './limits';
+import { GEODATA_LIMITS } from '../../../shared/geodata/limits';
 
 const MAX_ENTRIES = 2000;
 

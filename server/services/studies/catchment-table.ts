@@ -1,16 +1,17 @@
+import type { z } from 'zod';
 import { bandRowSchema, type BandRow } from '../../../shared/schemas/catchment-bands';
 import { catchmentTableCatchmentSchema } from '../../../shared/schemas/studies';
-import { conflict, validationFailed } from '../../errors';
+import { validationFailed } from '../../errors';
 import { insertBandTable } from '../catchments/band-tables';
-import { insertBaseline } from '../catchments/baseline-scenario';
-import { insertReferenceStation } from '../stations/reference-station';
-import { drivingDatasets } from '../stations/station-rows';
 import type { TenantScope } from '../tenant-scope';
+import { assertNamesFree, climateSource, insertRegionCatchment } from './region-catchments';
 
-const CATCHMENT_COLUMNS = { name: 'name', latitudeDeg: 'latitude_deg', longitudeDeg: 'longitude_deg', timeZone: 'time_zone', stationName: 'station_name', stationElevationM: 'station_elevation_m' } as const;
+type CatchmentColumns = z.output<typeof catchmentTableCatchmentSchema>;
+/** The columns that describe the catchment (repeated on each of its rows); the others are its band's. */
+const CATCHMENT_COLUMNS = Object.keys(catchmentTableCatchmentSchema.shape) as (keyof CatchmentColumns)[];
 
 interface TableCatchment {
-  fields: Record<keyof typeof CATCHMENT_COLUMNS, string | number>;
+  fields: CatchmentColumns;
   bands: BandRow[];
 }
 
@@ -27,13 +28,13 @@ export function readCatchmentTable(rows: Record<string, unknown>[]): TableCatchm
   rows.forEach((raw, i) => {
     const row = Object.fromEntries(Object.entries(raw).map(([k, v]) => [k.trim(), k.trim() === 'name' || k.trim() === 'timeZone' || k.trim() === 'stationName' ? v : number(v)]));
     const head = catchmentTableCatchmentSchema.safeParse(row);
-    const band = bandRowSchema.safeParse(Object.fromEntries(Object.entries(row).filter(([k]) => !(k in CATCHMENT_COLUMNS))));
+    const band = bandRowSchema.safeParse(Object.fromEntries(Object.entries(row).filter(([k]) => !CATCHMENT_COLUMNS.includes(k as keyof CatchmentColumns))));
     for (const issue of [...(head.success ? [] : head.error.issues), ...(band.success ? [] : band.error.issues)]) {
       problems.push({ row: i + 2, column: String(issue.path[0] ?? ''), message: issue.message });
     }
     if (!head.success || !band.success) return;
     const entry = byName.get(head.data.name) ?? { fields: head.data, bands: [] };
-    const differs = (Object.keys(CATCHMENT_COLUMNS) as (keyof typeof CATCHMENT_COLUMNS)[]).find((k) => entry.fields[k] !== head.data[k]);
+    const differs = CATCHMENT_COLUMNS.find((k) => entry.fields[k] !== head.data[k]);
     if (differs) problems.push({ row: i + 2, column: differs, message: `differs from the first row of "${head.data.name}"` });
     entry.bands.push(band.data);
     byName.set(head.data.name, entry);
@@ -51,36 +52,15 @@ export function readCatchmentTable(rows: Record<string, unknown>[]): TableCatchm
  * (the region's station), set-based.
  */
 export async function createTableCatchments(scope: TenantScope, catchments: TableCatchment[], climateFromCatchmentId: number, userId: number): Promise<{ id: number; name: string }[]> {
-  const source = await scope.findOr404<{ background_black_carbon_ng_g: number; background_dust_ug_g: number }>('catchments', climateFromCatchmentId, 'Catchment');
-  const clash = await scope.from('catchments').whereIn('name', catchments.map((c) => c.fields.name)).first('name');
-  if (clash) throw conflict(`A catchment called "${clash.name as string}" already exists.`, 'rows');
+  const source = await climateSource(scope, climateFromCatchmentId);
+  await assertNamesFree(scope, catchments.map((c) => c.fields.name), 'rows');
   return scope.transaction(async (s) => {
     const created: { id: number; name: string }[] = [];
     for (const c of catchments) {
-      const id = await s.insert('catchments', {
-        ...Object.fromEntries(Object.entries(CATCHMENT_COLUMNS).map(([field, column]) => [column, c.fields[field as keyof typeof CATCHMENT_COLUMNS]])),
-        description: 'Made from a catchment table.', outlet_description: '',
-        background_black_carbon_ng_g: source.background_black_carbon_ng_g, background_dust_ug_g: source.background_dust_ug_g, created_by: userId,
-      });
-      await insertBaseline(s, id, userId);
-      const stationId = await insertReferenceStation(s, id, String(c.fields.stationName), Number(c.fields.stationElevationM));
+      const id = await insertRegionCatchment(s, { ...c.fields, description: 'Made from a catchment table.' }, source, userId);
       await insertBandTable(s, id, c.bands, { userId });
-      await copyClimate(s, climateFromCatchmentId, id, stationId);
-      created.push({ id, name: String(c.fields.name) });
+      created.push({ id, name: c.fields.name });
     }
     return created;
   });
-}
-
-/** Copies the series of a catchment's reference station with their values to another catchment's reference station (same organisation). */
-async function copyClimate(s: TenantScope, fromId: number, toId: number, toStationId: number): Promise<void> {
-  const datasets: { id: number }[] = await drivingDatasets(s, fromId);
-  const columns = 'variable, kind, unit, original_unit, time_step, time_zone, source, accuracy, file_name, uploaded_by, uploaded_by_name, first_at, last_at, value_count';
-  for (const d of datasets) {
-    await s.db.raw(`INSERT INTO datasets (organisation_id, catchment_id, station_id, ${columns}) SELECT organisation_id, ?, ?, ${columns} FROM datasets WHERE id = ? AND organisation_id = ?`,
-      [toId, toStationId, d.id, s.organisationId]);
-    const [[{ id: newId }]] = (await s.db.raw('SELECT LAST_INSERT_ID() AS id')) as [[{ id: number }]];
-    await s.db.raw('INSERT INTO dataset_values (dataset_id, organisation_id, t, value) SELECT ?, organisation_id, t, value FROM dataset_values WHERE dataset_id = ? AND organisation_id = ?',
-      [newId, d.id, s.organisationId]);
-  }
 }

@@ -7,7 +7,8 @@ import type { RunService } from '../runs/run-service';
 import type { ScenarioService } from '../runs/scenario-service';
 import type { TenantScope } from '../tenant-scope';
 import { createTableCatchments, readCatchmentTable } from './catchment-table';
-import { listItem, loadCells, loadTemplates, readStudy, type StudyRow } from './study-store';
+import { addToStudy } from './region-catchments';
+import { draftStudy, listItem, loadCells, loadTemplates, readStudy, type StudyRow } from './study-store';
 
 type StudyCreateBody = z.output<typeof studyCreateSchema>;
 
@@ -64,12 +65,11 @@ export class StudyService {
   /** Makes the catchments of an uploaded catchment table and adds them to a study not yet started. */
   async addCatchmentTable(scope: TenantScope, id: number, table: { rows: Record<string, unknown>[]; climateFromCatchmentId: number }, userId: number)
     : Promise<{ study: Study; created: { id: number; name: string }[] }> {
-    const row = await scope.findOr404<StudyRow>('studies', id, 'Study');
-    if (row.started_at) throw conflict('This study has been started; make a new study for more catchments.');
+    await draftStudy(scope, id);
     const catchments = readCatchmentTable(table.rows);
     const created = await scope.transaction(async (s) => {
       const made = await createTableCatchments(s, catchments, table.climateFromCatchmentId, userId);
-      await s.db('study_catchments').insert(made.map((c) => ({ organisation_id: s.organisationId, study_id: id, catchment_id: c.id })));
+      await addToStudy(s, id, made.map((c) => c.id));
       return made;
     });
     return { study: await this.get(scope, id), created };

@@ -1,6 +1,7 @@
 import { catchmentStatus, cellStatusOf, studyStatus, type StudyCell } from '../../../shared/analysis/study-progress';
 import { scenarioChangesSchema } from '../../../shared/schemas/scenarios';
 import { studyOptionsSchema, studyValueSchema, type Study, type StudyListItem, type StudyValue } from '../../../shared/schemas/studies';
+import { conflict } from '../../errors';
 import type { TenantScope } from '../tenant-scope';
 
 export interface StudyRow {
@@ -10,6 +11,13 @@ export interface StudyRow {
   options: string | object;
   created_at: Date;
   started_at: Date | null;
+}
+
+/** A study of the organisation not started yet (catchments are added only then): else 404, or 409 once started. */
+export async function draftStudy(scope: TenantScope, id: number): Promise<StudyRow> {
+  const row = await scope.findOr404<StudyRow>('studies', id, 'Study');
+  if (row.started_at) throw conflict('This study has been started; make a new study for more catchments.');
+  return row;
 }
 
 export interface TemplateRow { id: number; study_id: number; name: string; changes: string | object }
