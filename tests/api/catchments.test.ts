@@ -86,6 +86,11 @@ describe('the catchment list', () => {
     expect(page.status).toBe(200);
     expect(page.body.total).toBe(5);
     expect(page.body.catchments.map((c: { name: string }) => c.name)).toEqual([`${tag} 2`, `${tag} 1`]);
+    // The last page (not full), a page past the end and a page holding everything tell the same total.
+    for (const [perPage, pageNumber, rows] of [[2, 3, 1], [2, 4, 0], [10, 1, 5], [5, 1, 5]] as const) {
+      const res = await agent.get('/api/catchments').query({ search: tag, perPage, page: pageNumber });
+      expect([res.body.total, res.body.catchments.length], `${perPage} a page, page ${pageNumber}`).toEqual([5, rows]);
+    }
     const capped = await agent.get('/api/catchments').query({ perPage: 10_000 });
     expect(capped.body.perPage).toBe(MAX_PAGE_SIZE);
     const bad = await agent.get('/api/catchments').query({ sort: 'password_hash' });

@@ -86,16 +86,18 @@ export class CatchmentService {
         q.where('catchments.name', 'like', like).orWhere('catchments.station_name', 'like', like).orWhere('catchments.description', 'like', like);
       });
     }
-    // The total comes with the page (a window count before LIMIT): one query instead of two.
+    const offset = (query.page - 1) * query.perPage;
     const rows = (await withCounts(base.clone(), scope.db)
-      .select(scope.db.raw('count(*) over () as total_count'))
       .orderBy(`catchments.${SORT_COLUMNS[query.sort]}`, query.descending ? 'desc' : 'asc')
       .orderBy('catchments.id')
       .limit(query.perPage)
-      .offset((query.page - 1) * query.perPage)) as (CatchmentRow & { total_count: number })[];
-    // A page past the end has no row to carry the total.
-    const total = rows[0] ? rows[0].total_count : query.page > 1 ? Number((await base.clone().count({ n: '*' }))[0]!.n) : 0;
-    return { catchments: rows.map(toCatchment), total: Number(total), page: query.page, perPage: query.perPage };
+      .offset(offset)) as CatchmentRow[];
+    // A page that is not full tells the total itself (most organisations have one page); only a full page, or one past the end, counts.
+    // (A window count on every page made MariaDB sort the whole list in a temporary table, a fifth of the list's time.)
+    const total = rows.length > 0 && rows.length < query.perPage ? offset + rows.length
+      : query.page === 1 && rows.length === 0 ? 0
+        : Number((await base.clone().count({ n: '*' }))[0]!.n);
+    return { catchments: rows.map(toCatchment), total, page: query.page, perPage: query.perPage };
   }
 
   /** A new catchment with its baseline scenario and its reference station, in one transaction. */
