@@ -1,6 +1,8 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { MAX_PAGE_SIZE } from '../../shared/schemas/catchments';
+import { DEMO_BANDS } from '../../seeds/data/demo-catchment';
 import { catchmentFields } from '../support/catchments';
+import { createDemoCatchment } from '../support/lab-catchment';
 import { createOrganisation, signedInAgent, unique, type TestOrg } from '../support/factories';
 import { createTestApp, type TestApp } from '../support/test-app';
 
@@ -95,6 +97,20 @@ describe('the catchment list', () => {
     expect(capped.body.perPage).toBe(MAX_PAGE_SIZE);
     const bad = await agent.get('/api/catchments').query({ sort: 'password_hash' });
     expect(bad.status).toBe(422);
+  });
+
+  it("shows each catchment's band and dataset counts as the catchment's own page does", async () => {
+    const org = await createOrganisation(t.db);
+    const withData = await createDemoCatchment(t.db, org.organisationId);
+    const agent = await signedInAgent(t.app, org.users.consultant.email);
+    const empty = (await agent.post('/api/catchments').send(catchmentFields())).body.catchment.id as number;
+    const list = (await agent.get('/api/catchments')).body.catchments as { id: number; bandCount: number; datasetCount: number }[];
+    expect(list.map((c) => c.id).sort()).toEqual([withData, empty].sort());
+    for (const listed of list) expect(listed).toEqual((await agent.get(`/api/catchments/${listed.id}`)).body.catchment);
+    const shown = list.find((c) => c.id === withData)!;
+    expect(shown.bandCount).toBe(DEMO_BANDS.length);
+    expect(shown.datasetCount).toBeGreaterThan(0);
+    expect(list.find((c) => c.id === empty)).toMatchObject({ bandCount: 0, datasetCount: 0 });
   });
 
   it('treats % and _ in the search as plain characters', async () => {

@@ -87,7 +87,7 @@ export class CatchmentService {
       });
     }
     const offset = (query.page - 1) * query.perPage;
-    const rows = (await withCounts(base.clone(), scope.db)
+    const rows = (await withListCounts(base.clone(), scope.db, scope.organisationId)
       .orderBy(`catchments.${SORT_COLUMNS[query.sort]}`, query.descending ? 'desc' : 'asc')
       .orderBy('catchments.id')
       .limit(query.perPage)
@@ -159,6 +159,20 @@ function withCounts(query: Knex.QueryBuilder, db: Knex | Knex.Transaction): Knex
     db('band_tables').select('band_tables.band_count').whereRaw('band_tables.catchment_id = catchments.id').orderBy('band_tables.version', 'desc').limit(1).as('band_count'),
     db('datasets').count('*').whereRaw('datasets.catchment_id = catchments.id').as('dataset_count'),
   );
+}
+
+/**
+ * The same counts for a page of the list, from the organisation's newest band table versions and
+ * dataset counts read once each: per-row subqueries cost MariaDB about twice as much on a page.
+ */
+function withListCounts(query: Knex.QueryBuilder, db: Knex | Knex.Transaction, organisationId: number): Knex.QueryBuilder {
+  const newest = db('band_tables').where('organisation_id', organisationId).groupBy('catchment_id').select('catchment_id').max({ version: 'version' }).as('newest_bands');
+  const datasets = db('datasets').where('organisation_id', organisationId).groupBy('catchment_id').select('catchment_id').count({ n: '*' }).as('dataset_counts');
+  return query
+    .leftJoin(newest, 'newest_bands.catchment_id', 'catchments.id')
+    .leftJoin('band_tables as current_bands', (on) => on.on('current_bands.catchment_id', 'newest_bands.catchment_id').andOn('current_bands.version', 'newest_bands.version'))
+    .leftJoin(datasets, 'dataset_counts.catchment_id', 'catchments.id')
+    .select('catchments.*', 'current_bands.band_count', db.raw('COALESCE(dataset_counts.n, 0) AS dataset_count'));
 }
 
 async function hasRuns(scope: TenantScope, catchmentId: number): Promise<boolean> {
