@@ -28,11 +28,11 @@ const CANCELLED_MESSAGE = 'Cancelled by a member of the organisation.';
 
 /**
  * A fault (a worker lost mid-job) is retried by another worker, which finds the steps already
- * done; a job that fails for its input fails once (its processor says so). A finished job leaves
- * the queue at once (its row keeps the result; its inputs can be large); failed ones stay a week
- * for the queue page.
+ * done; a job that fails for its input fails once (its processor says so). A finished job stays
+ * an hour for the queue page's count (at most 200: its inputs can be large, and its row keeps the
+ * result); failed ones stay a week.
  */
-const LAB_JOB_OPTIONS = { attempts: 3, backoff: { type: 'fixed', delay: 1000 }, removeOnComplete: true, removeOnFail: { age: 7 * 24 * 3600, count: 1000 } } as const;
+const LAB_JOB_OPTIONS = { attempts: 3, backoff: { type: 'fixed', delay: 1000 }, removeOnComplete: { age: 3600, count: 200 }, removeOnFail: { age: 7 * 24 * 3600, count: 1000 } } as const;
 
 function toJob(row: JobRow): LabJob {
   return {
