@@ -5,7 +5,9 @@ import type * as DownloadModule from 'src/composables/useDownload';
 import BaseChart from './BaseChart.vue';
 
 vi.mock('vue-echarts', () => ({ default: { name: 'Echarts', props: ['option', 'autoresize'], template: '<div class="chart-stub" />' } }));
-vi.mock('src/boot/echarts', () => ({ chartsAnimated: false, renderSvg: () => Promise.resolve('<svg />'), renderPng: () => 'data:image/png;base64,' }));
+vi.mock('src/boot/echarts', () => ({
+  chartsAnimated: false, loadChartParts: () => Promise.resolve(), renderSvg: () => Promise.resolve('<svg />'), renderPng: () => Promise.resolve('data:image/png;base64,'),
+}));
 const saved = vi.hoisted(() => [] as { text: string; fileName: string }[]);
 vi.mock('src/composables/useDownload', async (original) => ({
   ...(await original<typeof DownloadModule>()),
@@ -27,10 +29,12 @@ function mountChart() {
 describe('BaseChart', () => {
   it('shows the chart first and the same numbers as a table on request, gaps as empty cells', async () => {
     const wrapper = mountChart();
-    expect(wrapper.find('.chart-stub').exists()).toBe(true);
+    // The chart's code loads after the card is drawn.
+    await vi.waitFor(() => expect(wrapper.find('.chart-stub').exists()).toBe(true));
     const tableButton = wrapper.findAll('button').find((b) => b.text() === 'Table')!;
     await tableButton.trigger('click');
     expect(wrapper.find('.chart-stub').exists()).toBe(false);
+    await vi.waitFor(() => expect(wrapper.find('tbody').exists()).toBe(true));
     // Virtual scrolling adds one-cell spacer rows around the data rows.
     const cells = wrapper.findAll('tbody tr').map((tr) => tr.findAll('td').map((td) => td.text())).filter((row) => row.length === 2);
     expect(cells).toEqual([['2024-01-01 00:00', '−3.5'], ['2024-01-01 01:00', '']]);
