@@ -36,6 +36,24 @@ export function wrappingLegend(names: readonly string[], widthPx: number, gridTo
   return { legend: { type: 'plain', top: 0, left: 'center', width: '92%', itemGap: 12 }, top: Math.max(gridTop, 24 + rows * LEGEND_ROW_PX) };
 }
 
+/** The narrowest width a chart is drawn at on screen: a phone's. */
+export const NARROWEST_CHART_PX = 390;
+
+/**
+ * Legend and grid of a chart with a legend above it: the legend wraps (`wrappingLegend`) and the
+ * grid starts below its rows at the narrowest width, so long series names never run into the plot.
+ */
+export function legendAndGrid(names: readonly string[], widthPx = NARROWEST_CHART_PX): { legend: Record<string, unknown>; grid: { left: number; right: number; top: number; bottom: number } } {
+  const { legend, top } = wrappingLegend(names, widthPx, 32);
+  return { legend, grid: { left: 80, right: 24, top, bottom: 56 } };
+}
+
+/**
+ * An axis name along the middle of its axis (turned for the vertical one), as `axis()` in
+ * chart-spec.ts places them: a name at the top of a vertical axis sits in the legend's rows.
+ */
+export const axisNameAlong = (name: string, direction: 'x' | 'y') => ({ name, nameLocation: 'middle', nameGap: direction === 'y' ? 56 : 28 }) as const;
+
 const axisColours = (text: string, line: string, split: string) => ({
   axisLine: { lineStyle: { color: line } },
   axisTick: { lineStyle: { color: line } },
