@@ -1,6 +1,6 @@
 import type { GeodeticComparisonReply, SnowCoverComparisonReply } from '../schemas/lab-remote-sensing';
 import { roundTo } from '../text/numbers';
-import { formatPeriod } from '../text/format';
+import { formatDate, formatPeriod } from '../text/format';
 import type { ChartSpec } from './chart-spec';
 import { axisNameAlong, legendAndGrid } from './chart-style';
 import { profileChart } from './geodata-charts';
@@ -12,12 +12,12 @@ export function snowCoverSkillChart(r: SnowCoverComparisonReply): ChartSpec {
   return {
     option: {
       tooltip: { trigger: 'item' },
-      ...legendAndGrid([...dates, '1:1']),
+      ...legendAndGrid([...dates.map(formatDate), '1:1']),
       xAxis: { type: 'value', ...axisNameAlong('Mapped snow-covered fraction (%)', 'x'), min: 0, max: 100 },
       yAxis: { type: 'value', ...axisNameAlong('Simulated (%)', 'y'), min: 0, max: 100 },
       series: [
         ...dates.map((date, i) => ({
-          name: date, type: 'scatter', ...lineStyle(i),
+          name: formatDate(date), type: 'scatter', ...lineStyle(i),
           data: r.pairs.filter((p) => p.date === date).map((p) => ({ value: [roundTo(p.snowCoveredFraction * 100, 1), roundTo(p.simulatedFraction * 100, 1)], name: `${p.lowerM}–${p.upperM} m` })),
         })),
         { name: '1:1', type: 'line', showSymbol: false, data: [[0, 0], [100, 100]], lineStyle: { type: 'dashed', color: GUIDE_GREY }, itemStyle: { color: GUIDE_GREY } },
