@@ -1,4 +1,4 @@
-import { formatQuantity } from '../text/format';
+import { formatDatesIn, formatQuantity, formatYearMonth } from '../text/format';
 
 /**
  * The style every chart shares, on screen and in the PDF: a legend that wraps onto more lines
@@ -9,6 +9,11 @@ import { formatQuantity } from '../text/format';
 
 /** Tooltip and axis numbers as everywhere else in the app: significant figures, no exponent. */
 export const chartValue = (value: unknown): string => (typeof value === 'number' ? formatQuantity(value) : String(value ?? ''));
+
+/** A category as a person reads it: ISO days and months in the display locale (a chart's table and CSV keep them as ISO). */
+export const categoryLabel = (value: unknown): string => formatYearMonth(formatDatesIn(String(value ?? '')));
+/** The tooltip heading of a category axis, written as the axis' labels are. */
+export const CATEGORY_POINTER = { label: { formatter: (p: { value: unknown }) => categoryLabel(p.value) } };
 
 export const TOOLTIP = { trigger: 'axis', valueFormatter: chartValue } as const;
 export const BAR_TOOLTIP = { trigger: 'axis', axisPointer: { type: 'shadow' }, valueFormatter: chartValue } as const;

@@ -1,5 +1,5 @@
 import { afterEach, describe, expect, it } from 'vitest';
-import { DEFAULT_DISPLAY_LOCALE, decimalsFor, formatDate, formatDatesIn, formatDateTime, formatDecimal, formatMoney, formatMonth, formatPercent, formatPeriod, formatQuantity, isoDate, roundForEntry, setDisplayLocale, supportedLocale, withoutNoise } from './format';
+import { DEFAULT_DISPLAY_LOCALE, decimalsFor, formatDate, formatDatesIn, formatDateTime, formatDecimal, formatMoney, formatMonth, formatYearMonth, formatPercent, formatPeriod, formatQuantity, isoDate, roundForEntry, setDisplayLocale, supportedLocale, withoutNoise } from './format';
 
 afterEach(() => setDisplayLocale(DEFAULT_DISPLAY_LOCALE));
 
@@ -68,6 +68,7 @@ describe('one locale for dates and numbers', () => {
 
   it('names months in the display locale', () => {
     expect([formatMonth(0), formatMonth(8, 'short')]).toEqual(['January', 'Sept']);
+    expect([formatYearMonth('2024-05'), formatYearMonth('2024-13'), formatYearMonth('Kolvi')]).toEqual(['May 2024', '2024-13', 'Kolvi']);
     setDisplayLocale({ locale: 'de-CH' });
     expect(formatMonth(2)).toBe('März');
   });

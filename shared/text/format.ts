@@ -143,6 +143,13 @@ export function formatMonth(month: number, width: 'long' | 'short' = 'long'): st
   return new Intl.DateTimeFormat(current.locale, { month: width, timeZone: 'UTC' }).format(Date.UTC(2001, month, 15));
 }
 
+/** A calendar month ("2024-05") as "May 2024" in the display locale; anything else as it is. */
+export function formatYearMonth(value: string): string {
+  const month = /^(\d{4})-(0[1-9]|1[0-2])$/.exec(value);
+  if (!month) return value;
+  return new Intl.DateTimeFormat(current.locale, { month: 'short', year: 'numeric', timeZone: 'UTC' }).format(Date.UTC(Number(month[1]), Number(month[2]) - 1, 15));
+}
+
 /** A date and time of day (to the minute) in the display locale. */
 export function formatDateTime(value: string | Date | null | undefined): string {
   if (!value) return '—';
