@@ -1,5 +1,5 @@
 import type { App } from 'vue';
-import type { QDialogOptions } from 'quasar';
+import { Notify, type QDialogOptions } from 'quasar';
 
 let parentApp: App | null = null;
 let installed = false;
@@ -15,7 +15,10 @@ export function installConfirm(app: App): void {
  * card and form controls) loads with the first question, so it stays out of every page's first load.
  */
 export function whenConfirmed(options: QDialogOptions, action: () => unknown): void {
-  void dialogPlugin().then((Dialog) => Dialog.create(options).onOk(() => void action()));
+  dialogPlugin().then((Dialog) => Dialog.create(options).onOk(() => void action()), () => {
+    // Only a lost connection keeps the dialog's code from loading; nothing has been done.
+    Notify.create({ type: 'negative', message: 'The question could not be shown (the connection dropped?); nothing was changed. Try again.', position: 'top' });
+  });
 }
 
 async function dialogPlugin() {

@@ -5,8 +5,9 @@ import type * as DownloadModule from 'src/composables/useDownload';
 import BaseChart from './BaseChart.vue';
 
 vi.mock('vue-echarts', () => ({ default: { name: 'Echarts', props: ['option', 'autoresize'], template: '<div class="chart-stub" />' } }));
+const loadChartParts = vi.hoisted(() => vi.fn(() => Promise.resolve()));
 vi.mock('src/boot/echarts', () => ({
-  chartsAnimated: false, loadChartParts: () => Promise.resolve(), renderSvg: () => Promise.resolve('<svg />'), renderPng: () => Promise.resolve('data:image/png;base64,'),
+  chartsAnimated: false, loadChartParts, renderSvg: () => Promise.resolve('<svg />'), renderPng: () => Promise.resolve('data:image/png;base64,'),
 }));
 const saved = vi.hoisted(() => [] as { text: string; fileName: string }[]);
 vi.mock('src/composables/useDownload', async (original) => ({
@@ -48,5 +49,17 @@ describe('BaseChart', () => {
     (wrapper.vm as unknown as { downloadTable(): void }).downloadTable();
     // With the byte-order mark every CSV download carries (units such as °C read right in spreadsheets).
     expect(saved.at(-1)).toEqual({ fileName: 'stakes.csv', text: '\uFEFFStake\r\n"\'=HYPERLINK(""x"")"\r\n' });
+  });
+
+  it('says so when the chart\'s code cannot load, and points to the table view', async () => {
+    loadChartParts.mockRejectedValueOnce(new Error('Failed to fetch dynamically imported module'));
+    const errors: unknown[] = [];
+    const wrapper = mount(BaseChart, {
+      props: { title: 'Air temperature', option: { series: [] }, table, fileName: 'temperature' },
+      global: { plugins: [Quasar], config: { errorHandler: (error) => errors.push(error) } },
+    });
+    await vi.waitFor(() => expect(wrapper.text()).toContain('the table view has its numbers'));
+    expect(wrapper.find('.chart-stub').exists()).toBe(false);
+    expect(errors).toHaveLength(1);
   });
 });
