@@ -61,13 +61,9 @@ export function createApp(ctx: AppContext, options: AppOptions = {}): Express {
 }
 
 /**
- * Vite names every built asset by its content hash (assets/name-hash.js): a year, immutable. The
- * page itself is revalidated on every load so a release reaches everyone at once; other public
- * files (logo, favicon) keep an hour.
+ * The page itself is revalidated on every load so a release reaches everyone at once; other public
+ * files (logo, favicon) keep an hour. Hashed assets are clientAssets' (a year, immutable).
  */
 function setClientCacheHeaders(res: express.Response, file: string): void {
-  const name = path.basename(file);
-  if (name === 'index.html') res.setHeader('Cache-Control', 'no-cache');
-  else if (file.includes(`${path.sep}assets${path.sep}`)) res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
-  else res.setHeader('Cache-Control', 'public, max-age=3600');
+  res.setHeader('Cache-Control', path.basename(file) === 'index.html' ? 'no-cache' : 'public, max-age=3600');
 }
