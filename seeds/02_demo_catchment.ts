@@ -12,7 +12,7 @@ import { demoStation } from './data/demo-forcing';
 import { demoObservations } from './data/demo-observations';
 import { DEMO_CALIBRATION } from './data/demo-calibration';
 import { DEMO_CALIBRATION_SEASON } from './data/demo-calibrate';
-import { DEMO_REFERENCE_STATION, demoGlacierAreasKm2, demoStations } from './data/demo-stations';
+import { DEMO_REFERENCE_STATION, demoGlacierAreasKm2, demoStations, statedAccuracy } from './data/demo-stations';
 import { stationColumns } from '../server/services/stations/station-rows';
 import { waterSettingsSchema } from '../shared/schemas/water-settings';
 
@@ -94,8 +94,10 @@ export async function seed(knex: Knex): Promise<void> {
       const range = { first: series.times[0], last: series.times[series.times.length - 1], count: series.values.length };
       await insertDatasetValues(trx, await addDataset(variable, step, accuracy, fileName, range, station), series.times, series.values);
     };
-    await add('temperature', 'hourly', station.hourlyTemperature, '±0.3 °C (invented)', 'kolvi-camp-temperature-hourly.csv');
-    await add('precipitation', 'daily', station.dailyPrecipitation, '±10 %, undercatch of snow not corrected (invented)', 'kolvi-camp-precipitation-daily.csv');
+    // Each series states the accuracy its station's fields state.
+    const referenceAccuracy = statedAccuracy(DEMO_REFERENCE_STATION);
+    await add('temperature', 'hourly', station.hourlyTemperature, referenceAccuracy.temperature, 'kolvi-camp-temperature-hourly.csv');
+    await add('precipitation', 'daily', station.dailyPrecipitation, referenceAccuracy.precipitation, 'kolvi-camp-precipitation-daily.csv');
     await add('discharge', 'daily', observations.dailyDischarge, '±15 % at high flows (invented)', 'sarvel-gauge-discharge-daily.csv');
     // The other stations' series after the reference station's, so its series are listed first.
     for (const [i, s] of others.entries()) {

@@ -5,6 +5,7 @@ import helmet from 'helmet';
 import { existsSync } from 'node:fs';
 import path from 'node:path';
 import type { AppContext } from './context';
+import { clientAssets } from './middleware/client-assets';
 import { errorHandler } from './middleware/error-handler';
 import { requestLog } from './middleware/request-log';
 import { apiRouter } from './routes';
@@ -20,6 +21,9 @@ export function createApp(ctx: AppContext, options: AppOptions = {}): Express {
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
   app.use(requestLog(ctx.logger));
+  const clientDir = options.clientDir && existsSync(options.clientDir) ? path.resolve(options.clientDir) : null;
+  // Hashed scripts, styles and fonts first: the compressed copies of the build, with a subresource's headers only.
+  if (clientDir && existsSync(path.join(clientDir, 'assets'))) app.use('/assets', clientAssets(path.join(clientDir, 'assets')));
   app.use(
     helmet({
       contentSecurityPolicy: {
@@ -46,11 +50,10 @@ export function createApp(ctx: AppContext, options: AppOptions = {}): Express {
   app.use(cookieParser());
   app.use('/api', apiRouter(ctx));
 
-  if (options.clientDir && existsSync(options.clientDir)) {
-    const dir = path.resolve(options.clientDir);
-    app.use(express.static(dir, { index: false, setHeaders: setClientCacheHeaders }));
+  if (clientDir) {
+    app.use(express.static(clientDir, { index: false, setHeaders: setClientCacheHeaders }));
     // Client-side routes all load the same page.
-    app.get(/^(?!\/api\/).*/, (_req, res) => res.sendFile(path.join(dir, 'index.html'), { headers: { 'Cache-Control': 'no-cache' } }));
+    app.get(/^(?!\/api\/).*/, (_req, res) => res.sendFile(path.join(clientDir, 'index.html'), { headers: { 'Cache-Control': 'no-cache' } }));
   }
 
   app.use(errorHandler);
@@ -58,13 +61,9 @@ export function createApp(ctx: AppContext, options: AppOptions = {}): Express {
 }
 
 /**
- * Vite names every built asset by its content hash (assets/name-hash.js): a year, immutable. The
- * page itself is revalidated on every load so a release reaches everyone at once; other public
- * files (logo, favicon) keep an hour.
+ * The page itself is revalidated on every load so a release reaches everyone at once; other public
+ * files (logo, favicon) keep an hour. Hashed assets are clientAssets' (a year, immutable).
  */
 function setClientCacheHeaders(res: express.Response, file: string): void {
-  const name = path.basename(file);
-  if (name === 'index.html') res.setHeader('Cache-Control', 'no-cache');
-  else if (file.includes(`${path.sep}assets${path.sep}`)) res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
-  else res.setHeader('Cache-Control', 'public, max-age=3600');
+  res.setHeader('Cache-Control', path.basename(file) === 'index.html' ? 'no-cache' : 'public, max-age=3600');
 }

@@ -23,6 +23,7 @@ export interface DemoStation {
   to: string;
   dailyTemperature: { times: string[]; values: number[] };
   dailyPrecipitation: { times: string[]; values: number[] };
+  /** The accuracy each series states, as its station's fields state it. */
   accuracy: { temperature: string; precipitation: string };
   source: string;
   files: { temperature: string; precipitation: string };
@@ -38,7 +39,7 @@ export const DEMO_REFERENCE_STATION: StationFields = {
   licence: 'Own measurements for this study (invented)',
 };
 
-const STATIONS: (Omit<DemoStation, 'dailyTemperature' | 'dailyPrecipitation'> & { seed: number })[] = [
+const STATIONS: (Omit<DemoStation, 'dailyTemperature' | 'dailyPrecipitation' | 'accuracy'> & { seed: number })[] = [
   {
     fields: {
       name: 'Dhenar village observatory', network: 'Dhenar Valley Irrigation Board (invented)', instrument: 'Screened thermometer read twice daily; standard rain gauge without wind shield',
@@ -47,7 +48,6 @@ const STATIONS: (Omit<DemoStation, 'dailyTemperature' | 'dailyPrecipitation'> & 
       licence: 'Invented: shared with the demo consultancy for this study only',
     },
     from: '2021-10-01', to: '2024-09-30', seed: 2950,
-    accuracy: { temperature: '±0.5 °C (invented)', precipitation: '±10 %, snow undercatch not corrected (invented)' },
     source: 'Synthetic demo series (seed script, invented village observatory)',
     files: { temperature: 'dhenar-village-temperature-daily.csv', precipitation: 'dhenar-village-precipitation-daily.csv' },
   },
@@ -59,7 +59,6 @@ const STATIONS: (Omit<DemoStation, 'dailyTemperature' | 'dailyPrecipitation'> & 
       licence: 'Invented open research licence, cite the invented group',
     },
     from: '2022-06-01', to: '2024-09-30', seed: 4380,
-    accuracy: { temperature: '±0.2 °C (invented)', precipitation: '±8 % (invented)' },
     source: 'Synthetic demo series (seed script, invented moraine mast)',
     files: { temperature: 'sarvel-moraine-temperature-daily.csv', precipitation: 'sarvel-moraine-precipitation-daily.csv' },
   },
@@ -71,11 +70,20 @@ const STATIONS: (Omit<DemoStation, 'dailyTemperature' | 'dailyPrecipitation'> & 
       licence: 'Invented programme data, non-commercial use',
     },
     from: '2022-10-01', to: '2024-09-30', seed: 5150,
-    accuracy: { temperature: '±0.3 °C (invented)', precipitation: '±15 % (invented)' },
     source: 'Synthetic demo series (seed script, invented col station)',
     files: { temperature: 'tsaro-col-temperature-daily.csv', precipitation: 'tsaro-col-precipitation-daily.csv' },
   },
 ];
+
+/** A station's stated accuracy of its two series, from its fields (stated once, there). */
+export function statedAccuracy(fields: StationFields): DemoStation['accuracy'] {
+  const of = (variable: 'temperature' | 'precipitation') => {
+    const stated = fields.accuracy?.find((a) => a.variable === variable)?.statement;
+    if (!stated) throw new Error(`Demo station ${fields.name} states no ${variable} accuracy.`);
+    return stated;
+  };
+  return { temperature: of('temperature'), precipitation: of('precipitation') };
+}
 
 let cached: DemoStation[] | null = null;
 
@@ -112,7 +120,7 @@ export function demoStations(): DemoStation[] {
       precipitation.times.push(time);
       precipitation.values.push(p > 0 ? Math.round(p * multiplier * Math.exp(0.3 * normal(random) - 0.045) * 10) / 10 : 0);
     });
-    return { ...s, dailyTemperature: temperature, dailyPrecipitation: precipitation };
+    return { ...s, accuracy: statedAccuracy(s.fields), dailyTemperature: temperature, dailyPrecipitation: precipitation };
   });
   return cached;
 }

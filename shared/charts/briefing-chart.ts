@@ -1,5 +1,5 @@
 import type { ChartData } from '../schemas/briefings';
-import { TOOLTIP, wrappingLegend } from './chart-style';
+import { CATEGORY_POINTER, TOOLTIP, categoryLabel, wrappingLegend } from './chart-style';
 import { SERIES_COLOURS, seriesColour } from './palette';
 
 /**
@@ -34,7 +34,8 @@ export function briefingChartOption(chart: ChartData, options: { animation?: boo
     tooltip: TOOLTIP,
     xAxis: {
       type: 'category', name: chart.xName, nameLocation: 'middle', nameGap: slanted ? 90 : 30, data: chart.categories,
-      ...(named ? { axisLabel: { interval: 0, ...(slanted ? { rotate: 25 } : {}) } } : {}),
+      axisLabel: { formatter: categoryLabel, ...(named ? { interval: 0, ...(slanted ? { rotate: 25 } : {}) } : {}) },
+      axisPointer: CATEGORY_POINTER,
     },
     yAxis: { type: 'value', name: chart.unit ? `${chart.yName} (${chart.unit})` : chart.yName, nameLocation: 'middle', nameGap: 48 },
     series,

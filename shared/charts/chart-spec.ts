@@ -1,6 +1,6 @@
 import type { RunResults } from '../schemas/results';
 import { withoutNoise } from '../text/format';
-import { chartValue } from './chart-style';
+import { CATEGORY_POINTER, categoryLabel, chartValue } from './chart-style';
 import { roundSignificant } from '../text/numbers';
 
 /** The numbers of a chart as a table: its table view and CSV download. */
@@ -21,10 +21,15 @@ export interface ResultItem {
   results: RunResults;
 }
 
-/** Axis settings with the name (and unit) of the axis always shown. */
+/**
+ * Axis settings with the name (and unit) of the axis always shown; numbers as everywhere else on
+ * a value axis, days written as dates on a category axis and in its tooltip heading.
+ */
 export const axis = (name: string, type: 'category' | 'value', data?: string[]) => ({
   type, name, nameLocation: 'middle', nameGap: type === 'value' ? 60 : 30, ...(data ? { data } : {}),
-  ...(type === 'value' ? { axisLabel: { formatter: chartValue } } : {}),
+  ...(type === 'value'
+    ? { axisLabel: { formatter: chartValue } }
+    : { axisLabel: { formatter: categoryLabel }, axisPointer: CATEGORY_POINTER }),
 });
 
 export const GRID = { left: 80, right: 24, top: 56, bottom: 70 };

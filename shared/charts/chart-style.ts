@@ -1,4 +1,4 @@
-import { formatQuantity } from '../text/format';
+import { formatDatesIn, formatQuantity, formatYearMonth } from '../text/format';
 
 /**
  * The style every chart shares, on screen and in the PDF: a legend that wraps onto more lines
@@ -9,6 +9,11 @@ import { formatQuantity } from '../text/format';
 
 /** Tooltip and axis numbers as everywhere else in the app: significant figures, no exponent. */
 export const chartValue = (value: unknown): string => (typeof value === 'number' ? formatQuantity(value) : String(value ?? ''));
+
+/** A category as a person reads it: ISO days and months in the display locale (a chart's table and CSV keep them as ISO). */
+export const categoryLabel = (value: unknown): string => formatYearMonth(formatDatesIn(String(value ?? '')));
+/** The tooltip heading of a category axis, written as the axis' labels are. */
+export const CATEGORY_POINTER = { label: { formatter: (p: { value: unknown }) => categoryLabel(p.value) } };
 
 export const TOOLTIP = { trigger: 'axis', valueFormatter: chartValue } as const;
 export const BAR_TOOLTIP = { trigger: 'axis', axisPointer: { type: 'shadow' }, valueFormatter: chartValue } as const;
@@ -35,6 +40,24 @@ export function wrappingLegend(names: readonly string[], widthPx: number, gridTo
   }
   return { legend: { type: 'plain', top: 0, left: 'center', width: '92%', itemGap: 12 }, top: Math.max(gridTop, 24 + rows * LEGEND_ROW_PX) };
 }
+
+/** The narrowest width a chart is drawn at on screen: a phone's. */
+export const NARROWEST_CHART_PX = 390;
+
+/**
+ * Legend and grid of a chart with a legend above it: the legend wraps (`wrappingLegend`) and the
+ * grid starts below its rows at the narrowest width, so long series names never run into the plot.
+ */
+export function legendAndGrid(names: readonly string[], widthPx = NARROWEST_CHART_PX): { legend: Record<string, unknown>; grid: { left: number; right: number; top: number; bottom: number } } {
+  const { legend, top } = wrappingLegend(names, widthPx, 32);
+  return { legend, grid: { left: 80, right: 24, top, bottom: 56 } };
+}
+
+/**
+ * An axis name along the middle of its axis (turned for the vertical one), as `axis()` in
+ * chart-spec.ts places them: a name at the top of a vertical axis sits in the legend's rows.
+ */
+export const axisNameAlong = (name: string, direction: 'x' | 'y') => ({ name, nameLocation: 'middle', nameGap: direction === 'y' ? 56 : 28 }) as const;
 
 const axisColours = (text: string, line: string, split: string) => ({
   axisLine: { lineStyle: { color: line } },

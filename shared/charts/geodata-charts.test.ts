@@ -32,4 +32,17 @@ describe('geodata charts', () => {
     const data = (geodeticBalanceChart(change).option.series as { data: number[][] }[]).map((s) => s.data[0]);
     expect(data).toEqual([[-0.85, 4100], [-0.95, 4100], [-0.75, 4100]]);
   });
+
+  it('keeps the legend of a profile clear of the axis names: the names run along the axes and the plot starts below the wrapped legend', () => {
+    const change = {
+      uploadId: 1, fileName: 'd.tif', fromDate: '2000-01-01', toDate: '2020-01-01', densityKgM3: 850,
+      rows: [{ lowerM: 4000, upperM: 4200, glacierAreaKm2: 1, coveredFraction: 1, dhdtMPerYear: -1, dhdtSigmaMPerYear: 0.1, balanceMwePerYear: -0.85, balanceSigmaMwePerYear: 0.1 }],
+    };
+    const option = geodeticBalanceChart(change).option as { legend: { type: string }; grid: { top: number }; yAxis: { name: string; nameLocation: string } };
+    expect(option.yAxis).toMatchObject({ name: 'Elevation (m)', nameLocation: 'middle' });
+    expect(option.legend.type).toBe('plain');
+    // Three series, the first named with its period, wrap onto two rows at a phone's width.
+    expect(option.grid.top).toBeGreaterThanOrEqual(24 + 2 * 22);
+    expect((option as unknown as { series: { name: string }[] }).series[0].name).toBe('Geodetic balance 1 Jan 2000 to 1 Jan 2020');
+  });
 });

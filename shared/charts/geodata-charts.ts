@@ -1,17 +1,22 @@
 import type { BandRow } from '../schemas/catchment-bands';
 import type { Derivation, ElevationChange, SnowCoverMap } from '../schemas/geodata';
 import { roundTo } from '../text/numbers';
+import { formatPeriod } from '../text/format';
 import type { ChartSpec } from './chart-spec';
+import { axisNameAlong, legendAndGrid } from './chart-style';
 import { lineStyle } from './palette';
 
-/** The frame of a profile chart: a quantity (x) against elevation (y), as hypsometry and balance profiles are drawn. */
-export function profileFrame(xName: string) {
+/**
+ * A profile chart: a quantity (x) against elevation (y), as hypsometry and balance profiles are
+ * drawn, its legend of the series' names wrapping above the plot, the axis names along the axes.
+ */
+export function profileChart(xName: string, series: readonly ({ name: string } & Record<string, unknown>)[]) {
   return {
     tooltip: { trigger: 'item' },
-    legend: { top: 0 },
-    grid: { left: 64, right: 24, top: 40, bottom: 48 },
-    xAxis: { type: 'value', name: xName, nameLocation: 'middle', nameGap: 28 },
-    yAxis: { type: 'value', name: 'Elevation (m)', scale: true },
+    ...legendAndGrid(series.map((s) => s.name)),
+    xAxis: { type: 'value', ...axisNameAlong(xName, 'x') },
+    yAxis: { type: 'value', ...axisNameAlong('Elevation (m)', 'y'), scale: true },
+    series,
   };
 }
 
@@ -33,13 +38,10 @@ export function hypsometryComparisonChart(current: readonly BandRow[], derived: 
     rows.flatMap((r) => [[roundTo((r.areaKm2 * 100) / (r.upperM - r.lowerM), 3), r.lowerM], [roundTo((r.areaKm2 * 100) / (r.upperM - r.lowerM), 3), r.upperM]]);
   const now = ranges(current);
   return {
-    option: {
-      ...profileFrame('Area per 100 m of elevation (km²)'),
-      series: [
-        { name: 'Table in use', type: 'line', data: steps(now), showSymbol: false, ...lineStyle(0, true) },
-        { name: 'Derived from the DEM (50 m steps)', type: 'line', data: steps(derived), showSymbol: false, ...lineStyle(1) },
-      ],
-    },
+    option: profileChart('Area per 100 m of elevation (km²)', [
+      { name: 'Table in use', type: 'line', data: steps(now), showSymbol: false, ...lineStyle(0, true) },
+      { name: 'Derived from the DEM (50 m steps)', type: 'line', data: steps(derived), showSymbol: false, ...lineStyle(1) },
+    ]),
     table: {
       columns: [{ name: 'lowerM', label: 'From (m)' }, { name: 'upperM', label: 'To (m)' }, { name: 'areaKm2', label: 'Derived area (km²)' }, { name: 'glacierKm2', label: 'Glacier (km²)' }, { name: 'debrisKm2', label: 'Debris-covered ice (km²)' }],
       rows: derived.map((h) => ({ lowerM: h.lowerM, upperM: h.upperM, areaKm2: roundTo(h.areaKm2, 3), glacierKm2: roundTo(h.glacierAreaKm2, 3), debrisKm2: roundTo(h.debrisAreaKm2, 3) })),
@@ -75,14 +77,11 @@ export function snowCoverChart(maps: readonly SnowCoverMap[]): ChartSpec {
 export function geodeticBalanceChart(change: ElevationChange): ChartSpec {
   const mid = (r: { lowerM: number; upperM: number }) => (r.lowerM + r.upperM) / 2;
   return {
-    option: {
-      ...profileFrame('Balance (m w.e. per year)'),
-      series: [
-        { name: `Geodetic balance ${change.fromDate} to ${change.toDate}`, type: 'line', data: change.rows.map((r) => [roundTo(r.balanceMwePerYear, 3), mid(r)]), ...lineStyle(0) },
-        { name: '− 1 σ', type: 'line', data: change.rows.map((r) => [roundTo(r.balanceMwePerYear - r.balanceSigmaMwePerYear, 3), mid(r)]), showSymbol: false, ...lineStyle(1, true), lineStyle: { type: 'dotted', width: 1 } },
-        { name: '+ 1 σ', type: 'line', data: change.rows.map((r) => [roundTo(r.balanceMwePerYear + r.balanceSigmaMwePerYear, 3), mid(r)]), showSymbol: false, ...lineStyle(1, true), lineStyle: { type: 'dotted', width: 1 } },
-      ],
-    },
+    option: profileChart('Balance (m w.e. per year)', [
+      { name: `Geodetic balance ${formatPeriod(change.fromDate, change.toDate)}`, type: 'line', data: change.rows.map((r) => [roundTo(r.balanceMwePerYear, 3), mid(r)]), ...lineStyle(0) },
+      { name: '− 1 σ', type: 'line', data: change.rows.map((r) => [roundTo(r.balanceMwePerYear - r.balanceSigmaMwePerYear, 3), mid(r)]), showSymbol: false, ...lineStyle(1, true), lineStyle: { type: 'dotted', width: 1 } },
+      { name: '+ 1 σ', type: 'line', data: change.rows.map((r) => [roundTo(r.balanceMwePerYear + r.balanceSigmaMwePerYear, 3), mid(r)]), showSymbol: false, ...lineStyle(1, true), lineStyle: { type: 'dotted', width: 1 } },
+    ]),
     table: {
       columns: [
         { name: 'band', label: 'Band' }, { name: 'glacier', label: 'Glacier (km²)' }, { name: 'covered', label: 'With data (% of glacier)' },

@@ -18,4 +18,13 @@ describe('season charts comparing runs', () => {
     expect(hydrograph(items).table.rows[4]).toMatchObject({ baseline: 1, v0: 2, v1: null });
     expect(cumulativeAdded(items).table.rows[4]).toMatchObject({ v0: 345_600, v1: null });
   });
+
+  it('write the days along the axis and in the tooltip as dates, while the table keeps them as ISO days', () => {
+    const { option, table } = hydrograph([item('Soot', '2024-04-01', 3)]);
+    const x = option.xAxis as { data: string[]; axisLabel: { formatter(v: string): string }; axisPointer: { label: { formatter(p: { value: string }): string } } };
+    expect(x.data[0]).toBe('2024-04-01');
+    expect(x.axisLabel.formatter(x.data[0])).toBe('1 Apr 2024');
+    expect(x.axisPointer.label.formatter({ value: x.data[2] })).toBe('3 Apr 2024');
+    expect(Object.values(table.rows[0])).toContain('2024-04-01');
+  });
 });

@@ -1,4 +1,5 @@
-import { simulate, PARAMETER_RANGES, type Parameters } from '../melt/index';
+import { simulate } from '../melt/simulate';
+import { PARAMETER_RANGES, type Parameters } from '../melt/parameters';
 import { logSpaced, surfacesInput, type BandSite } from './site';
 
 /** Black carbon of the curves, ng g⁻¹: 0 (clean) then log-spaced from 1 to 5000. */

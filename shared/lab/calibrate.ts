@@ -1,4 +1,4 @@
-import { simulate } from '../melt/index';
+import { simulate } from '../melt/simulate';
 import { addDays } from '../melt/calendar';
 import { maximise, type SearchProgress } from './nelder-mead';
 import { behaviouralRanges, type ParameterRange } from './behavioural-ranges';

@@ -1,4 +1,5 @@
-import type { Parameters, SimulationInput } from '../melt/index';
+import type { Parameters } from '../melt/parameters';
+import type { SimulationInput } from '../melt/schema';
 import { PARAMETER_SPECS } from '../melt/parameters';
 import { labelOf } from '../text/labels';
 import type { LabSite, Period } from './site';

@@ -1,4 +1,4 @@
-import { simulate } from '../melt/index';
+import { simulate } from '../melt/simulate';
 import { addDays, daysBetween } from '../melt/calendar';
 import type { SimulationResult } from '../melt/result';
 import { unitsOfRange } from './band-ranges';

@@ -1,4 +1,5 @@
-import { simulate, DEFAULT_PARAMETERS, PARAMETER_RANGES } from '../melt/index';
+import { simulate } from '../melt/simulate';
+import { DEFAULT_PARAMETERS, PARAMETER_RANGES } from '../melt/parameters';
 import { logSpaced, surfacesInput, type BandSite } from './site';
 
 /** Debris thicknesses of the curve: log-spaced from the engine's thinnest debris (5 mm) to 1 m; 0 m is clean ice. */

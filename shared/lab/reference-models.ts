@@ -1,4 +1,5 @@
-import { simulate, simulateDegreeDay, simulateEnhancedTemperatureIndex, type SimulationResult } from '../melt/index';
+import { simulate, simulateDegreeDay, simulateEnhancedTemperatureIndex } from '../melt/simulate';
+import type { SimulationResult } from '../melt/result';
 import { addDays, daysBetween } from '../melt/calendar';
 import { catchmentInput, forcingDays } from './calibration-set';
 import { selectedBand, type BandSite } from './site';

@@ -1,4 +1,5 @@
-import type { Parameters, SimulationInput } from '../melt/index';
+import type { Parameters } from '../melt/parameters';
+import type { SimulationInput } from '../melt/schema';
 import { engineWaterSide, type WaterInputs } from '../analysis/water-side-inputs';
 
 /** The catchment and its climate as the engine takes them. */

@@ -1,4 +1,4 @@
-import { kge, nse } from '../melt/index';
+import { kge, nse } from '../melt/skill';
 import { kgeParts, type KgeParts } from '../melt/skill';
 
 export interface SkillScores extends KgeParts {

@@ -1,4 +1,4 @@
-import { simulate } from '../melt/index';
+import { simulate } from '../melt/simulate';
 import { addDays, daysBetween } from '../melt/calendar';
 import { catchmentInput, forcingDays } from './calibration-set';
 import { skillScores, type SkillScores } from './skill-scores';

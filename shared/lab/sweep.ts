@@ -1,4 +1,6 @@
-import { simulate, type Parameters, type SimulationInput } from '../melt/index';
+import { simulate } from '../melt/simulate';
+import type { Parameters } from '../melt/parameters';
+import type { SimulationInput } from '../melt/schema';
 import { PARAMETER_NAMES, PARAMETER_SPECS, type ParameterName } from '../melt/parameters';
 import { addDays } from '../melt/calendar';
 import { catchmentInput, forcingDays } from './calibration-set';

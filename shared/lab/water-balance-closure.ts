@@ -1,4 +1,4 @@
-import { simulate } from '../melt/index';
+import { simulate } from '../melt/simulate';
 import { addDays } from '../melt/calendar';
 import type { SimulationResult } from '../melt/result';
 import { invertWaterBalance, WaterBalanceNotClosedError, type BalanceCandidate, type BalanceObservations, type BalanceUnknown, type InversionResult, type ModelledBalance } from '../hydrology/water-balance';

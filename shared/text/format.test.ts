@@ -1,5 +1,5 @@
 import { afterEach, describe, expect, it } from 'vitest';
-import { DEFAULT_DISPLAY_LOCALE, decimalsFor, formatDate, formatDateTime, formatDecimal, formatMoney, formatPercent, formatPeriod, formatQuantity, isoDate, roundForEntry, setDisplayLocale, supportedLocale, withoutNoise } from './format';
+import { DEFAULT_DISPLAY_LOCALE, decimalsFor, formatDate, formatDatesIn, formatDateTime, formatDecimal, formatMoney, formatMonth, formatYearMonth, formatPercent, formatPeriod, formatQuantity, isoDate, roundForEntry, setDisplayLocale, supportedLocale, withoutNoise } from './format';
 
 afterEach(() => setDisplayLocale(DEFAULT_DISPLAY_LOCALE));
 
@@ -55,6 +55,22 @@ describe('one locale for dates and numbers', () => {
     expect(formatDateTime('2026-12-02T14:30:00Z')).toMatch(/^2\. Dezember 2026 um \d{2}:30$/);
     expect(isoDate('2026-12-02T23:30:00Z')).toBe('2026-12-02');
     expect(formatDate(null)).toBe('—');
+  });
+
+  it('writes the ISO days of a sentence in the display locale, and nothing else that looks like one', () => {
+    const text = 'the calibration saved on 2026-12-02 by Ana (2021-10-01 to 2024-09-30, KGE 0.81)';
+    expect(formatDatesIn(text)).toBe('the calibration saved on 2 Dec 2026 by Ana (1 Oct 2021 to 30 Sept 2024, KGE 0.81)');
+    setDisplayLocale({ locale: 'en-US', dateStyle: 'medium' });
+    expect(formatDatesIn('melt season 2024-05-01 to 2024-09-30')).toBe('melt season May 1, 2024 to Sep 30, 2024');
+    // A timestamp, a file name, a month that is not one and a longer number stay as written.
+    for (const kept of ['at 2024-05-01T06:00', 'station-2024-05-01.csv', 'code 2024-13-01', 'id 12024-05-01']) expect(formatDatesIn(kept)).toBe(kept);
+  });
+
+  it('names months in the display locale', () => {
+    expect([formatMonth(0), formatMonth(8, 'short')]).toEqual(['January', 'Sept']);
+    expect([formatYearMonth('2024-05'), formatYearMonth('2024-13'), formatYearMonth('Kolvi')]).toEqual(['May 2024', '2024-13', 'Kolvi']);
+    setDisplayLocale({ locale: 'de-CH' });
+    expect(formatMonth(2)).toBe('März');
   });
 
   it('formats money in the display locale and falls back for a tag Intl cannot use', () => {

@@ -126,6 +126,30 @@ export function formatPeriod(from: string | null | undefined, to: string | null 
   return `${day(from)} to ${day(to)}`;
 }
 
+/** A calendar day written alone ("2024-05-01"), not part of a timestamp, a file name or a longer number. */
+const DAY_IN_TEXT = /(?<![\w-])(\d{4})-(0[1-9]|1[0-2])-(0[1-9]|[12]\d|3[01])(?![\w-])/g;
+
+/**
+ * A sentence with its ISO days written in the display locale. Texts the server writes for screens
+ * and exports alike (a run's set-up, its calibration, the melt season) carry ISO days, which the
+ * CSV keeps; screens and the PDF show them through this.
+ */
+export function formatDatesIn(text: string): string {
+  return text.replace(DAY_IN_TEXT, (day) => formatDate(day));
+}
+
+/** A month's name (0 = January) in the display locale: 'long' ("September") or 'short' ("Sept"). */
+export function formatMonth(month: number, width: 'long' | 'short' = 'long'): string {
+  return new Intl.DateTimeFormat(current.locale, { month: width, timeZone: 'UTC' }).format(Date.UTC(2001, month, 15));
+}
+
+/** A calendar month ("2024-05") as "May 2024" in the display locale; anything else as it is. */
+export function formatYearMonth(value: string): string {
+  const month = /^(\d{4})-(0[1-9]|1[0-2])$/.exec(value);
+  if (!month) return value;
+  return new Intl.DateTimeFormat(current.locale, { month: 'short', year: 'numeric', timeZone: 'UTC' }).format(Date.UTC(Number(month[1]), Number(month[2]) - 1, 15));
+}
+
 /** A date and time of day (to the minute) in the display locale. */
 export function formatDateTime(value: string | Date | null | undefined): string {
   if (!value) return '—';

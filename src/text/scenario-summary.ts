@@ -1,5 +1,5 @@
 import type { ScenarioChanges } from '@shared/schemas/scenarios';
-import { formatQuantity } from '@shared/text/format';
+import { formatPeriod, formatQuantity } from '@shared/text/format';
 
 const shown = (x: number) => formatQuantity(x, 'setting');
 const value = (v: number | number[], unit: string) =>
@@ -20,6 +20,6 @@ export function scenarioSummary(c: ScenarioChanges): string {
   if (Array.isArray(c.precipitationFactor) || c.precipitationFactor !== 1) parts.push(`Precipitation × ${value(c.precipitationFactor, '')}`.trim());
   const parameterCount = Object.keys(c.parameters).length;
   if (parameterCount > 0) parts.push(`${parameterCount} parameter(s) changed`);
-  const period = c.period ? `${c.period.from} … ${c.period.to}` : 'no period set';
+  const period = c.period ? formatPeriod(c.period.from, c.period.to) : 'no period set';
   return `${parts.length ? parts.join(' · ') : 'No changes'} (${period})`;
 }

@@ -2,7 +2,7 @@ import PDFDocument from 'pdfkit';
 import type { BriefingSnapshot, Headline } from '../../../../shared/schemas/briefings';
 import { TIMING_NOTE, formatRanged, scaleRanged } from '../../../../shared/briefings/format';
 import { formatNumber } from '../../../../shared/text/numbers';
-import { formatPeriod } from '../../../../shared/text/format';
+import { formatDatesIn, formatPeriod } from '../../../../shared/text/format';
 import { CALIBRATION_HEADING, CAUTIONS_HEADING } from '../../../../shared/text/cautions';
 import { chartSvg } from './chart-svg';
 import { FONTS } from './fonts';
@@ -39,7 +39,7 @@ function headlineBlock(doc: Doc, h: Headline): void {
   paragraph(doc, `${h.variantName}`, { bold: true, size: 11 });
   const lines: [string, string][] = [
     ['Added melt volume', `${formatRanged(scaleRanged(h.addedVolumeM3, 1e-6), 2)} million m³`],
-    [`Added discharge in the melt season (${h.meltSeason})`, `${formatRanged(h.addedMeltSeasonDischargeM3s, 3)} m³/s`],
+    [`Added discharge in the melt season (${formatDatesIn(h.meltSeason)})`, `${formatRanged(h.addedMeltSeasonDischargeM3s, 3)} m³/s`],
     ['Added runoff, % of baseline', `${formatRanged(h.addedRunoffPercentOfBaseline, 1)} %`],
     [`Timing shift (${TIMING_NOTE})`, `${formatRanged(h.timingShiftDays, 1)} days`],
   ];
@@ -77,7 +77,7 @@ function assumptions(doc: Doc, s: BriefingSnapshot): void {
   if (a.setUp.length) {
     table(doc, {
       columns: [{ label: 'Run set-up', unit: '' }, { label: 'Item', unit: '' }, { label: 'Value', unit: '' }],
-      rows: a.setUp.flatMap((run) => run.lines.map((l, i) => [i === 0 ? run.scenarioName : '', l.label, l.value])),
+      rows: a.setUp.flatMap((run) => run.lines.map((l, i) => [i === 0 ? run.scenarioName : '', l.label, formatDatesIn(l.value)])),
     });
   }
 }
@@ -103,7 +103,7 @@ export function briefingPdf(s: BriefingSnapshot): Promise<Buffer> {
   paragraph(doc, `Each variant against the baseline “${s.baselineName}”. Ranges in brackets are the 5–95 % spread of the ensemble where one was run.`, { size: 9, color: MUTED });
   if (s.warnings.length) {
     heading(doc, CALIBRATION_HEADING);
-    s.warnings.forEach((w) => paragraph(doc, `• ${w}`, { bold: true }));
+    s.warnings.forEach((w) => paragraph(doc, `• ${formatDatesIn(w)}`, { bold: true }));
   }
   s.headlines.forEach((h) => headlineBlock(doc, h));
   if (s.summary.trim()) {
