@@ -66,6 +66,7 @@ describe('a catchment from its elevation model and outlines, in the browser', ()
     await page.waitForSelector('[data-test=catchment-map-canvas] canvas', { timeout: 30_000 });
     expect(await page.locator('[data-test=catchment-map-legend] .swatch').count()).toBe(DEMO_BANDS.length);
     await page.click('[data-test=catchment-map-view] >> text=Table');
+    await page.waitForSelector('[data-test=catchment-map-table] tbody tr', { state: 'attached' });
     expect(await page.locator('[data-test=catchment-map-table] tbody tr').count()).toBe(DEMO_BANDS.length);
     await page.click('[data-test=catchment-map-view] >> text=Map');
     await page.waitForFunction(() => {

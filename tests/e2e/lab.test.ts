@@ -35,6 +35,8 @@ describe('the lab in the browser', () => {
     await page.screenshot({ path: 'test-results/lab-surface.png', fullPage: true });
 
     await page.click('[data-test=ostrem-chart-view] >> text=Table');
+    // The table view loads on demand: wait for its rows before counting them.
+    await page.waitForSelector('[data-test=ostrem-chart] tbody tr', { state: 'attached' });
     expect(await page.locator('[data-test=ostrem-chart] tbody tr').count()).toBeGreaterThan(10);
 
     await page.click('[data-test=lab-tab-calibration]');

@@ -100,9 +100,12 @@ describe('where the water comes from, in the browser', () => {
     await page.fill('[data-test=transient-years]', '15');
     await page.fill('[data-test=transient-from]', '2030');
     await page.fill('[data-test=transient-target]', '2060');
-    const started = page.waitForResponse((r) => r.request().method() === 'POST' && /\/runs$/.test(r.url()));
-    await page.click('[data-test=start-run]');
-    const { run } = await (await started).json() as { run: { id: number } };
+    const [started] = await Promise.all([
+      page.waitForResponse((r) => r.request().method() === 'POST' && /\/runs$/.test(r.url()), { timeout: 60_000 }),
+      page.click('[data-test=start-run]'),
+    ]);
+    expect(started.status()).toBe(202);
+    const { run } = await started.json() as { run: { id: number } };
     await page.waitForSelector(`[data-test=run-status-${run.id}] >> text=done`, { timeout: 180_000 });
     expect(await page.textContent('[data-test=runs-table]')).toMatch(/15 years from 2030, 3 °C by 2060/);
     await page.click(`[data-test=results-${run.id}]`);
