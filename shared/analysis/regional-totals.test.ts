@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { catchmentContribution, regionalTotal, type ContributionMember } from './regional-totals';
+import { catchmentContribution, regionalTotal, transientContribution, type ContributionMember, type TransientContributionMember } from './regional-totals';
 import type { SimulationSummary } from './simulation-summary';
 
 /** A one-band summary whose daily runoff is `daily` (all of it snowmelt), from 2024-06-29. */
@@ -25,13 +25,13 @@ describe('regional totals', () => {
     // 29 and 30 June, 1 and 2 July: 10 m³ a day more in June, 20 in July.
     const a = catchmentContribution(run([100, 100, 100, 100], [110, 110, 120, 120]));
     expect(a.addedVolumeM3).toBe(60);
-    expect([...a.monthlyAddedM3]).toEqual([['2024-06', 20], ['2024-07', 40]]);
+    expect([...a.addedByPeriodM3]).toEqual([['2024-06', 20], ['2024-07', 40]]);
     expect(a.areaKm2).toBe(2);
     const b = catchmentContribution(run([50, 50, 50, 50], [55, 55, 55, 55]));
     const total = regionalTotal([b, a]);
     expect(total.addedVolumeM3).toBe(80);
-    expect(total.months).toEqual(['2024-06', '2024-07']);
-    expect(total.monthlyAddedM3).toEqual([30, 50]);
+    expect(total.periods).toEqual(['2024-06', '2024-07']);
+    expect(total.addedByPeriodM3).toEqual([30, 50]);
     // Ranked by added volume: the second catchment given first.
     expect(total.ranking).toEqual([1, 0]);
     expect(total.addedVolumeRangeM3).toBeNull();
@@ -53,5 +53,25 @@ describe('regional totals', () => {
     const a = catchmentContribution(run([1, 1], [2, 2], [[[1, 1], [2, 2]]]));
     const b = catchmentContribution(run([1, 1], [2, 2]));
     expect(regionalTotal([a, b]).addedVolumeRangeM3).toBeNull();
+  });
+
+  it('add a multi-decade run up year by year, every source, netting the years in which the darkened glacier gives less', () => {
+    const year = (y: number, snow: number, ice: number) => ({
+      year: y, recordYear: 2022, temperatureDeltaC: 0, precipitationFactor: 1, glacierAreaKm2: 1, glacierVolumeKm3: 0.1, massBalanceMm: 0,
+      volumeChangeM3: 0, runoffM3: { snow, ice, debrisIce: 0, rain: 10 }, glacierRunoffM3: ice, bandGlacierAreaKm2: [1],
+    });
+    const bands = [{ elevationM: 3000, areaM2: 4e6 }];
+    const members: TransientContributionMember[] = [
+      { kind: 'baseline', summary: { bands, years: [year(2030, 100, 50), year(2031, 100, 50)] } },
+      { kind: 'scenario', summary: { bands, years: [year(2030, 100, 80), year(2031, 100, 40)] } },
+    ];
+    const c = transientContribution(members);
+    expect([...c.addedByPeriodM3]).toEqual([['2030', 30], ['2031', -10]]);
+    expect(c.addedVolumeM3).toBe(20);
+    // Over two mean Gregorian years; 20 m³ over 4 km² is 0.005 mm.
+    expect(c.meanAddedDischargeM3s).toBeCloseTo(20 / (2 * 365.2425 * 86400), 15);
+    expect(c.addedDepthMm).toBeCloseTo(0.005, 12);
+    expect(c.ensembleAddedM3.size).toBe(0);
+    expect(regionalTotal([c, c]).addedByPeriodM3).toEqual([60, -20]);
   });
 });

@@ -1,5 +1,5 @@
 import type { ChartData, RegionalKey, TableData } from '../schemas/briefings';
-import type { RegionalResults } from '../schemas/studies';
+import { PERIOD_NAMES, type RegionalResults } from '../schemas/studies';
 import { roundSignificant } from '../text/numbers';
 
 const MILLION = 1e6;
@@ -12,7 +12,7 @@ function catchmentOrder(results: RegionalResults): { id: number; name: string }[
   return [...seen].map(([id, name]) => ({ id, name }));
 }
 
-/** A regional study's result frozen for a briefing: a chart (by catchment or by month) or the regional table. */
+/** A regional study's result frozen for a briefing: a chart (by catchment, or by month or year) or the regional table. */
 export function regionalView(key: RegionalKey, results: RegionalResults): { chart: ChartData } | { table: TableData } {
   const catchments = catchmentOrder(results);
   if (key === 'regional-by-catchment') {
@@ -34,12 +34,12 @@ export function regionalView(key: RegionalKey, results: RegionalResults): { char
       },
     };
   }
-  if (key === 'regional-by-month') {
-    const months = [...new Set(results.templates.flatMap((t) => t.months))].sort();
+  if (key === 'regional-by-period') {
+    const periods = [...new Set(results.templates.flatMap((t) => t.periods))].sort();
     return {
       chart: {
-        type: 'bar', xName: 'Month', yName: 'Added runoff of the region', unit: 'million m³', categories: months,
-        series: results.templates.map((t) => ({ name: t.name, values: months.map((m) => { const k = t.months.indexOf(m); return k < 0 ? null : m3(t.monthlyAddedM3[k]); }) })),
+        type: 'bar', xName: PERIOD_NAMES[results.step], yName: 'Added runoff of the region', unit: 'million m³', categories: periods,
+        series: results.templates.map((t) => ({ name: t.name, values: periods.map((p) => { const k = t.periods.indexOf(p); return k < 0 ? null : m3(t.addedByPeriodM3[k]); }) })),
       },
     };
   }

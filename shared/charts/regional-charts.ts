@@ -1,4 +1,4 @@
-import type { RegionalTemplate } from '../schemas/studies';
+import { PERIOD_NAMES, type RegionalResults, type RegionalTemplate } from '../schemas/studies';
 import { axis, chartNumber, GRID, LEGEND, type ChartSpec } from './chart-spec';
 import { TOOLTIP } from './chart-style';
 
@@ -45,27 +45,28 @@ export function regionalCatchmentChart(template: RegionalTemplate): ChartSpec {
   };
 }
 
-/** Added runoff of the region by month (million m³), stacked by catchment: the largest few, then the rest. */
-export function regionalMonthlyChart(template: RegionalTemplate): ChartSpec {
+/** Added runoff of the region by month, or by year of multi-decade runs (million m³), stacked by catchment: the largest few, then the rest. */
+export function regionalPeriodChart(template: RegionalTemplate, step: RegionalResults['step']): ChartSpec {
   const shown = template.catchments.slice(0, SHOWN);
   const rest = template.catchments.slice(SHOWN);
   const series = [
-    ...shown.map((c) => ({ name: c.name, values: c.monthlyAddedM3 })),
-    ...(rest.length ? [{ name: `${rest.length} other catchments`, values: template.months.map((_, k) => rest.reduce((a, c) => a + c.monthlyAddedM3[k], 0)) }] : []),
+    ...shown.map((c) => ({ name: c.name, values: c.addedByPeriodM3 })),
+    ...(rest.length ? [{ name: `${rest.length} other catchments`, values: template.periods.map((_, k) => rest.reduce((a, c) => a + c.addedByPeriodM3[k], 0)) }] : []),
   ];
+  const period = PERIOD_NAMES[step];
   return {
     option: {
       tooltip: TOOLTIP,
       legend: LEGEND,
       grid: GRID,
-      xAxis: axis('Month', 'category', template.months),
+      xAxis: axis(period, 'category', template.periods),
       yAxis: axis('Added runoff (million m³)', 'value'),
       series: series.map((s) => ({ name: s.name, type: 'bar', stack: 'region', data: s.values.map((v) => chartNumber(v / MILLION)) })),
     },
     table: {
-      columns: [{ name: 'month', label: 'Month' }, ...series.map((s, i) => ({ name: `s${i}`, label: `${s.name} (million m³)` })), { name: 'total', label: 'Region (million m³)' }],
-      rows: template.months.map((month, k) => ({
-        month, ...Object.fromEntries(series.map((s, i) => [`s${i}`, chartNumber(s.values[k] / MILLION)])), total: chartNumber(template.monthlyAddedM3[k] / MILLION),
+      columns: [{ name: 'period', label: period }, ...series.map((s, i) => ({ name: `s${i}`, label: `${s.name} (million m³)` })), { name: 'total', label: 'Region (million m³)' }],
+      rows: template.periods.map((p, k) => ({
+        period: p, ...Object.fromEntries(series.map((s, i) => [`s${i}`, chartNumber(s.values[k] / MILLION)])), total: chartNumber(template.addedByPeriodM3[k] / MILLION),
       })),
     },
   };

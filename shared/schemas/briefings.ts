@@ -10,11 +10,11 @@ export type SectionKind = z.infer<typeof sectionKindSchema>;
 export const CHART_KEYS = ['monthly-added-melt', 'daily-discharge', 'band-added-melt', 'surface-split'] as const;
 export const TABLE_KEYS = ['totals', 'monthly-added-melt', 'band-added-melt'] as const;
 /** What a regional section shows of its study (published as a chart or a table). */
-export const REGIONAL_KEYS = ['regional-by-catchment', 'regional-by-month', 'regional-table'] as const;
+export const REGIONAL_KEYS = ['regional-by-catchment', 'regional-by-period', 'regional-table'] as const;
 export type RegionalKey = (typeof REGIONAL_KEYS)[number];
 export const CONTENT_LABELS: Record<string, string> = {
   'regional-by-catchment': 'Regional study: added runoff by catchment (chart)',
-  'regional-by-month': 'Regional study: added runoff of the region by month (chart)',
+  'regional-by-period': 'Regional study: added runoff of the region by month, or by year for a multi-decade study (chart)',
   'regional-table': 'Regional study: added runoff by catchment and for the region (table)',
   'monthly-added-melt': 'Added runoff by month',
   'daily-discharge': 'Daily discharge, baseline and variants',

@@ -64,14 +64,17 @@ export const runOptionsSchema = z.object({
   transient: transientOptionsSchema.nullable().default(null),
 }).strict();
 
-export const startRunSchema = runOptionsSchema.extend({
-  scenarioId: z.number({ message: 'choose a scenario' }).int().positive(),
-}).strict().superRefine((r, ctx) => {
+/** What a multi-decade run cannot have besides its years (a run and a study check the same). */
+export function checkMultiDecadeOptions(r: z.output<typeof runOptionsSchema>, ctx: z.RefinementCtx): void {
   if (!r.transient) return;
   if (r.attribution) ctx.addIssue({ code: 'custom', path: ['attribution'], message: 'a multi-decade run has no attribution; run a season for it' });
   if (r.ensembleSize > 0) ctx.addIssue({ code: 'custom', path: ['ensembleSize'], message: 'a multi-decade run has no ensemble; run a season for it' });
   if (r.start.method !== 'spin-up') ctx.addIssue({ code: 'custom', path: ['start'], message: 'a multi-decade run spins up through its first year' });
-});
+}
+
+export const startRunSchema = runOptionsSchema.extend({
+  scenarioId: z.number({ message: 'choose a scenario' }).int().positive(),
+}).strict().superRefine(checkMultiDecadeOptions);
 export type StartRun = z.input<typeof startRunSchema>;
 export type StartRunRequest = z.output<typeof startRunSchema>;
 

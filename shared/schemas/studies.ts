@@ -1,12 +1,15 @@
 import { z } from 'zod';
 import { catchmentFormSchema } from './catchments';
-import { runOptionsSchema } from './runs';
+import { checkMultiDecadeOptions, runOptionsSchema } from './runs';
 import { isReservedScenarioName, scenarioChangesSchema, BASELINE_NAME } from './scenarios';
 
 const name = z.string().trim().min(1, 'is required').max(80, 'must be at most 80 characters');
 
-/** What every run of a study shares: a single season run's options without its scenario (a study's regional totals add season runs). */
-export const studyOptionsSchema = runOptionsSchema.omit({ transient: true });
+/**
+ * What every run of a study shares: a run's options without its scenario — the templates' season,
+ * or multi-decade years (`transient`), whose regional totals are then by year instead of by month.
+ */
+export const studyOptionsSchema = runOptionsSchema.superRefine(checkMultiDecadeOptions);
 export type StudyOptions = z.output<typeof studyOptionsSchema>;
 
 /** The values a template may set differently for one catchment (catchment-wide numbers). */
@@ -124,17 +127,19 @@ export const regionalCatchmentSchema = z.object({
   areaKm2: z.number(),
   /** 5–95 % of the added volume over the run's ensemble; null without one. */
   addedVolumeRangeM3: range,
-  monthlyAddedM3: z.array(z.number()),
+  /** Added runoff in each of the template's `periods`, m³. */
+  addedByPeriodM3: z.array(z.number()),
 });
 export type RegionalCatchment = z.infer<typeof regionalCatchmentSchema>;
 
 export const regionalTemplateSchema = z.object({
   templateId: z.number().int(),
   name: z.string(),
-  months: z.array(z.string()),
+  /** Calendar months ("2024-05") of season runs, or years ("2031") of multi-decade runs: see the result's `step`. */
+  periods: z.array(z.string()),
   /** Ranked by added volume, largest first. */
   catchments: z.array(regionalCatchmentSchema),
-  monthlyAddedM3: z.array(z.number()),
+  addedByPeriodM3: z.array(z.number()),
   total: z.object({
     addedVolumeM3: z.number(),
     meanAddedDischargeM3s: z.number(),
@@ -149,10 +154,14 @@ export const regionalResultsSchema = z.object({
   study: z.object({ id: z.number().int(), name: z.string() }),
   /** Catchments with every run done, of all in the study. */
   complete: z.object({ done: z.number().int(), of: z.number().int() }),
+  /** Season runs add up by month, multi-decade runs by year (mean added discharge then over all the run's years). */
+  step: z.enum(['month', 'year']),
   templates: z.array(regionalTemplateSchema),
   cautions: z.array(z.string()),
 });
 export type RegionalResults = z.infer<typeof regionalResultsSchema>;
+/** The axis of a regional result over time, by its step. */
+export const PERIOD_NAMES: Record<RegionalResults['step'], string> = { month: 'Month', year: 'Year' };
 export const regionalResultsReplySchema = z.object({ results: regionalResultsSchema });
 
 export const bulkCatchmentsReplySchema = z.object({ study: studySchema, created: z.array(z.object({ id: z.number().int(), name: z.string() })) });

@@ -85,6 +85,7 @@ describe('regional studies', () => {
     expect(res.status).toBe(200);
     const results = regionalResultsSchema.parse(res.body.results);
     expect(results.complete).toEqual({ done: 3, of: 3 });
+    expect(results.step).toBe('month');
     for (const template of results.templates) {
       let volume = 0;
       let discharge = 0;
@@ -96,12 +97,12 @@ describe('regional studies', () => {
         volume += run.totals.addedVolumeM3;
         discharge += run.totals.meanAddedDischargeM3s;
         // By month, the catchment's months add up to its total.
-        expect(c.monthlyAddedM3.reduce((a, b) => a + b, 0)).toBeCloseTo(c.addedVolumeM3, 2);
+        expect(c.addedByPeriodM3.reduce((a, b) => a + b, 0)).toBeCloseTo(c.addedVolumeM3, 2);
       }
       expect(template.total.addedVolumeM3).toBeCloseTo(volume, 3);
       expect(template.total.meanAddedDischargeM3s).toBeCloseTo(discharge, 9);
-      expect(template.monthlyAddedM3.reduce((a, b) => a + b, 0)).toBeCloseTo(volume, 2);
-      expect(template.months).toEqual(['2022-04', '2022-05', '2022-06', '2022-07', '2022-08', '2022-09']);
+      expect(template.addedByPeriodM3.reduce((a, b) => a + b, 0)).toBeCloseTo(volume, 2);
+      expect(template.periods).toEqual(['2022-04', '2022-05', '2022-06', '2022-07', '2022-08', '2022-09']);
       const volumes = template.catchments.map((c) => c.addedVolumeM3);
       expect(volumes).toEqual([...volumes].sort((a, b) => b - a));
       expect(template.catchments.map((c) => c.rank)).toEqual([1, 2, 3]);
