@@ -70,6 +70,9 @@ describe('a multi-decade regional study', () => {
 
     const results = regionalResultsSchema.parse((await consultant.get(`/api/studies/${id}/results`)).body.results);
     expect(results.step).toBe('year');
+    // The cautions of multi-decade runs come with their regional sum.
+    expect(results.cautions.join(' ')).toMatch(/not as new water/);
+    expect(results.cautions.at(-1)).toMatch(/not routed/);
     const [template] = results.templates;
     expect(template.periods).toEqual(YEARS);
     const perYear = YEARS.map(() => 0);

@@ -1,6 +1,7 @@
 import { catchmentContribution, contributionRange, regionalTotal, transientContribution, type CatchmentContribution } from '../../../shared/analysis/regional-totals';
 import { csvLine, safeFileName } from '../../../shared/csv/csv-writing';
 import type { RegionalResults } from '../../../shared/schemas/studies';
+import { TRANSIENT_CAUTIONS } from '../../../shared/analysis/transient-results';
 import { CAUTIONS } from '../../../shared/text/cautions';
 import { roundSignificant } from '../../../shared/text/numbers';
 import { csvFile, type DownloadFile } from '../download-file';
@@ -66,7 +67,7 @@ export class StudyResults {
       complete: { done: study.counts.done, of: study.catchments.length },
       step: multiDecade ? 'year' : 'month',
       templates,
-      cautions: [...CAUTIONS, REGIONAL_CAUTION],
+      cautions: [...CAUTIONS, ...(multiDecade ? TRANSIENT_CAUTIONS : []), REGIONAL_CAUTION],
     };
   }
 
