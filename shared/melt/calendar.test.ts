@@ -26,6 +26,8 @@ describe('calendar', () => {
     expect(standardOffsetHours('Australia/Sydney', 2022)).toBe(10);
     expect(standardOffsetHours('Asia/Kathmandu', 2022)).toBe(5.75);
     expect(standardOffsetHours('UTC', 2022)).toBe(0);
+    // Asked again, from memory: the same.
+    expect(standardOffsetHours('America/Denver', 2003)).toBe(-7);
   });
   it('starts each simulated day at local standard midnight', () => {
     const t = buildTimeline('2003-10-16', 3, 'America/Denver', { from: '2003-10-17', to: '2003-10-17' });

@@ -32,19 +32,28 @@ export function dayOfYear(utcMs: number): number {
   return Math.round((utcMs - Date.UTC(d.getUTCFullYear(), 0, 1)) / DAY_MS) + 1;
 }
 
+/** Offsets already worked out, by zone and year: every simulation asks for its zone's (building the formatter takes most of a millisecond). */
+const standardOffsets = new Map<string, number>();
+
 /**
  * Standard (winter) offset of an IANA time zone from UTC in hours, the smaller of the offsets
  * on 1 January and 1 July of the year. Station loggers keep standard time all year, so forcing
  * hours are read as local standard time (no daylight-saving shifts).
  */
 export function standardOffsetHours(timeZone: string, year: number): number {
+  const key = `${timeZone}|${year}`;
+  const known = standardOffsets.get(key);
+  if (known !== undefined) return known;
+  const format = new Intl.DateTimeFormat('en-US', { timeZone, timeZoneName: 'longOffset' });
   const offsetAt = (ms: number): number => {
-    const part = new Intl.DateTimeFormat('en-US', { timeZone, timeZoneName: 'longOffset' })
-      .formatToParts(new Date(ms)).find((p) => p.type === 'timeZoneName')?.value ?? 'GMT';
+    const part = format.formatToParts(new Date(ms)).find((p) => p.type === 'timeZoneName')?.value ?? 'GMT';
     const m = /GMT([+-])(\d{2}):(\d{2})/.exec(part);
     return m ? (m[1] === '-' ? -1 : 1) * (+m[2] + +m[3] / 60) : 0;
   };
-  return Math.min(offsetAt(Date.UTC(year, 0, 1)), offsetAt(Date.UTC(year, 6, 1)));
+  const offset = Math.min(offsetAt(Date.UTC(year, 0, 1)), offsetAt(Date.UTC(year, 6, 1)));
+  if (standardOffsets.size >= 1000) standardOffsets.clear();
+  standardOffsets.set(key, offset);
+  return offset;
 }
 
 /** Zones already found known: building a formatter for a zone costs about half a millisecond, and every catchment write checks one. */

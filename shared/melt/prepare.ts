@@ -9,7 +9,7 @@ import { buildSurfaceTables, type SurfaceTables } from './surface-tables';
 import { buildEmissivityTable } from './longwave';
 import { buildAirVapourTable, surfaceVapourTable, type SurfaceVapourTable } from './vapour';
 import { snowAlbedoTable, type SnowAlbedoTable } from './albedo-table';
-import { buildCoverTable } from './snow-cover';
+import { coverTableFor } from './snow-cover';
 import { planDays, type Segment, type StartReport } from './spin-up';
 import { initialState, stateFromJson, type BandState } from './state';
 import { pressureAt } from './pressure';
@@ -95,7 +95,7 @@ export function prepareRun(raw: unknown): PreparedRun {
     airVapour: buildAirVapourTable(),
     surfaceVapour: surfaceVapourTable(),
     albedo: snowAlbedoTable(),
-    cover: buildCoverTable(params.snowCoverVariation),
+    cover: coverTableFor(params.snowCoverVariation),
     stationPressurePa: pressureAt(catchment.stationElevationM),
     state,
   };

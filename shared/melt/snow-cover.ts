@@ -60,6 +60,20 @@ export function buildCoverTable(variation: number): Float64Array {
   return table;
 }
 
+/** Cover tables already built, by coefficient of variation (a table takes about a millisecond; most runs share a few CVs). */
+const coverTables = new Map<number, Float64Array>();
+
+/** The cover table of a CV, built once per thread and shared read-only by every run that uses it. */
+export function coverTableFor(variation: number): Float64Array {
+  let table = coverTables.get(variation);
+  if (!table) {
+    table = buildCoverTable(variation);
+    if (coverTables.size >= 64) coverTables.clear();
+    coverTables.set(variation, table);
+  }
+  return table;
+}
+
 /** Snow-covered fraction for w = SWE / peak SWE read from a cover table (w clamped to 0 … 1). */
 export function readCover(table: Float64Array, relativeSwe: number): number {
   const x = (relativeSwe <= 0 ? 0 : relativeSwe >= 1 ? 1 : relativeSwe) * (COVER_TABLE_NODES - 1);

@@ -4,6 +4,7 @@ import { isTransientSummary, type MemberSummary } from '../../../shared/analysis
 import type { TransientSummary, TransientYearRow } from '../../../shared/analysis/transient-member';
 import type { MemberPlan } from '../../../shared/analysis/run-plan';
 import { SOURCES, type Source } from '../../../shared/melt/result';
+import { isUniqueViolation } from '../../db-errors';
 import type { TenantScope } from '../tenant-scope';
 import type { ShortwaveSource } from '../../../shared/melt/schema';
 import type { StartReport } from '../../../shared/melt/spin-up';
@@ -36,8 +37,8 @@ export async function storeMember(scope: TenantScope, runId: number, plan: Membe
   return scope.transaction(async (s) => {
     const run = await s.from<{ status: string; simulation_count: number }>('runs').where('id', runId).forUpdate().first('status', 'simulation_count');
     if (!run || (run.status !== 'queued' && run.status !== 'running')) return { outcome: 'run-closed', finished: false };
-    const existing = await s.from('run_members').where({ run_id: runId, member_key: plan.key }).first('id');
-    if (!existing && summary) await insertMember(s, runId, plan, summary);
+    // The member's key is unique within its run: a member stored before (a retry after a fault) is refused by it and counted, not stored twice.
+    const existing = !summary || !(await insertMemberOnce(s, runId, plan, summary));
     const { stored } = (await s.from('run_members').where('run_id', runId).count({ stored: '*' }).first()) as { stored: number };
     const finished = Number(stored) >= run.simulation_count;
     await s.from('runs').where('id', runId).update(finished
@@ -58,16 +59,24 @@ function yearRows(organisation_id: number, member_id: number, summary: Transient
   }));
 }
 
-async function insertMember(s: TenantScope, runId: number, plan: MemberPlan, summary: MemberSummary): Promise<void> {
+/** Stores the member with its rows; false (and nothing stored) when the run holds the member already. */
+async function insertMemberOnce(s: TenantScope, runId: number, plan: MemberPlan, summary: MemberSummary): Promise<boolean> {
   const organisation_id = s.organisationId;
-  const memberId = await s.insert('run_members', {
-    run_id: runId, member_key: plan.key, kind: plan.kind, combination_mask: plan.combinationMask, ensemble_index: plan.ensembleIndex,
-    parameters: JSON.stringify(plan.input.parameters), start_date: summary.startDate, day_count: isTransientSummary(summary) ? 0 : summary.dayCount,
-    bands: JSON.stringify(summary.bands), start_report: summary.start ? JSON.stringify(summary.start) : null, shortwave_source: summary.shortwaveSource,
-  });
+  let memberId: number;
+  try {
+    memberId = await s.insert('run_members', {
+      run_id: runId, member_key: plan.key, kind: plan.kind, combination_mask: plan.combinationMask, ensemble_index: plan.ensembleIndex,
+      parameters: JSON.stringify(plan.input.parameters), start_date: summary.startDate, day_count: isTransientSummary(summary) ? 0 : summary.dayCount,
+      bands: JSON.stringify(summary.bands), start_report: summary.start ? JSON.stringify(summary.start) : null, shortwave_source: summary.shortwaveSource,
+    });
+  } catch (error) {
+    // Only the refused statement is undone (InnoDB): the transaction goes on with the run row still locked.
+    if (isUniqueViolation(error)) return false;
+    throw error;
+  }
   if (isTransientSummary(summary)) {
     await insertChunked(s.db, 'run_years', yearRows(organisation_id, memberId, summary));
-    return;
+    return true;
   }
   const months = summary.months.map((m) => ({
     organisation_id, member_id: memberId, band_index: m.bandIndex, month: m.month, days: m.days,
@@ -87,6 +96,7 @@ async function insertMember(s: TenantScope, runId: number, plan: MemberPlan, sum
   }
   await insertChunked(s.db, 'run_band_months', months);
   await insertChunked(s.db, 'run_daily', daily);
+  return true;
 }
 
 interface MemberRow {
