@@ -4,14 +4,16 @@
  * 1. Overhead per job: 200 one-member runs with a trivial simulation (one band, one day of a
  *    three-day record, no spin-up), one at a time, each timed from enqueue to the worker starting it and to its result
  *    stored (the job's completion, reported after the member is written). Prints p50/p99 (target: p99 < 20 ms).
- * 2. Throughput: a 20-catchment study — baseline + 2 variants over one season (each variant run
+ * 2. Throughput: a 20-catchment study (BENCH_CATCHMENTS for another size) — baseline + 2 variants over one season (each variant run
  *    simulates its paired baseline: 80 simulations) — with 1 and then 2 worker processes of one
- *    thread each, as simulations per second (target: 2 workers ≥ 1.7 × one).
+ *    thread each, as simulations per second (target: 2 workers ≥ 1.7 × one), and the CPU time the
+ *    worker, the database and the benchmark itself spend per simulation (what bounds the rate).
  *
  * Uses the database in the environment (DB_* variables, as the server) inside a throw-away
  * organisation removed afterwards, and the Redis of REDIS_PORT under a queue prefix of its own,
  * with worker processes it starts itself (not those of `npm start`).
  */
+import { readFileSync } from 'node:fs';
 import { availableParallelism, loadavg } from 'node:os';
 import { QueueEvents } from 'bullmq';
 import { planRun } from '../../shared/analysis/run-plan';
@@ -31,7 +33,7 @@ import { storeQueuedRun } from '../../tests/support/queued-runs';
 const PREFIX = `bench-queue-${process.pid}`;
 const SEASON = { from: '2022-04-01', to: '2022-09-30' };
 const OVERHEAD_JOBS = 200;
-const CATCHMENTS = 20;
+const CATCHMENTS = Number(process.env.BENCH_CATCHMENTS ?? 20);
 
 const env = { ...process.env, QUEUE_PREFIX: PREFIX, WORKER_THREADS: '1', LOG_LEVEL: 'warn', ORGANISATION_CONCURRENCY: '100' };
 const config = parseConfig(env);
@@ -51,6 +53,36 @@ function inputsOf(changes: object, bandCount: number, period: { from: string; to
     attribution: false, ensembleSize: 0, ensembleSeed: 1,
   }, catchment.bands.map((b) => (b.lowerM + b.upperM) / 2));
   return seasonRunInputs({ catchment, forcing }, start, plan.members);
+}
+
+/** CPU seconds a process on this machine has used, all its threads together (Linux /proc; 100 clock ticks a second); null where it cannot be read. */
+function cpuSeconds(pid: number | undefined): number | null {
+  if (!pid) return null;
+  try {
+    const stat = readFileSync(`/proc/${pid}/stat`, 'utf8');
+    const fields = stat.slice(stat.lastIndexOf(')') + 2).split(' ');
+    return (Number(fields[11]) + Number(fields[12])) / 100;
+  } catch {
+    return null;
+  }
+}
+
+/** The database server's process id, when it runs on this machine and says where its pid file is. */
+async function databasePid(): Promise<number | undefined> {
+  try {
+    const [rows] = await db.raw('SELECT @@pid_file AS file');
+    return Number(readFileSync((rows as { file: string }[])[0].file, 'utf8').trim()) || undefined;
+  } catch {
+    return undefined;
+  }
+}
+
+interface CpuUse { workers: number | null; database: number | null; benchmark: number }
+
+function cpuNow(workerPids: (number | undefined)[], dbPid: number | undefined): CpuUse {
+  const workers = workerPids.map(cpuSeconds);
+  const { user, system } = process.cpuUsage();
+  return { workers: workers.every((w) => w !== null) ? workers.reduce((a, w) => a! + w!, 0) : null, database: cpuSeconds(dbPid), benchmark: (user + system) / 1e6 };
 }
 
 async function startWorkers(count: number): Promise<WorkerProcess[]> {
@@ -96,7 +128,7 @@ async function overhead(organisationId: number): Promise<{ toStart: number[]; to
   return { toStart, toStored, inJob };
 }
 
-async function throughput(organisationId: number, workerCount: number): Promise<{ simulations: number; seconds: number }> {
+async function throughput(organisationId: number, workerCount: number): Promise<{ simulations: number; seconds: number; cpuMs: CpuUse | null }> {
   const variants = [{ blackCarbonSnowNgG: 200 + workerCount }, { blackCarbonSnowNgG: 200 + workerCount, temperatureDeltaC: 1.5 }];
   const runs: { runId: number; count: number }[] = [];
   for (let c = 0; c < CATCHMENTS; c++) {
@@ -106,6 +138,9 @@ async function throughput(organisationId: number, workerCount: number): Promise<
     }
   }
   const workers = await startWorkers(workerCount);
+  const dbPid = await databasePid();
+  const pids = workers.map((w) => w.child.pid);
+  const cpuBefore = cpuNow(pids, dbPid);
   const started = Date.now();
   for (const r of runs) await ctx.runQueue.enqueue({ runId: r.runId, organisationId, memberCount: r.count, priority: 'study' });
   for (;;) {
@@ -114,8 +149,14 @@ async function throughput(organisationId: number, workerCount: number): Promise<
     await new Promise((r) => setTimeout(r, 100));
   }
   const seconds = (Date.now() - started) / 1000;
+  const cpuAfter = cpuNow(pids, dbPid);
   await Promise.all(workers.map((w) => w.stop()));
-  return { simulations: runs.reduce((a, r) => a + r.count, 0), seconds };
+  const simulations = runs.reduce((a, r) => a + r.count, 0);
+  const perSimulation = (a: number | null, b: number | null) => (a === null || b === null ? null : ((b - a) * 1000) / simulations);
+  return {
+    simulations, seconds,
+    cpuMs: { workers: perSimulation(cpuBefore.workers, cpuAfter.workers), database: perSimulation(cpuBefore.database, cpuAfter.database), benchmark: perSimulation(cpuBefore.benchmark, cpuAfter.benchmark)! },
+  };
 }
 
 const ms = (v: number) => `${v.toFixed(1)} ms`;
@@ -136,11 +177,20 @@ try {
   console.log(`\n  ${CATCHMENTS}-catchment study, baseline + 2 variants, one season (6 bands, hourly): ${one.simulations} simulations`);
   console.log(`  1 worker process:  ${rate(one).toFixed(2)} simulations/s (${one.seconds.toFixed(1)} s)`);
   console.log(`  2 worker processes: ${rate(two).toFixed(2)} simulations/s (${two.seconds.toFixed(1)} s), ${(rate(two) / rate(one)).toFixed(2)} × one   (target ≥ 1.7 ×)`);
+  // Where the time goes decides how far more workers (on more machines) carry: the workers' share grows with machines, the database's does not.
+  const cpu = one.cpuMs!;
+  const cpuText = (v: number | null) => (v === null ? 'not readable' : ms(v));
+  console.log(`  CPU per simulation (1 worker): worker ${cpuText(cpu.workers)}, database ${cpuText(cpu.database)}, this benchmark ${cpuText(cpu.benchmark)}`);
+  if (cpu.workers !== null && cpu.database !== null) {
+    const all = cpu.workers + cpu.database + cpu.benchmark;
+    console.log(`  so ${availableParallelism()} cores carry at most ${((availableParallelism() * 1000) / all).toFixed(0)} simulations/s here; one database core alone ${(1000 / cpu.database).toFixed(0)}/s`);
+  }
   console.log(`  machine load average ${loadavg()[0].toFixed(1)} on ${availableParallelism()} cores`);
   console.log(JSON.stringify({
     overheadP50Ms: percentile(toStored, 50), overheadP99Ms: percentile(toStored, 99), startP99Ms: percentile(toStart, 99),
     jobWorkP99Ms: percentile(inJob, 99), queueShareP99Ms: percentile(queueShare, 99),
     oneWorkerPerSecond: rate(one), twoWorkersPerSecond: rate(two), speedUp: rate(two) / rate(one), loadAverage: loadavg()[0],
+    workerCpuMsPerSimulation: one.cpuMs?.workers, databaseCpuMsPerSimulation: one.cpuMs?.database,
   }));
 } finally {
   await db('organisations').where('id', organisationId).delete();
