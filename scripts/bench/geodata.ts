@@ -11,10 +11,8 @@
  * (scripts/bench/runs-server.ts) so this client does not share its event loop.
  */
 import bcrypt from 'bcryptjs';
-import { spawn } from 'node:child_process';
 import { rm } from 'node:fs/promises';
 import path from 'node:path';
-import { createInterface } from 'node:readline';
 import { availableParallelism, loadavg } from 'node:os';
 import { loadConfig } from '../../server/config';
 import { createDb } from '../../server/db';
@@ -24,6 +22,7 @@ import { valueNoise } from '../../shared/geodata/demo/value-noise';
 import type { PolygonRings, Ring } from '../../shared/geodata/outline';
 import type { Raster } from '../../shared/geodata/raster';
 import { traceMask } from '../../shared/geodata/trace';
+import { startApiProcess } from './api-process';
 
 const SIZE = 2000;
 const CELL = 30;
@@ -64,17 +63,6 @@ const db = createDb(config.db);
 const stamp = Date.now();
 const [organisationId] = await db('organisations').insert({ name: `Geodata benchmark ${stamp}` });
 
-async function startApiProcess() {
-  const child = spawn(process.execPath, ['--import', 'tsx', 'scripts/bench/runs-server.ts'], { stdio: ['ignore', 'pipe', 'inherit'], env: process.env });
-  const lines = createInterface({ input: child.stdout });
-  const next = () => new Promise<Record<string, number>>((resolve, reject) => {
-    lines.once('line', (line) => resolve(JSON.parse(line)));
-    child.once('exit', (code) => reject(new Error(`the API process exited (${code})`)));
-  });
-  const { port } = await next();
-  return { port, stop: async () => { const report = next(); child.kill('SIGTERM'); return report; } };
-}
-
 async function main(): Promise<void> {
   await db('users').insert({
     organisation_id: organisationId, email: `geo.${stamp}@bench.invalid`, name: 'Benchmark', role: 'consultant', status: 'active', password_hash: bcrypt.hashSync(PASSWORD, 4),
@@ -93,14 +81,24 @@ async function main(): Promise<void> {
   ];
 
   const api = await startApiProcess();
-  const base = `http://127.0.0.1:${api.port}/api`;
+  try {
+    await measure(api.port, catchmentId, files, api.stop);
+  } finally {
+    // A failed request must not leave the API process behind.
+    await api.stop().catch(() => undefined);
+  }
+}
+
+async function measure(port: number, catchmentId: number, files: [string, Blob, string][], stopApi: () => Promise<Record<string, number>>): Promise<void> {
+  const base = `http://127.0.0.1:${port}/api`;
   const signIn = await fetch(`${base}/auth/sign-in`, { method: 'POST', headers: { 'Content-Type': 'application/json' }, body: JSON.stringify({ email: `geo.${stamp}@bench.invalid`, password: PASSWORD }) });
-  const cookie = signIn.headers.get('set-cookie')!.split(';')[0];
+  // The session, and the header the API asks of every write (another site's form cannot send it).
+  const signedIn = { Cookie: signIn.headers.get('set-cookie')!.split(';')[0], 'X-Requested-With': 'tarnish' };
   const geodata = `${base}/catchments/${catchmentId}/geodata`;
   for (const [layer, blob, name] of files) {
     const form = new FormData();
     form.append('file', blob, name);
-    const res = await fetch(`${geodata}/uploads/${layer}`, { method: 'POST', headers: { Cookie: cookie }, body: form });
+    const res = await fetch(`${geodata}/uploads/${layer}`, { method: 'POST', headers: signedIn, body: form });
     if (!res.ok) throw new Error(`upload ${layer}: ${res.status} ${await res.text()}`);
   }
 
@@ -111,7 +109,7 @@ async function main(): Promise<void> {
     while (pinging) {
       for (const url of [`${base}/health`, `${geodata}/uploads`]) {
         const t = performance.now();
-        await fetch(url, { headers: { Cookie: cookie } });
+        await fetch(url, { headers: signedIn });
         slowestMs = Math.max(slowestMs, performance.now() - t);
         answers++;
       }
@@ -120,13 +118,13 @@ async function main(): Promise<void> {
   })();
   const started = performance.now();
   const res = await fetch(`${geodata}/derivations`, {
-    method: 'POST', headers: { Cookie: cookie, 'Content-Type': 'application/json' },
+    method: 'POST', headers: { ...signedIn, 'Content-Type': 'application/json' },
     body: JSON.stringify({ bandWidthM: 100, horizonSectors: SECTORS, debrisThicknessM: 0.2 }),
   });
   const seconds = (performance.now() - started) / 1000;
   pinging = false;
   await pinger;
-  const loop = await api.stop();
+  const loop = await stopApi();
   if (!res.ok) throw new Error(`derive: ${res.status} ${await res.text()}`);
   const { derivation } = await res.json() as { derivation: { bands: unknown[]; seconds: number; summary: { areaKm2: number; glacierAreaKm2: number } } };
 
