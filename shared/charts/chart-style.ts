@@ -1,4 +1,5 @@
 import { formatDatesIn, formatQuantity, formatYearMonth } from '../text/format';
+import { GUIDE_GREY, INK, REFERENCE_GREY } from './palette';
 
 /**
  * The style every chart shares, on screen and in the PDF: a legend that wraps onto more lines
@@ -82,3 +83,21 @@ export const DARK_CHART_THEME = {
   visualMap: { textStyle: { color: '#dfe6eb' } },
 } as const;
 export const DARK_CHART_THEME_NAME = 'tarnish-dark';
+
+/**
+ * The ink colours of the palette as dark mode draws them: black observations and the grey
+ * baseline and guides would all but vanish on the dark card (the series colours read on both).
+ * Downloads and PDFs keep the light colours.
+ */
+const ON_DARK_CARD: Record<string, string> = { [INK]: '#eef2f5', [REFERENCE_GREY]: '#b7c3cb', [GUIDE_GREY]: '#8f9ba3' };
+
+/** The option with the palette's ink colours lightened for the dark card (a copy; typed arrays of data are passed on as they are). */
+export function forDarkCard<T>(option: T): T {
+  const walk = (value: unknown): unknown => {
+    if (typeof value === 'string') return ON_DARK_CARD[value.toLowerCase()] ?? value;
+    if (value === null || typeof value !== 'object' || ArrayBuffer.isView(value)) return value;
+    if (Array.isArray(value)) return value.map(walk);
+    return Object.fromEntries(Object.entries(value).map(([k, v]) => [k, walk(v)]));
+  };
+  return walk(option) as T;
+}
