@@ -19,6 +19,8 @@ export interface AppOptions {
 export function createApp(ctx: AppContext, options: AppOptions = {}): Express {
   const app = express();
   app.disable('x-powered-by');
+  // API answers are no-store, never revalidated: hashing every body for an entity tag would be wasted (the client's files keep theirs).
+  app.set('etag', false);
   app.set('trust proxy', 'loopback');
   app.use(requestLog(ctx.logger));
   const clientDir = options.clientDir && existsSync(options.clientDir) ? path.resolve(options.clientDir) : null;
