@@ -91,13 +91,19 @@ export const DARK_CHART_THEME_NAME = 'tarnish-dark';
  */
 const ON_DARK_CARD: Record<string, string> = { [INK]: '#eef2f5', [REFERENCE_GREY]: '#b7c3cb', [GUIDE_GREY]: '#8f9ba3' };
 
-/** The option with the palette's ink colours lightened for the dark card (a copy; typed arrays of data are passed on as they are). */
+/**
+ * The option with the palette's ink colours lightened for the dark card (a copy). In a series'
+ * data only points given as objects (which may carry a style) are looked at; plain values and
+ * [x, y] pairs, thousands of them in an hourly series, are passed on as they are.
+ */
 export function forDarkCard<T>(option: T): T {
-  const walk = (value: unknown): unknown => {
+  const walk = (value: unknown, key = ''): unknown => {
     if (typeof value === 'string') return ON_DARK_CARD[value.toLowerCase()] ?? value;
     if (value === null || typeof value !== 'object' || ArrayBuffer.isView(value)) return value;
-    if (Array.isArray(value)) return value.map(walk);
-    return Object.fromEntries(Object.entries(value).map(([k, v]) => [k, walk(v)]));
+    if (Array.isArray(value)) {
+      return key === 'data' ? value.map((point) => (point !== null && typeof point === 'object' && !Array.isArray(point) ? walk(point) : point)) : value.map((v) => walk(v));
+    }
+    return Object.fromEntries(Object.entries(value).map(([k, v]) => [k, walk(v, k)]));
   };
   return walk(option) as T;
 }

@@ -3,6 +3,8 @@
  * host's own time zone never leaks in.
  */
 
+import { remembered } from './remembered';
+
 const DAY_MS = 86_400_000;
 
 /** Milliseconds of the UTC midnight with the same calendar date, or NaN if the text is not a real date. */
@@ -32,42 +34,28 @@ export function dayOfYear(utcMs: number): number {
   return Math.round((utcMs - Date.UTC(d.getUTCFullYear(), 0, 1)) / DAY_MS) + 1;
 }
 
-/** Offsets already worked out, by zone and year: every simulation asks for its zone's (building the formatter takes most of a millisecond). */
-const standardOffsets = new Map<string, number>();
-
 /**
  * Standard (winter) offset of an IANA time zone from UTC in hours, the smaller of the offsets
  * on 1 January and 1 July of the year. Station loggers keep standard time all year, so forcing
- * hours are read as local standard time (no daylight-saving shifts).
+ * hours are read as local standard time (no daylight-saving shifts). Remembered by zone and year:
+ * every simulation asks for its zone's, and building the formatter takes most of a millisecond.
  */
-export function standardOffsetHours(timeZone: string, year: number): number {
-  const key = `${timeZone}|${year}`;
-  const known = standardOffsets.get(key);
-  if (known !== undefined) return known;
+export const standardOffsetHours = remembered((timeZone: string, year: number): number => {
   const format = new Intl.DateTimeFormat('en-US', { timeZone, timeZoneName: 'longOffset' });
   const offsetAt = (ms: number): number => {
     const part = format.formatToParts(new Date(ms)).find((p) => p.type === 'timeZoneName')?.value ?? 'GMT';
     const m = /GMT([+-])(\d{2}):(\d{2})/.exec(part);
     return m ? (m[1] === '-' ? -1 : 1) * (+m[2] + +m[3] / 60) : 0;
   };
-  const offset = Math.min(offsetAt(Date.UTC(year, 0, 1)), offsetAt(Date.UTC(year, 6, 1)));
-  if (standardOffsets.size >= 1000) standardOffsets.clear();
-  standardOffsets.set(key, offset);
-  return offset;
-}
+  return Math.min(offsetAt(Date.UTC(year, 0, 1)), offsetAt(Date.UTC(year, 6, 1)));
+}, (timeZone, year) => `${timeZone}|${year}`, 1000);
 
-/** Zones already found known: building a formatter for a zone costs about half a millisecond, and every catchment write checks one. */
-const knownTimeZones = new Set<string>();
-
-/** True if the runtime knows the IANA time zone. */
-export function isTimeZone(timeZone: string): boolean {
-  if (knownTimeZones.has(timeZone)) return true;
+/** True if the runtime knows the IANA time zone (remembered: a formatter costs about half a millisecond, and every catchment write checks one). */
+export const isTimeZone = remembered((timeZone: string): boolean => {
   try {
     new Intl.DateTimeFormat('en-US', { timeZone });
+    return true;
   } catch {
     return false;
   }
-  // Only known zones are kept, and no more than a thousand (spellings in other letter cases are known too).
-  if (knownTimeZones.size < 1000) knownTimeZones.add(timeZone);
-  return true;
-}
+}, (timeZone) => timeZone, 1000);

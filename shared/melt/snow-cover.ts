@@ -11,6 +11,8 @@
  * jumping when its mean SWE reaches zero.
  */
 
+import { remembered } from './remembered';
+
 /** Standard normal distribution function; erf after Abramowitz & Stegun 7.1.26 (error < 1.5·10⁻⁷). */
 export function normalCdf(x: number): number {
   const z = Math.abs(x) / Math.SQRT2;
@@ -60,19 +62,8 @@ export function buildCoverTable(variation: number): Float64Array {
   return table;
 }
 
-/** Cover tables already built, by coefficient of variation (a table takes about a millisecond; most runs share a few CVs). */
-const coverTables = new Map<number, Float64Array>();
-
-/** The cover table of a CV, built once per thread and shared read-only by every run that uses it. */
-export function coverTableFor(variation: number): Float64Array {
-  let table = coverTables.get(variation);
-  if (!table) {
-    table = buildCoverTable(variation);
-    if (coverTables.size >= 64) coverTables.clear();
-    coverTables.set(variation, table);
-  }
-  return table;
-}
+/** The cover table of a CV, built once per thread (about a millisecond each; most runs share a few CVs) and shared read-only by every run that uses it. */
+export const coverTableFor = remembered(buildCoverTable, (variation) => variation, 64);
 
 /** Snow-covered fraction for w = SWE / peak SWE read from a cover table (w clamped to 0 … 1). */
 export function readCover(table: Float64Array, relativeSwe: number): number {

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { remembered } from '../melt/remembered';
 
 /**
  * IANA time zones as users pick them. `Intl.supportedValuesOf('timeZone')` lists ICU's names,
@@ -38,27 +39,15 @@ const CANONICAL_OF_LEGACY: Readonly<Record<string, string>> = {
   GMT: 'UTC', 'Etc/GMT': 'UTC', 'Etc/GMT0': 'UTC', 'Etc/GMT+0': 'UTC', 'Etc/GMT-0': 'UTC', 'Etc/Greenwich': 'UTC', Greenwich: 'UTC', GMT0: 'UTC',
 };
 
-/** Answers of runtimeZone so far: building a DateTimeFormat costs tens of microseconds, and every catchment write asks. */
-const answered = new Map<string, string | null>();
-const MAX_ANSWERS = 2000;
-
-/** A time zone the runtime knows (any spelling case); offsets such as "+05:45" are not zones. */
-function runtimeZone(name: string): string | null {
-  const known = answered.get(name);
-  if (known !== undefined) return known;
-  let zone: string | null = null;
-  if (/^[A-Za-z][A-Za-z0-9_+\-/]*$/.test(name)) {
-    try {
-      zone = new Intl.DateTimeFormat('en-US', { timeZone: name }).resolvedOptions().timeZone;
-    } catch {
-      zone = null;
-    }
+/** A time zone the runtime knows (any spelling case); offsets such as "+05:45" are not zones. Remembered: building a formatter costs tens of microseconds, and every catchment write asks. */
+const runtimeZone = remembered((name: string): string | null => {
+  if (!/^[A-Za-z][A-Za-z0-9_+\-/]*$/.test(name)) return null;
+  try {
+    return new Intl.DateTimeFormat('en-US', { timeZone: name }).resolvedOptions().timeZone;
+  } catch {
+    return null;
   }
-  // Bounded: names typed at random must not grow it without end.
-  if (answered.size >= MAX_ANSWERS) answered.clear();
-  answered.set(name, zone);
-  return zone;
-}
+}, (name) => name, 2000);
 
 /** The canonical IANA name of a zone or one of its aliases ("asia/calcutta" → "Asia/Kolkata"); null for anything else. */
 export function canonicalTimeZone(input: string): string | null {

@@ -10,7 +10,7 @@ import type { TenantScope } from '../tenant-scope';
 import type { StudyService } from './study-service';
 
 /** What the figures of a study's runs cover, by its step. */
-export const STEP_NOTES: Record<RegionalResults['step'], string> = {
+const STEP_NOTES: Record<RegionalResults['step'], string> = {
   month: 'One season: added runoff by month; mean added discharge over each catchment\'s melt season',
   year: 'Multi-decade: added runoff by year; mean added discharge over all the run\'s years',
 };
